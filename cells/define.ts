@@ -1,0 +1,182 @@
+/**
+ * Registration of the functions a cell may call.
+ *
+ * A cell function is described, not hand-wrapped: its parameters and result
+ * fields name their SI units, and `defineCellFunction` builds the wrapper that
+ * checks and converts units on the way in, calls the pure kernel with plain SI
+ * numbers, and attaches units to the result on the way out.
+ */
+import { math } from './math.js';
+import { toSI, fromSI, UnitMismatchError } from './units.js';
+
+/**
+ * What a parameter, option or result field holds.
+ * - an SI unit string ('m', 'N/m', 'Pa', 'rad', 'N/m^3'); '1' for a plain number
+ * - 'text', 'boolean', 'count' (a whole number ≥ 0), 'any'
+ * - `{object: {...}}` a record of named fields; `{list: T}` a list of T
+ * - `{ref: 'arch_ring'}` a value returned earlier by that cell function
+ */
+export type FieldType =
+  | string
+  | { object: Record<string, FieldType> }
+  | { list: FieldType }
+  | { ref: string };
+
+export interface ParamSpec {
+  name: string;
+  type: FieldType;
+  optional?: boolean;
+}
+
+export interface CellFunctionSpec<K = any> {
+  /** The snake_case name a document calls. */
+  name: string;
+  /** One sentence for the function list and the sheet. */
+  doc: string;
+  params: ParamSpec[];
+  /** Units of the kernel's result; fields not listed pass through unchanged. */
+  returns: FieldType;
+  /** The pure kernel: plain SI numbers in, plain SI numbers out. */
+  fn: (...args: any[]) => K;
+  /** Names of option fields that must be present (checked before the kernel runs). */
+  required?: string[];
+}
+
+/** A registered cell function: the spec plus the unit-converting wrapper. */
+export interface CellFunction {
+  readonly isCellFunction: true;
+  readonly name: string;
+  readonly doc: string;
+  readonly params: ParamSpec[];
+  readonly returns: FieldType;
+  /** Called by mathjs with document values. */
+  readonly call: (...args: unknown[]) => unknown;
+}
+
+/** A mistake in how a document called a cell function (missing option, wrong type). */
+export class CellArgumentError extends Error {
+  override name = 'CellArgumentError';
+}
+
+/** Hidden keys on returned objects: not reachable from an expression. */
+export const KERNEL_VALUE = Symbol('vaultbook.kernelValue');
+export const KERNEL_SOURCE = Symbol('vaultbook.kernelSource');
+
+const KEYWORDS = new Set(['text', 'boolean', 'count', 'any']);
+
+/** Is this value an object returned by a cell function? */
+export function isKernelResult(value: unknown): value is Record<string | symbol, unknown> {
+  return typeof value === 'object' && value !== null && KERNEL_SOURCE in value;
+}
+
+function describeType(type: FieldType): string {
+  if (typeof type === 'string') return KEYWORDS.has(type) ? type : `a quantity in ${type}`;
+  if ('ref' in type) return `the result of ${type.ref}(…)`;
+  if ('list' in type) return 'a list';
+  return 'a record {…}';
+}
+
+function toKernel(value: unknown, type: FieldType, what: string): unknown {
+  if (typeof type === 'string') {
+    switch (type) {
+      case 'any':
+        return value;
+      case 'text':
+        if (typeof value !== 'string') throw new CellArgumentError(`${what} must be text in quotes, e.g. "circular"`);
+        return value;
+      case 'boolean':
+        if (typeof value !== 'boolean') throw new CellArgumentError(`${what} must be true or false`);
+        return value;
+      case 'count': {
+        const n = toSI(value, '1', what);
+        if (!Number.isInteger(n) || n < 0) throw new CellArgumentError(`${what} must be a whole number ≥ 0, got ${n}`);
+        return n;
+      }
+      default:
+        return toSI(value, type, what);
+    }
+  }
+  if ('ref' in type) {
+    if (!isKernelResult(value) || value[KERNEL_SOURCE] !== type.ref) {
+      throw new CellArgumentError(`${what} must be ${describeType(type)}`);
+    }
+    return value[KERNEL_VALUE];
+  }
+  if ('list' in type) {
+    const items = math.isMatrix(value) ? (value as { toArray(): unknown[] }).toArray() : value;
+    if (!Array.isArray(items)) throw new CellArgumentError(`${what} must be a list [ … ]`);
+    return items.map((item, i) => toKernel(item, type.list, `${what}[${i + 1}]`));
+  }
+  if (typeof value !== 'object' || value === null || Array.isArray(value) || math.isUnit(value)) {
+    throw new CellArgumentError(`${what} must be a record {name: value, …}`);
+  }
+  const out: Record<string, unknown> = {};
+  const known = Object.keys(type.object);
+  for (const [key, field] of Object.entries(value as Record<string, unknown>)) {
+    if (!(key in type.object)) {
+      throw new CellArgumentError(`unknown option "${key}" in ${what}; known options: ${known.join(', ')}`);
+    }
+    out[key] = toKernel(field, type.object[key]!, `${what}.${key}`);
+  }
+  return out;
+}
+
+function fromKernel(value: unknown, type: FieldType | undefined): unknown {
+  if (value === undefined || value === null || math.isUnit(value) || math.isMatrix(value)) return value;
+  if (type === undefined || (typeof type === 'string' && KEYWORDS.has(type))) {
+    if (Array.isArray(value)) return value.map((v) => fromKernel(v, undefined));
+    if (typeof value === 'object') return fromKernel(value, { object: {} });
+    return value;
+  }
+  if (typeof type === 'string') {
+    if (typeof value !== 'number') return value;
+    return fromSI(value, type);
+  }
+  if ('ref' in type) return value;
+  if ('list' in type) {
+    return Array.isArray(value) ? value.map((v) => fromKernel(v, type.list)) : value;
+  }
+  if (typeof value !== 'object') return value;
+  const out: Record<string, unknown> = {};
+  for (const [key, field] of Object.entries(value as Record<string, unknown>)) {
+    if (typeof field === 'function') continue;
+    out[key] = fromKernel(field, type.object[key]);
+  }
+  return out;
+}
+
+/**
+ * Describes a kernel function so that cells can call it with units.
+ * @param spec name, parameter and result units, and the pure kernel
+ * @returns the registered function; list it in cells/index.ts to expose it
+ * @example
+ * export const clamp = defineCellFunction({name: 'clamp', doc: 'Limits x to [lo, hi].',
+ *   params: [{name: 'x', type: 'any'}, ...], returns: 'any', fn: clampKernel});
+ */
+export function defineCellFunction<K>(spec: CellFunctionSpec<K>): CellFunction {
+  if (!/^[a-z][a-z0-9_]*$/.test(spec.name)) {
+    throw new TypeError(`defineCellFunction: name must be snake_case, got "${spec.name}"`);
+  }
+  const required = spec.params.filter((p) => !p.optional).length;
+  const call = (...args: unknown[]): unknown => {
+    if (args.length < required || args.length > spec.params.length) {
+      const list = spec.params.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(', ');
+      throw new CellArgumentError(`${spec.name} takes (${list}), got ${args.length} argument${args.length === 1 ? '' : 's'}`);
+    }
+    const kernelArgs = args.map((a, i) => toKernel(a, spec.params[i]!.type, spec.params[i]!.name));
+    for (const name of spec.required ?? []) {
+      const opts = kernelArgs[0] as Record<string, unknown>;
+      if (opts?.[name] === undefined) throw new CellArgumentError(`${spec.name}: option "${name}" is required`);
+    }
+    const raw = spec.fn(...kernelArgs);
+    const shown = fromKernel(raw, spec.returns);
+    if (typeof shown === 'object' && shown !== null && !Array.isArray(shown) && !math.isUnit(shown)) {
+      Object.defineProperty(shown, KERNEL_VALUE, { value: raw, enumerable: false });
+      Object.defineProperty(shown, KERNEL_SOURCE, { value: spec.name, enumerable: false });
+    }
+    return shown;
+  };
+  return Object.freeze({ isCellFunction: true as const, name: spec.name, doc: spec.doc, params: spec.params, returns: spec.returns, call });
+}
+
+export { UnitMismatchError };

@@ -1,0 +1,5 @@
+/**
+ * Every function a cell may call, one flat list. What is exported here is
+ * what a document can use, and nothing else.
+ */
+export { interp, clamp } from './table/register.js';

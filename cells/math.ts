@@ -1,0 +1,53 @@
+/**
+ * The one mathjs instance every cell is evaluated with.
+ *
+ * It adds the engineering units mathjs lacks and then disables the functions
+ * that would let a document reach outside plain expressions, following the
+ * "security" page of the mathjs documentation: a document is data, not code.
+ */
+import { create, all, type MathJsInstance, type MathNode } from 'mathjs';
+
+const instance: MathJsInstance = create(all, { number: 'number', precision: 14 });
+
+// US customary units used on vault and wall calcs that mathjs lacks (it has
+// kip, lbf, psi, ft already). Factors from NIST SP 811, Appendix B.
+instance.createUnit({
+  ksi: '6894757.2931783 Pa',
+  psf: '47.880258980336 Pa',
+  pcf: '157.08746384624 N/m^3',
+  plf: '14.593902937206 N/m',
+  klf: '14593.902937206 N/m',
+  kipft: '1355.8179483314 N m',
+});
+
+/** mathjs's parser, captured before the document-facing copy is disabled. */
+export const parseExpression: (expr: string) => MathNode = instance.parse.bind(instance);
+
+/** Names a document may never call; each throws a clear error when used. */
+export const DISABLED_FUNCTIONS = [
+  'import', 'createUnit', 'evaluate', 'parse', 'compile', 'simplify', 'simplifyConstant',
+  'simplifyCore', 'derivative', 'resolve', 'reviver', 'replacer', 'rationalize',
+  'symbolicEqual', 'leafCount', 'parser', 'help',
+] as const;
+
+/**
+ * Names refused before evaluation rather than overridden: replacing them in
+ * the instance would break mathjs's own lazy factories.
+ */
+export const WITHHELD_NAMES = ['config', 'typed', 'chain', 'on', 'off', 'once', 'emit', 'expression'] as const;
+
+const disabled: Record<string, () => never> = {};
+for (const name of DISABLED_FUNCTIONS) {
+  disabled[name] = () => {
+    throw new SandboxError(`the function ${name} is not available in a calc document`);
+  };
+}
+
+/** Raised when a document reaches for something the sandbox withholds. */
+export class SandboxError extends Error {
+  override name = 'SandboxError';
+}
+
+instance.import(disabled, { override: true });
+
+export const math: MathJsInstance = instance;

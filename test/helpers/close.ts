@@ -1,0 +1,10 @@
+import { expect } from 'vitest';
+
+/** Asserts |actual − expected| ≤ relTol·max(|expected|, absFloor). */
+export function expectClose(actual: number, expected: number, relTol = 1e-9, absFloor = 1e-12): void {
+  expect(Number.isFinite(actual), `expected a finite number, got ${actual}`).toBe(true);
+  const tol = relTol * Math.max(Math.abs(expected), absFloor);
+  if (Math.abs(actual - expected) > tol) {
+    expect.fail(`expected ${actual} to be within ${relTol} (relative) of ${expected}; off by ${Math.abs(actual - expected)}`);
+  }
+}
