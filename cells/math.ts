@@ -7,7 +7,7 @@
  */
 import { create, all, type MathJsInstance, type MathNode } from 'mathjs';
 
-const instance: MathJsInstance = create(all, { number: 'number', precision: 14 });
+const instance: MathJsInstance = create(all, { number: 'number', precision: 14, matrix: 'Array' });
 
 // US customary units used on vault and wall calcs that mathjs lacks (it has
 // kip, lbf, psi, ft already). Factors from NIST SP 811, Appendix B.
@@ -19,6 +19,12 @@ instance.createUnit({
   klf: '14593.902937206 N/m',
   kipft: '1355.8179483314 N m',
 });
+
+/** mathjs's import, captured before it is disabled: the engine registers cell functions with it. */
+export const registerFunctions: (table: Record<string, unknown>) => void = (table) => {
+  instanceImport(table, { override: true });
+};
+const instanceImport = instance.import.bind(instance);
 
 /** mathjs's parser, captured before the document-facing copy is disabled. */
 export const parseExpression: (expr: string) => MathNode = instance.parse.bind(instance);

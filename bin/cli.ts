@@ -1,0 +1,43 @@
+/**
+ * The `vaultbook` command: eval, check (and more as they land).
+ */
+import { evalCommand } from './commands/eval.js';
+import { checkCommand } from './commands/check.js';
+import { UsageError } from './args.js';
+
+type Command = (args: string[], out: (s: string) => void) => Promise<number>;
+
+export const COMMANDS: Record<string, { run: Command; usage: string }> = {
+  eval: { run: evalCommand, usage: 'eval FILE [--set NAME=EXPR ...] [--json]      evaluate a calc and list its values' },
+  check: { run: checkCommand, usage: 'check FILE... [--set NAME=EXPR ...] [--json]  evaluate and judge every check (exit 0 all hold, 1 a check fails, 2 errors)' },
+};
+
+export function usage(): string {
+  return ['usage: vaultbook COMMAND ...', '', ...Object.values(COMMANDS).map((c) => `  vaultbook ${c.usage}`)].join('\n');
+}
+
+/**
+ * Runs one command line; returns the exit code. Never throws for bad input.
+ */
+export async function main(argv: string[], out: (s: string) => void = (s) => process.stdout.write(s + '\n'), err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {
+  const [name, ...rest] = argv;
+  if (!name || name === '--help' || name === '-h' || name === 'help') {
+    out(usage());
+    return name ? 0 : 2;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    err(`vaultbook: unknown command "${name}"\n${usage()}`);
+    return 2;
+  }
+  try {
+    return await command.run(rest, out);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      err(`vaultbook ${name}: ${e.message}\n  vaultbook ${command.usage}`);
+      return 2;
+    }
+    err(`vaultbook ${name}: internal error: ${(e as Error).stack ?? e}`);
+    return 2;
+  }
+}

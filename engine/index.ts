@@ -1,0 +1,111 @@
+/**
+ * compile → bind → summarise: the engine's public surface.
+ *
+ * Runs in Node and in the browser: nothing here imports a Node module.
+ */
+import type { Block, CalcBlock, Cell, CellState, CompiledDocument } from './types.js';
+import type { Diagnostic, StageContext } from './diagnostic.js';
+import { normaliseNewlines } from './parse/position.js';
+import { readFrontMatter } from './parse/frontmatter.js';
+import { splitBlocks } from './parse/blocks.js';
+import { parseCells, type FailedStatement } from './parse/cell.js';
+import { buildGraph } from './graph/build.js';
+import { bindGraph, type Session } from './runtime/bind.js';
+import { registerLibrary } from './library.js';
+import { parseExpression } from '../cells/math.js';
+import { collectSymbols } from './graph/symbols.js';
+import { summarise, type Summary } from './summary.js';
+
+export interface CompileOptions {
+  /** File name used in diagnostics. */
+  file?: string;
+  /** Input overrides: name → expression text, as from `--set NAME=EXPR`. */
+  overrides?: Record<string, string>;
+}
+
+function applyOverrides(cells: Cell[], overrides: Record<string, string>, ctx: StageContext): void {
+  for (const [name, text] of Object.entries(overrides)) {
+    const cell = cells.find((c) => c.name === name);
+    const fail = (message: string, ruleId: Diagnostic['ruleId']) => ctx.diagnostics.push({
+      message, file: ctx.file, line: cell?.span.start.line ?? 1, column: 1, endLine: cell?.span.end.line ?? 1, endColumn: 1,
+      cellId: name, ruleId, severity: 'error',
+    });
+    if (!cell || cell.kind !== 'given') {
+      const inputs = cells.filter((c) => c.kind === 'given').map((c) => c.name).join(', ');
+      fail(`--set ${name}: "${name}" is not a given input of this document${inputs ? ` (inputs: ${inputs})` : ''}`, 'set/unknown-input');
+      continue;
+    }
+    try {
+      const node = parseExpression(text);
+      if (collectSymbols(node).some((u) => u.role !== 'unit' && cells.some((c) => c.name === u.name))) {
+        fail(`--set ${name}: the value must not refer to other cells; give a value such as 7.2 m`, 'set/syntax');
+        continue;
+      }
+      cell.originalSource = cell.source;
+      cell.node = node;
+      cell.source = text;
+      cell.displayUnit = null;
+      cell.overridden = true;
+    } catch (e) {
+      fail(`--set ${name}: cannot read "${text}": ${(e as Error).message}`, 'set/syntax');
+    }
+  }
+}
+
+/**
+ * Parses a calc document and builds its dependency graph.
+ * @param source the markdown text
+ * @returns blocks, cells, graph and every diagnostic found before evaluation; never throws on bad input
+ * @example const doc = compile(text, {file: 'calc.md', overrides: {L: '7 m'}})
+ */
+export function compile(source: string, options: CompileOptions = {}): CompiledDocument {
+  if (typeof source !== 'string') throw new TypeError('compile: expected source to be a string');
+  const ctx: StageContext = { file: options.file ?? 'document.md', diagnostics: [] };
+  const text = normaliseNewlines(source);
+  const lib = registerLibrary();
+  const { meta, length } = readFrontMatter(text, ctx);
+  const blocks: Block[] = splitBlocks(text, length, ctx);
+  const cells: Cell[] = [];
+  const failed: FailedStatement[] = [];
+  blocks.forEach((b, i) => {
+    if (b.kind !== 'calc') return;
+    const parsed = parseCells(b as CalcBlock, i, ctx);
+    cells.push(...parsed.cells);
+    failed.push(...parsed.failed);
+  });
+  applyOverrides(cells, options.overrides ?? {}, ctx);
+  const graph = buildGraph(cells, failed, lib, ctx);
+  return { file: ctx.file, source: text, meta, blocks, graph, diagnostics: ctx.diagnostics };
+}
+
+/** Starts a live session on a compiled document. */
+export function startSession(doc: CompiledDocument): Session {
+  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics });
+}
+
+export interface Evaluation {
+  doc: CompiledDocument;
+  states: Map<string, CellState>;
+  summary: Summary;
+}
+
+/**
+ * Compiles and evaluates a document once.
+ * @example const {summary} = await evaluateDocument(text, {file: 'calc.md'})
+ */
+export async function evaluateDocument(source: string, options: CompileOptions = {}): Promise<Evaluation> {
+  const doc = compile(source, options);
+  const session = startSession(doc);
+  const states = await session.settle();
+  const summary = summarise(doc, states, session.warnings);
+  session.dispose();
+  return { doc, states, summary };
+}
+
+export { formatDiagnostic } from './diagnostic.js';
+export { formatValue, formatNumber } from './values/format.js';
+export { toJsonValue } from './values/json.js';
+export type { Session } from './runtime/bind.js';
+export type { Summary } from './summary.js';
+export type { Diagnostic } from './diagnostic.js';
+export type * from './types.js';

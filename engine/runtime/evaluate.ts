@@ -1,0 +1,114 @@
+/**
+ * evaluateCell: one cell's expression, with its inputs, to a value.
+ */
+import type { MathNode, Unit } from 'mathjs';
+import { math } from '../../cells/math.js';
+import type { Cell, CheckResult } from '../types.js';
+import type { Diagnostic, StageContext } from '../diagnostic.js';
+import { CellFailure } from './failure.js';
+import { explainError } from './explain.js';
+import { formatValue } from '../values/format.js';
+
+type AnyNode = MathNode & { fn?: string; args?: MathNode[] };
+
+const OPS: Record<string, CheckResult['op']> = { smallerEq: '<=', largerEq: '>=', smaller: '<', larger: '>' };
+
+function isNonFinite(v: unknown): boolean {
+  if (typeof v === 'number') return !Number.isFinite(v);
+  if (math.isUnit(v)) {
+    const x = (v as Unit).value;
+    return typeof x === 'number' && !Number.isFinite(x);
+  }
+  return false;
+}
+
+/** Ratio of two same-dimension values as a plain number, or null. */
+function ratio(a: unknown, b: unknown): number | null {
+  try {
+    const r = math.divide(a as never, b as never) as unknown;
+    const n = math.isUnit(r) ? (r as Unit).toNumber() : r;
+    return typeof n === 'number' && Number.isFinite(n) ? n : null;
+  } catch {
+    return null;
+  }
+}
+
+function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
+  const node = cell.node as AnyNode;
+  const op = node.type === 'OperatorNode' && node.fn ? OPS[node.fn] : undefined;
+  if (op && node.args?.length === 2) {
+    const demand = node.args[0]!.compile().evaluate(scope);
+    const capacity = node.args[1]!.compile().evaluate(scope);
+    const pass = node.compile().evaluate(scope) as boolean;
+    // Utilization is demand over capacity for ≤ and capacity over demand for ≥, so ≤ 1 passes.
+    let utilization: number | null = null;
+    if (op === '<=') utilization = ratio(demand, capacity);
+    if (op === '>=') utilization = ratio(capacity, demand);
+    if (utilization !== null && utilization < 0) utilization = null;
+    return { isCheck: true, source: cell.source, op, demand, capacity, utilization, pass };
+  }
+  const value = node.compile().evaluate(scope);
+  if (typeof value !== 'boolean') {
+    throw new TypeError(`a check must be a comparison or true/false, but this line gives ${formatValue(value)}`);
+  }
+  return { isCheck: true, source: cell.source, op: null, demand: null, capacity: null, utilization: null, pass: value };
+}
+
+/**
+ * Evaluates a cell. Throws CellFailure (with a located diagnostic) when it fails.
+ * @param inputs values of cell.uses, in the same order
+ */
+export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): unknown {
+  const scope = new Map<string, unknown>();
+  cell.uses.forEach((name, i) => scope.set(name, inputs[i]));
+  let value: unknown;
+  try {
+    value = cell.kind === 'check' ? evaluateCheck(cell, scope) : cell.node.compile().evaluate(scope);
+  } catch (err) {
+    throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
+  }
+  if (isNonFinite(value)) {
+    const d: Diagnostic = {
+      message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, file: ctx.file,
+      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
+      cellId: cell.id, ruleId: 'value/non-finite', severity: 'error',
+    };
+    throw new CellFailure(cell.id, d);
+  }
+  if (cell.kind === 'figure' && typeof value !== 'string') {
+    const d: Diagnostic = {
+      message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, file: ctx.file,
+      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
+      cellId: cell.id, ruleId: 'value/type', severity: 'error',
+    };
+    throw new CellFailure(cell.id, d);
+  }
+  return value;
+}
+
+/** Warnings for a given value outside its documented range. */
+export function checkRange(cell: Cell, value: unknown, ctx: StageContext): Diagnostic | null {
+  if (!cell.range) return null;
+  let lo: unknown, hi: unknown;
+  try {
+    lo = cell.range.loNode.compile().evaluate(new Map());
+    hi = cell.range.hiNode.compile().evaluate(new Map());
+  } catch (e) {
+    return rangeDiag(cell, ctx, `the allowed range [${cell.range.lo}, ${cell.range.hi}] cannot be evaluated: ${(e as Error).message}`);
+  }
+  try {
+    if (math.smaller(value as never, lo as never) || math.larger(value as never, hi as never)) {
+      return rangeDiag(cell, ctx, `${cell.name} = ${formatValue(value)} is outside the allowed range [${cell.range.lo}, ${cell.range.hi}]`);
+    }
+  } catch {
+    return rangeDiag(cell, ctx, `the allowed range [${cell.range.lo}, ${cell.range.hi}] does not have the units of ${cell.name} = ${formatValue(value)}`);
+  }
+  return null;
+}
+
+function rangeDiag(cell: Cell, ctx: StageContext, message: string): Diagnostic {
+  return {
+    message, file: ctx.file, line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line,
+    endColumn: cell.span.end.column, cellId: cell.id, ruleId: 'value/range', severity: 'warning',
+  };
+}

@@ -1,0 +1,30 @@
+/**
+ * Adapts the runtime's pending/fulfilled/rejected callbacks into CellStates.
+ */
+import type { Observer } from '@observablehq/runtime';
+import type { CellState } from '../types.js';
+import { CellFailure } from './failure.js';
+
+/**
+ * An observer for one cell that reports every change of state.
+ * @param cellId the cell observed
+ * @param report called with each new state
+ */
+export function observeCell(cellId: string, report: (id: string, state: CellState) => void): Observer {
+  return {
+    pending: () => report(cellId, { status: 'pending' }),
+    fulfilled: (value) => report(cellId, { status: 'ok', value }),
+    rejected: (error) => {
+      if (error instanceof CellFailure) {
+        report(cellId, error.cellId === cellId ? { status: 'error', diagnostic: error.diagnostic } : { status: 'blocked', by: error.cellId });
+      } else {
+        // Only the runtime itself throws anything else; keep it visible rather than lose it.
+        const message = error instanceof Error ? error.message : String(error);
+        report(cellId, {
+          status: 'error',
+          diagnostic: { message, file: '', line: 1, column: 1, endLine: 1, endColumn: 1, cellId, ruleId: 'eval/error', severity: 'error' },
+        });
+      }
+    },
+  };
+}

@@ -1,0 +1,73 @@
+/**
+ * summarise: settled cell states → the values, checks and diagnostics of a document,
+ * in the JSON contract documented in README.
+ */
+import type { CellState, CheckResult, CompiledDocument } from './types.js';
+import type { Diagnostic } from './diagnostic.js';
+import { toJsonValue, type JsonValue } from './values/json.js';
+
+export interface ValueEntry extends JsonValue {
+  kind: 'given' | 'calc' | 'check' | 'figure';
+  line: number;
+  /** Present when the value was not computed because another cell failed. */
+  blocked_by?: string;
+  /** Present on inputs replaced by --set: the document's own expression. */
+  overridden_from?: string;
+}
+
+export interface CheckEntry {
+  name: string | null;
+  source: string;
+  description: string;
+  line: number;
+  pass: boolean | null;
+  utilization: number | null;
+  /** Why no verdict, when the check could not be evaluated. */
+  blocked_by?: string;
+}
+
+export interface Summary {
+  file: string;
+  meta: Record<string, unknown>;
+  values: Record<string, ValueEntry>;
+  checks: CheckEntry[];
+  diagnostics: Diagnostic[];
+}
+
+/** Collects a settled document into the JSON contract. */
+export function summarise(doc: CompiledDocument, states: Map<string, CellState>, warnings: Map<string, Diagnostic>): Summary {
+  const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : 4;
+  const values: Record<string, ValueEntry> = {};
+  const checks: CheckEntry[] = [];
+  const diagnostics: Diagnostic[] = [...doc.diagnostics];
+  const seen = new Set(diagnostics);
+  for (const cell of doc.graph.cells) {
+    const state = states.get(cell.id) ?? { status: 'pending' };
+    if (state.status === 'error' && !seen.has(state.diagnostic)) {
+      diagnostics.push(state.diagnostic);
+      seen.add(state.diagnostic);
+    }
+    const warn = warnings.get(cell.id);
+    if (warn) diagnostics.push(warn);
+    const blockedBy = state.status === 'blocked' ? state.by : state.status === 'error' ? cell.id : undefined;
+    if (cell.kind === 'check') {
+      const result = state.status === 'ok' ? (state.value as CheckResult) : null;
+      checks.push({
+        name: cell.name, source: cell.source, description: cell.description, line: cell.span.start.line,
+        pass: result ? result.pass : null, utilization: result ? result.utilization : null,
+        ...(blockedBy ? { blocked_by: blockedBy } : {}),
+      });
+    }
+    if (!cell.name) continue;
+    const json = state.status === 'ok'
+      ? toJsonValue(state.value, { sigfigs }, cell.displayUnit)
+      : { value: null, unit: null, text: state.status === 'blocked' ? `not computed because ${state.by} failed` : state.status === 'error' ? `error: ${state.diagnostic.message}` : 'pending' };
+    values[cell.name] = {
+      ...json, kind: cell.kind, line: cell.span.start.line,
+      ...(state.status === 'blocked' ? { blocked_by: state.by } : {}),
+      ...(cell.overridden && cell.originalSource !== null ? { overridden_from: cell.originalSource } : {}),
+    };
+  }
+  diagnostics.sort((a, b) => a.line - b.line || a.column - b.column);
+  return { file: doc.file, meta: doc.meta, values, checks, diagnostics };
+}

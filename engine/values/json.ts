@@ -1,0 +1,40 @@
+/**
+ * The JSON shape of a value, as documented in README ("JSON output").
+ */
+import type { Unit } from 'mathjs';
+import { math } from '../../cells/math.js';
+import type { CheckResult } from '../types.js';
+import { formatValue, formatNumber, splitQuantity, type FormatOptions } from './format.js';
+
+export interface JsonValue {
+  value: unknown;
+  unit: string | null;
+  text: string;
+}
+
+/** A value as {value, unit, text}; objects become nested records of the same shape. */
+export function toJsonValue(value: unknown, opts: FormatOptions = {}, unit?: string | null): JsonValue {
+  if (math.isUnit(value)) {
+    const q = splitQuantity(value as Unit, unit);
+    return { value: Number.isFinite(q.number) ? q.number : String(q.number), unit: q.unit || null, text: formatValue(value, opts, unit) };
+  }
+  if (typeof value === 'number') {
+    return { value: Number.isFinite(value) ? value : String(value), unit: null, text: formatNumber(value, opts.sigfigs) };
+  }
+  if (typeof value === 'boolean' || typeof value === 'string') return { value, unit: null, text: formatValue(value, opts) };
+  if (value === null || value === undefined) return { value: null, unit: null, text: '—' };
+  if ((value as CheckResult).isCheck) {
+    const c = value as CheckResult;
+    return { value: c.pass, unit: null, text: formatValue(c, opts) };
+  }
+  if (math.isMatrix(value)) return toJsonValue((value as { toArray(): unknown[] }).toArray(), opts);
+  if (Array.isArray(value)) return { value: value.map((v) => toJsonValue(v, opts)), unit: null, text: formatValue(value, opts) };
+  if (typeof value === 'object') {
+    const out: Record<string, JsonValue> = {};
+    for (const [k, v] of Object.entries(value as Record<string, unknown>)) {
+      if (typeof v !== 'function') out[k] = toJsonValue(v, opts);
+    }
+    return { value: out, unit: null, text: formatValue(value, opts) };
+  }
+  return { value: String(value), unit: null, text: String(value) };
+}
