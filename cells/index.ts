@@ -3,3 +3,4 @@
  * what a document can use, and nothing else.
  */
 export { interp, clamp } from './table/register.js';
+export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin.js';

@@ -6,7 +6,7 @@ import { meshHalfWeb, round, twoCentred, type TestProfile } from './mesh.js';
 const PI = Math.PI;
 
 /** Half vault x > 0 from the test's own mesh: (own = barrel spanning x, other = barrel spanning y). */
-function meshHalfVault(X: TestProfile, Y: TestProfile, n = 240) {
+function meshHalfVault(X: TestProfile, Y: TestProfile, n = 160) {
   const mx = meshHalfWeb(X, Y, n), my = meshHalfWeb(Y, X, n);
   const W_half = 2 * mx.load + 2 * my.load;
   return { area_web_x: 2 * mx.area, area_web_y: 2 * my.area, W_half, x_half: (2 * mx.mx + 2 * my.my) / W_half };
