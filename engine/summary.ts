@@ -68,6 +68,10 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
       ...(cell.overridden && cell.originalSource !== null ? { overridden_from: cell.originalSource } : {}),
     };
   }
+  for (const u of doc.graph.unparsed) {
+    if (!u.name || values[u.name]) continue;
+    values[u.name] = { value: null, unit: null, text: `error: ${u.diagnostic.message}`, kind: u.kind, line: u.diagnostic.line };
+  }
   diagnostics.sort((a, b) => a.line - b.line || a.column - b.column);
   return { file: doc.file, meta: doc.meta, values, checks, diagnostics };
 }

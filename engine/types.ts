@@ -91,6 +91,8 @@ export interface CellGraph {
   order: string[];
   /** Ids of cells that failed before evaluation (parse, unknown name, cycle…). */
   failed: Map<string, Diagnostic>;
+  /** Statements that never became cells because they could not be read. */
+  unparsed: Array<{ id: string; name: string | null; kind: CellKind; diagnostic: Diagnostic }>;
 }
 
 /** The result of one line of a check cell. Checks are values, not errors. */

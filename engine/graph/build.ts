@@ -99,7 +99,10 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
         continue;
       }
       if (use.role === 'unit') {
-        if (!isUnitName(use.name) && !defined.has(use.name)) {
+        // `3 kN / a` with `a` defined in the document and not a unit: mathjs reads the value.
+        if (defined.has(use.name) && !isUnitName(use.name)) {
+          if (!cell.uses.includes(use.name)) cell.uses.push(use.name);
+        } else if (!isUnitName(use.name) && !defined.has(use.name)) {
           fail(diag(ctx, cell.span, cell.id, 'graph/unknown-name', `unknown unit "${use.name}"`));
         }
         continue;
@@ -126,7 +129,7 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
   }
 
   const order = orderCells(kept, byId, ctx, fail);
-  return { cells: kept, byId, order, failed };
+  return { cells: kept, byId, order, failed, unparsed: failedStatements };
 }
 
 /** Topological order (Kahn); cells on a cycle are reported with the whole cycle. */

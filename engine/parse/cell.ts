@@ -15,6 +15,7 @@ const RANGE_SUFFIX = /\[([^[\]]+),([^[\]]+)\]\s*$/;
 export interface FailedStatement {
   name: string | null;
   id: string;
+  kind: CalcBlock['cellKind'];
   diagnostic: Diagnostic;
 }
 
@@ -85,7 +86,7 @@ export function parseCells(block: CalcBlock, index: number, ctx: StageContext): 
     const fail = (message: string, ruleId: RuleId, where: Span = span) => {
       const diagnostic = makeDiagnostic(ctx, where, message, ruleId, id);
       ctx.diagnostics.push(diagnostic);
-      failed.push({ name, id, diagnostic });
+      failed.push({ name, id, kind: block.cellKind, diagnostic });
     };
     if (stmt.unclosed) {
       fail('a bracket opened here is never closed before the end of the cell', 'parse/syntax');

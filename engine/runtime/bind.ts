@@ -65,7 +65,7 @@ export function bindGraph(graph: CellGraph, ctx: StageContext): Session {
 
   const defineCell = (cell: Cell) => {
     const failure = graph.failed.get(cell.id);
-    const v = variables.get(cell.id) ?? module.variable(observeCell(cell.id, report));
+    const v = variables.get(cell.id) ?? module.variable(observeCell(cell.id, report, (id) => states.get(id)));
     variables.set(cell.id, v);
     if (failure) v.define(cell.id, [], () => { throw new CellFailure(cell.id, failure); });
     else v.define(cell.id, [...cell.uses], definition(cell));
@@ -75,7 +75,7 @@ export function bindGraph(graph: CellGraph, ctx: StageContext): Session {
   // Statements that never became cells still have names others may use.
   for (const [id, failure] of graph.failed) {
     if (graph.byId.has(id)) continue;
-    const v = module.variable(observeCell(id, report));
+    const v = module.variable(observeCell(id, report, (x) => states.get(x)));
     variables.set(id, v);
     v.define(id, [], () => { throw new CellFailure(id, failure); });
   }

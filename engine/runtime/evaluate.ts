@@ -22,6 +22,12 @@ function isNonFinite(v: unknown): boolean {
   return false;
 }
 
+/** A figure is SVG text from a figure function (or an object carrying it). */
+function isFigureValue(v: unknown): boolean {
+  if (typeof v === 'string') return v.trimStart().startsWith('<svg');
+  return typeof v === 'object' && v !== null && typeof (v as { svg?: unknown }).svg === 'string';
+}
+
 /** Ratio of two same-dimension values as a plain number, or null. */
 function ratio(a: unknown, b: unknown): number | null {
   try {
@@ -75,7 +81,7 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     };
     throw new CellFailure(cell.id, d);
   }
-  if (cell.kind === 'figure' && typeof value !== 'string') {
+  if (cell.kind === 'figure' && !isFigureValue(value)) {
     const d: Diagnostic = {
       message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, file: ctx.file,
       line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,

@@ -10,13 +10,19 @@ import { CellFailure } from './failure.js';
  * @param cellId the cell observed
  * @param report called with each new state
  */
-export function observeCell(cellId: string, report: (id: string, state: CellState) => void): Observer {
+export function observeCell(cellId: string, report: (id: string, state: CellState) => void, stateOf: (id: string) => CellState | undefined): Observer {
   return {
     pending: () => report(cellId, { status: 'pending' }),
     fulfilled: (value) => report(cellId, { status: 'ok', value }),
     rejected: (error) => {
       if (error instanceof CellFailure) {
         report(cellId, error.cellId === cellId ? { status: 'error', diagnostic: error.diagnostic } : { status: 'blocked', by: error.cellId });
+      } else if (error instanceof Error && typeof (error as { input?: unknown }).input === 'string') {
+        // The runtime re-wraps an input's failure as RuntimeError(message, inputName);
+        // follow that input back to the cell where the failure started.
+        const input = (error as unknown as { input: string }).input;
+        const upstream = stateOf(input);
+        report(cellId, { status: 'blocked', by: upstream?.status === 'blocked' ? upstream.by : input });
       } else {
         // Only the runtime itself throws anything else; keep it visible rather than lose it.
         const message = error instanceof Error ? error.message : String(error);

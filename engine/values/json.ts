@@ -6,6 +6,11 @@ import { math } from '../../cells/math.js';
 import type { CheckResult } from '../types.js';
 import { formatValue, formatNumber, splitQuantity, type FormatOptions } from './format.js';
 
+/** Drops floating-point noise (51.20000000000001 → 51.2) so JSON output diffs cleanly. */
+function clean(x: number): number {
+  return Number.isFinite(x) ? Number(x.toPrecision(12)) : x;
+}
+
 export interface JsonValue {
   value: unknown;
   unit: string | null;
@@ -16,10 +21,10 @@ export interface JsonValue {
 export function toJsonValue(value: unknown, opts: FormatOptions = {}, unit?: string | null): JsonValue {
   if (math.isUnit(value)) {
     const q = splitQuantity(value as Unit, unit);
-    return { value: Number.isFinite(q.number) ? q.number : String(q.number), unit: q.unit || null, text: formatValue(value, opts, unit) };
+    return { value: Number.isFinite(q.number) ? clean(q.number) : String(q.number), unit: q.unit || null, text: formatValue(value, opts, unit) };
   }
   if (typeof value === 'number') {
-    return { value: Number.isFinite(value) ? value : String(value), unit: null, text: formatNumber(value, opts.sigfigs) };
+    return { value: Number.isFinite(value) ? clean(value) : String(value), unit: null, text: formatNumber(value, opts.sigfigs) };
   }
   if (typeof value === 'boolean' || typeof value === 'string') return { value, unit: null, text: formatValue(value, opts) };
   if (value === null || value === undefined) return { value: null, unit: null, text: '—' };
