@@ -4,3 +4,4 @@
  */
 export { interp, clamp } from './table/register.js';
 export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin.js';
+export { buttress, tie } from './supports/register.js';

@@ -1,0 +1,40 @@
+import { describe, it, expect } from 'vitest';
+import { math } from '../../../cells/math.js';
+import { buttress, tie } from '../../../cells/supports/register.js';
+import { buttress as buttressKernel } from '../../../cells/supports/buttress.js';
+import { UnitMismatchError } from '../../../cells/units.js';
+import { expectClose } from '../../helpers/close.js';
+
+const u = (v: number, unit: string) => math.unit(v, unit);
+const num = (x: unknown, unit: string) => (x as { toNumber(u: string): number }).toNumber(unit);
+
+describe('buttress and tie registered for cells', () => {
+  it('buttress.call({...}) with mathjs units matches the kernel', () => {
+    const r = buttress.call({
+      height: u(6, 'm'), width: u(1, 'm'), depth: u(1, 'm'), unit_weight: u(20, 'kN/m^3'),
+      T: u(10, 'kN'), z_T: u(5, 'm'), V: u(20, 'kN'), x_V: u(200, 'mm'),
+      steps: [{ height: u(2, 'm'), width: u(2, 'm') }], friction: 0.6, bearing: u(0.5, 'N/mm^2'),
+    }) as Record<string, any>;
+    const k = buttressKernel({ height: 6, width: 1, depth: 1, unit_weight: 20e3, T: 10e3, z_T: 5, V: 20e3, x_V: 0.2,
+      steps: [{ height: 2, width: 2 }], friction: 0.6, bearing: 0.5e6 });
+    expectClose(num(r.x_R, 'm'), k.x_R, 1e-12);
+    expectClose(num(r.sigma_max, 'kPa'), k.sigma_max! / 1e3, 1e-12);
+    expectClose(r.sf_overturning, k.sf_overturning, 1e-12);
+    expect(r.middle_third).toBe(k.middle_third);
+    expect(r.bearing_ok).toBe(true);
+    expectClose(num(r.path[r.path.length - 1].x, 'm'), k.x_R, 1e-12);
+  });
+
+  it('buttress.call refuses a thrust given as a length and a missing height', () => {
+    expect(() => buttress.call({ height: u(6, 'm'), width: u(1, 'm'), depth: u(1, 'm'), unit_weight: u(20, 'kN/m^3'), T: u(10, 'm'), z_T: u(5, 'm') }))
+      .toThrow(UnitMismatchError);
+    expect(() => buttress.call({ width: u(1, 'm'), depth: u(1, 'm'), unit_weight: u(20, 'kN/m^3'), T: u(10, 'kN'), z_T: u(5, 'm') }))
+      .toThrow(/"height" is required/);
+  });
+
+  it('tie.call({T: 100 kN, f_y: 235 MPa}) gives a 25 mm bar', () => {
+    const r = tie.call({ T: u(100, 'kN'), f_y: u(235, 'MPa') }) as Record<string, unknown>;
+    expectClose(num(r.bar_diameter, 'mm'), 25, 1e-12);
+    expectClose(num(r.area, 'mm^2'), 100e3 / 235, 1e-12);
+  });
+});
