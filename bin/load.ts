@@ -19,7 +19,7 @@ export async function loadAndEvaluate(file: string, overrides: Record<string, st
     const reason = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
     const diagnostic = {
       message: `cannot read ${file}: ${reason}`, file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null,
-      ruleId: 'io/read' as const, severity: 'error' as const,
+      ruleId: 'io/read' as const, severity: 'error' as const, cell: null,
     };
     return { file, unreadable: reason, summary: { file, meta: {}, values: {}, checks: [], diagnostics: [diagnostic] } };
   }

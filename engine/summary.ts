@@ -31,7 +31,8 @@ export interface Summary {
   meta: Record<string, unknown>;
   values: Record<string, ValueEntry>;
   checks: CheckEntry[];
-  diagnostics: Diagnostic[];
+  /** Each diagnostic also carries `cell` (= cellId), the name the JSON contract uses. */
+  diagnostics: Array<Diagnostic & { cell?: string | null }>;
 }
 
 /** Collects a settled document into the JSON contract. */
@@ -73,5 +74,5 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
     values[u.name] = { value: null, unit: null, text: `error: ${u.diagnostic.message}`, kind: u.kind, line: u.diagnostic.line };
   }
   diagnostics.sort((a, b) => a.line - b.line || a.column - b.column);
-  return { file: doc.file, meta: doc.meta, values, checks, diagnostics };
+  return { file: doc.file, meta: doc.meta, values, checks, diagnostics: diagnostics.map((d) => ({ ...d, cell: d.cellId })) };
 }

@@ -37,8 +37,8 @@ describe('buildGraph — dependencies and static problems', () => {
   });
 
   it('reports an unknown function and an unknown unit', () => {
-    const doc = compile(fence('calc', 'a = arch_rnig(2)', 'b = 3 furlongz'));
-    expect(doc.diagnostics.map((d) => d.message)).toEqual(['unknown function "arch_rnig"', 'unknown unit "furlongz"']);
+    const doc = compile(fence('calc', 'a = zzqx(2)', 'b = 3 furlongz', 'c = clampp(1, 0, 2)'));
+    expect(doc.diagnostics.map((d) => d.message)).toEqual(['unknown function "zzqx"', 'unknown unit "furlongz"', 'unknown function "clampp"; did you mean "clamp"?']);
   });
 
   it('refuses a definition that shadows a unit used as a unit elsewhere', () => {

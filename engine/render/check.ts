@@ -1,0 +1,136 @@
+/**
+ * Checks: the inequality typeset, with both sides' values and the
+ * utilization; a verdict that reads the same in colour and in greyscale
+ * (a mark and a word, never colour alone); and the summary at the top.
+ */
+import type { Unit } from 'mathjs';
+import { math } from '../../cells/math.js';
+import type { Cell, CellState, CheckResult, CompiledDocument } from '../types.js';
+import { splitQuantity } from '../values/format.js';
+import { anchorId, escapeHtml } from './escape.js';
+import { typeset } from './katex.js';
+import { exprTex, readsNames } from './tex.js';
+import { symbolTex } from './names.js';
+import { utilizationText, valueTex } from './quantity.js';
+import { makeRenderContext, stateOf, type RenderContext } from './context.js';
+import { blockedHtml, diagnosticHtml } from './diagnostics.js';
+
+/** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
+export type Verdict = 'pass' | 'near' | 'fail' | 'none';
+
+/** Utilization above which a passing check is flagged as close to its limit. */
+export const NEAR_LIMIT = 0.95;
+
+const WORDS: Record<Verdict, { mark: string; word: string }> = {
+  pass: { mark: '✓', word: 'SATISFIED' },
+  near: { mark: '◆', word: 'SATISFIED – NEAR LIMIT' },
+  fail: { mark: '✗', word: 'NOT SATISFIED' },
+  none: { mark: '?', word: 'NOT EVALUATED' },
+};
+
+/**
+ * The verdict of a check state.
+ * @example verdictOf({status: 'ok', value: {isCheck: true, pass: true, utilization: 0.97, …}}) // 'near'
+ */
+export function verdictOf(state: CellState): Verdict {
+  if (state.status !== 'ok') return 'none';
+  const r = state.value as CheckResult;
+  if (!r.pass) return 'fail';
+  return r.utilization !== null && r.utilization > NEAR_LIMIT ? 'near' : 'pass';
+}
+
+function utilizationBar(u: number | null): string {
+  if (u === null) return '';
+  const width = Math.max(0, Math.min(1, u)) * 100;
+  return `<span class="vb-bar" aria-hidden="true"><span class="vb-bar-fill" style="width:${width.toFixed(1)}%"></span></span>`;
+}
+
+/** The verdict badge: mark, word and utilization. */
+export function verdictHtml(verdict: Verdict, utilization: number | null): string {
+  const { mark, word } = WORDS[verdict];
+  const u = utilization === null ? '' : `<span class="vb-util">u = ${utilizationText(utilization)}</span>${utilizationBar(utilization)}`;
+  return `<div class="vb-verdict vb-verdict--${verdict}"><span class="vb-mark" aria-hidden="true">${mark}</span><span class="vb-word">${word}</span>${u}</div>`;
+}
+
+/** Both sides in one unit, so that they can be compared by eye. */
+function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
+  let unit: string | null = null;
+  if (math.isUnit(r.demand) && math.isUnit(r.capacity)) {
+    const d = splitQuantity(r.demand as Unit);
+    try { (r.capacity as Unit).toNumber(d.unit); unit = d.unit; } catch { unit = null; }
+  }
+  const a = valueTex(r.demand, { sigfigs: ctx.sigfigs, unit });
+  const b = valueTex(r.capacity, { sigfigs: ctx.sigfigs, unit });
+  return a !== null && b !== null ? [a, b] : null;
+}
+
+const OP_TEX: Record<string, string> = { '<=': '\\le', '>=': '\\ge', '<': '<', '>': '>' };
+
+function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext): string {
+  const rows: string[] = [];
+  const formula = exprTex(cell.node, ctx.scope, false);
+  rows.push(formula);
+  if (r && readsNames(cell.node, ctx.scope)) {
+    const filled = exprTex(cell.node, ctx.scope, true);
+    if (filled !== formula) rows.push(filled);
+  }
+  if (r && r.op) {
+    const sides = sidesTex(r, ctx);
+    if (sides) {
+      const compared = `${sides[0]} ${OP_TEX[r.op]} ${sides[1]}`;
+      if (compared !== rows[rows.length - 1]) rows.push(compared);
+      if (r.utilization !== null) {
+        const [num, den] = r.op === '>=' || r.op === '>' ? [sides[1], sides[0]] : sides;
+        rows.push(`\\text{utilization} = \\frac{${num}}{${den}} = ${utilizationText(r.utilization)}`);
+      }
+    }
+  }
+  return rows.length === 1 ? rows[0]! : `\\begin{gathered}${rows.join('\\\\')}\\end{gathered}`;
+}
+
+/**
+ * The inner HTML of a check's output region: the working and the verdict.
+ * @example renderCheckOutput(cell, state, ctx)
+ */
+export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
+  const r = state.status === 'ok' ? (state.value as CheckResult) : null;
+  const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc) : '';
+  const verdict = verdictOf(state);
+  return `<div class="vb-work"><div class="vb-math">${typeset(workingTex(cell, r, ctx), true)}</div>${trouble}</div>`
+    + `<div class="vb-out">${verdictHtml(verdict, r?.utilization ?? null)}</div>`;
+}
+
+/** One ```check line as a step of the calculation. */
+export function renderCheck(cell: Cell, ctx: RenderContext): string {
+  const name = cell.name ? `${typeset(symbolTex(cell.name))} ` : '';
+  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(cell.description)}</p>` : '';
+  return `<div class="vb-step vb-step--check" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
+    + `<div class="vb-body">${head}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
+}
+
+/**
+ * The inner HTML of the element `data-part="check-summary"`: every check with its
+ * utilization and verdict, linked to its line, under a one-line tally.
+ * @example renderCheckSummary(doc, states)
+ */
+export function renderCheckSummary(doc: CompiledDocument, states: Map<string, CellState>, ctx: RenderContext = makeRenderContext(doc, states)): string {
+  const checks = doc.graph.cells.filter((c) => c.kind === 'check');
+  if (checks.length === 0) return '<h2 class="vb-h">Checks</h2><p class="vb-note">This document has no checks.</p>';
+  const tally: Record<Verdict, number> = { pass: 0, near: 0, fail: 0, none: 0 };
+  const rows = checks.map((cell, i) => {
+    const state = stateOf(ctx, cell.id);
+    const verdict = verdictOf(state);
+    tally[verdict]++;
+    const u = state.status === 'ok' ? (state.value as CheckResult).utilization : null;
+    const what = cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false));
+    return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
+      + `<td class="vb-num">${u === null ? '—' : utilizationText(u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
+      + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`
+      + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
+  }).join('');
+  const bad = tally.fail + tally.none;
+  const overall = bad === 0
+    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks satisfied${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
+    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">✗</span> ${tally.fail ? `${tally.fail} of ${checks.length} checks NOT satisfied` : ''}${tally.fail && tally.none ? '; ' : ''}${tally.none ? `${tally.none} not evaluated` : ''}.</p>`;
+  return `<h2 class="vb-h">Checks</h2>${overall}<table class="vb-summary"><thead><tr><th class="vb-ref">#</th><th>check</th><th class="vb-num">utilization</th><th></th><th>verdict</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;
+}

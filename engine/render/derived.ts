@@ -1,0 +1,63 @@
+/**
+ * A derived value (```calc): the formula typeset from its parse tree, the
+ * same formula with the values substituted, and the result in its display
+ * unit in the output column.
+ */
+import type { Cell, CellState } from '../types.js';
+import { anchorId, escapeHtml } from './escape.js';
+import { typeset } from './katex.js';
+import { exprTex, readsNames } from './tex.js';
+import { symbolTex } from './names.js';
+import { valueHtml, valueTex } from './quantity.js';
+import { stateOf, type RenderContext } from './context.js';
+import { blockedHtml, diagnosticHtml } from './diagnostics.js';
+import { kernelCallOf, renderKernelCall } from './kernel.js';
+
+/** Rows of the working: `name = formula`, then `= substituted` when it adds something. */
+function workingTex(cell: Cell, ctx: RenderContext, substitute: boolean): string {
+  const lhs = cell.name ? symbolTex(cell.name) : '';
+  const formula = exprTex(cell.node, ctx.scope, false);
+  const rows = [`${lhs} &= ${formula}`];
+  if (substitute && readsNames(cell.node, ctx.scope)) {
+    const filled = exprTex(cell.node, ctx.scope, true);
+    if (filled !== formula) rows.push(`&= ${filled}`);
+  }
+  return rows.length === 1 ? `${lhs} = ${formula}` : `\\begin{aligned}${rows.join('\\\\')}\\end{aligned}`;
+}
+
+function resultHtml(cell: Cell, value: unknown, ctx: RenderContext): string {
+  const tex = valueTex(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit });
+  if (tex !== null && cell.name) return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} = ${tex}`)}</div>`;
+  return `<div class="vb-result">${valueHtml(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit })}</div>`;
+}
+
+/** Status-dependent notes under the working. */
+function troubleHtml(state: CellState, ctx: RenderContext): string {
+  if (state.status === 'error') return diagnosticHtml(state.diagnostic);
+  if (state.status === 'blocked') return blockedHtml(state.by, ctx.doc);
+  if (state.status === 'pending') return '<div class="vb-blocked">…</div>';
+  return '';
+}
+
+/**
+ * The inner HTML of a calc cell's output region: working and output column.
+ * @example renderCalcOutput(cell, {status: 'ok', value}, ctx)
+ */
+export function renderCalcOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
+  const ok = state.status === 'ok';
+  const fn = kernelCallOf(cell);
+  if (fn) {
+    const { work, out } = renderKernelCall(cell, fn, ok ? state.value : null, ctx);
+    return `<div class="vb-work vb-work--kernel">${work}${troubleHtml(state, ctx)}</div><div class="vb-out">${out}</div>`;
+  }
+  const work = `<div class="vb-math">${typeset(workingTex(cell, ctx, ok), true)}</div>`;
+  const out = ok ? resultHtml(cell, state.value, ctx) : '<div class="vb-result vb-none">—</div>';
+  return `<div class="vb-work">${work}${troubleHtml(state, ctx)}</div><div class="vb-out">${out}</div>`;
+}
+
+/** One ```calc cell as a step of the calculation. */
+export function renderCalc(cell: Cell, ctx: RenderContext): string {
+  return `<div class="vb-step" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
+    + `<div class="vb-body">${cell.description ? `<p class="vb-desc">${escapeHtml(cell.description)}</p>` : ''}`
+    + `<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCalcOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
+}
