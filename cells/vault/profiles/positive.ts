@@ -18,6 +18,7 @@ export function degrees(rad: number): string {
  * @example requirePositive('catenary', 'rise', -0.2, 'm') // throws "catenary: rise must be positive, got -0.2 m"
  */
 export function requirePositive(family: string, name: string, value: number, unit: string): number {
+  if (value === undefined) throw new RangeError(`${family}: ${name} is required`);
   if (typeof value !== 'number' || !Number.isFinite(value) || !(value > 0)) {
     const shown = unit === 'rad' && typeof value === 'number' ? degrees(value) : `${value}${unit ? ' ' + unit : ''}`;
     throw new RangeError(`${family}: ${name} must be positive, got ${shown}`);

@@ -1,0 +1,104 @@
+/**
+ * The figures an engineer reads off a barrel vault's membrane state: crown
+ * and springing forces, peaks, tension, wall reactions and total load.
+ */
+import type { Metres, Profile } from './profile.js';
+import type { RadiusLaw } from './membrane-radius-law.js';
+import { membraneField, type MembraneField, type MembraneForces } from './membrane-field.js';
+import { largest } from './membrane-extremes.js';
+import { integrate } from './profiles/integrate.js';
+
+/** Summary of a barrel vault's membrane state (SI; compression negative). */
+export interface BarrelMembrane {
+  /** Nφ at the crown (N/m). */
+  N_phi_crown: number;
+  /** Nφ at the springing (N/m). */
+  N_phi_springing: number;
+  /** Largest |Nxφ| (N/m). */
+  N_xphi_max: number;
+  /** Most compressive Nx, ≤ 0 (N/m). */
+  N_x_max: number;
+  /** Most tensile Nx, ≥ 0 (N/m). */
+  N_x_min: number;
+  /** Is the larger principal membrane force tensile anywhere? */
+  tension: boolean;
+  /** Downward force per unit length on each lateral wall from Nφ (N/m); negative = uplift. */
+  V_wall: number;
+  /** Outward thrust per unit length on each lateral wall from Nφ (N/m). */
+  H_wall: number;
+  /** Net (vertical) force delivered to each end wall by Nxφ (N); its horizontal parts cancel by symmetry. */
+  end_shear: number;
+  /** Total load on the vault (N). */
+  W: number;
+  /** Largest principal compressive stress |N2|/t (Pa), when the thickness is known. */
+  sigma_max?: number;
+  /** The field, for membrane_at (not shown in a sheet). */
+  readonly field: MembraneField;
+  /** The middle surface (not shown in a sheet). */
+  readonly profile: Profile;
+}
+
+/** Principal membrane forces [N1 ≥ N2], the smaller one from N1·N2 = Nx·Nφ − Nxφ² to avoid cancellation. */
+export function principalForces(f: MembraneForces): [number, number] {
+  const mean = (f.N_x + f.N_phi) / 2, r = Math.hypot((f.N_x - f.N_phi) / 2, f.N_xphi);
+  const det = f.N_x * f.N_phi - f.N_xphi * f.N_xphi;
+  if (mean < 0) { const n2 = mean - r; return [det / n2, n2]; }
+  const n1 = mean + r;
+  return [n1, n1 === 0 ? 0 : det / n1];
+}
+
+/**
+ * Summary of the membrane state (membraneField) of a barrel vault.
+ * Edge reactions, from the shell's edge tractions: on a lateral wall (φ = ±φs)
+ * Nφ acts along the tangent, inclined φs to the horizontal, so per unit length
+ * V_wall = −Nφ(φs)·sin φs and H_wall = −Nφ(φs)·cos φs (Nxφ there acts along
+ * the wall: a longitudinal shear that sums to zero over each wall). On each
+ * end wall Nxφ(±l, φ) acts along the tangent (cos φ, −sin φ); its vertical
+ * resultant is end_shear = −2l ∫₀^φs F sin φ R dφ. Vertical equilibrium:
+ * 2·(2l)·V_wall + 2·end_shear = W = 2l·(2 s(φs)·g + 2 x(φs)·p).
+ * @param profile middle surface (smooth at the crown)
+ * @param law its radius law
+ * @param loads g (Pa, per unit surface), p (Pa, per unit plan area)
+ * @param halfLength l, half the distance between the end walls (m)
+ * @param thickness shell thickness (m), for sigma_max; optional
+ * @returns the summary
+ * @example membraneSummary(p, radiusLaw(p), {g: 2160, p: 0}, 6, 0.12).W
+ */
+export function membraneSummary(
+  profile: Profile, law: RadiusLaw, loads: { g: number; p: number }, halfLength: Metres, thickness?: Metres,
+): BarrelMembrane {
+  if (profile.phiCrown !== 0) throw new RangeError(`barrel_membrane: the ${profile.shape} profile is not smooth at the crown`);
+  const field = membraneField(law, loads, halfLength), l = halfLength, phiS = profile.phiSpringing;
+  const NphiS = field.Nphi(phiS);
+  const Fmax = largest((phi) => Math.abs(field.F(phi)), 0, phiS).value;
+  const Gmax = largest((phi) => field.G(phi), 0, phiS).value, Gmin = -largest((phi) => -field.G(phi), 0, phiS).value;
+  // Principal forces depend on x through x² and on φ through Nxφ², so one quarter of the vault suffices.
+  const worst = (pick: (f: MembraneForces) => number) => largest((phi) => {
+    const N_phi = field.Nphi(phi), F = field.F(phi), G = field.G(phi);
+    return largest((x) => pick({ N_phi, N_x: G * (l * l - x * x), N_xphi: F * x }), 0, l, 24).value;
+  }, 0, phiS, 120).value;
+  const N1 = worst((f) => principalForces(f)[0]), N2 = -worst((f) => -principalForces(f)[1]);
+  const scale = Math.max(Math.abs(field.Nphi(0)), Math.abs(NphiS), Fmax * l, Math.abs(Gmax) * l * l, Math.abs(Gmin) * l * l);
+  const endShear = -2 * l * integrate((phi) => field.F(phi) * Math.sin(phi) * law.R(phi), 0, phiS);
+  const W = 2 * l * (2 * profile.arcLength(phiS) * loads.g + 2 * profile.point(phiS).x * loads.p);
+  const out = {
+    N_phi_crown: field.Nphi(0), N_phi_springing: NphiS, N_xphi_max: Fmax * l,
+    N_x_max: Math.min(0, Gmin * l * l), N_x_min: Math.max(0, Gmax * l * l),
+    tension: N1 > 1e-9 * scale,
+    V_wall: -NphiS * Math.sin(phiS), H_wall: -NphiS * Math.cos(phiS), end_shear: endShear, W,
+    ...(thickness === undefined ? {} : { sigma_max: Math.max(0, -N2) / thickness }),
+  };
+  for (const [name, value] of Object.entries(out) as Array<[keyof typeof out, unknown]>) {
+    if (typeof value !== 'number') continue;
+    if (!Number.isFinite(value)) {
+      throw new RangeError(`barrel_membrane: ${name} is unbounded for this profile and load (the membrane solution breaks down)`);
+    }
+    // cos 90° is 6e-17 in floating point: a force below 1e-12 of the largest is rounding noise, shown as 0.
+    const noise = name !== 'W' && name !== 'end_shear' && name !== 'sigma_max' && Math.abs(value) < 1e-12 * scale;
+    if (noise || value === 0) (out as unknown as Record<string, number>)[name] = 0; // also turns −0 into 0
+  }
+  return Object.defineProperties(out, {
+    field: { value: field, enumerable: false },
+    profile: { value: profile, enumerable: false },
+  }) as BarrelMembrane;
+}
