@@ -1,0 +1,216 @@
+/**
+ * startServer: the live sheet's server. Vite serves the app (site/) and the
+ * engine, which run in the browser; this server adds the document itself:
+ *
+ * - GET  /__doc           → {text, version, file} of the one document it was started with;
+ * - POST /__write         → writes changed input values into that document (and nowhere else);
+ * - GET  /__asset/<path>  → an image beside the document;
+ * - a `vaultbook:doc` event on Vite's websocket whenever the file changes on disk.
+ *
+ * It listens on 127.0.0.1 only, and a guard in front of Vite refuses every
+ * path outside the allow list (see guard.ts).
+ */
+import { readFileSync, realpathSync, statSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { createServer, type Plugin, type ViteDevServer } from 'vite';
+import { siteConfig, REPO_ROOT } from '../../vite.config.js';
+import { guardRequest, ASSET_TYPES, type GuardPolicy } from './guard.js';
+import { rewriteGivenValues, RewriteError } from './rewrite.js';
+import { writeFileAtomic, removeStaleTemps } from './atomic.js';
+import { watchDocument, type DocumentWatch } from './watch.js';
+import { versionOf } from './version.js';
+
+export interface ServeOptions {
+  /** The calc document to serve (and the only file ever written). */
+  file: string;
+  /** Port; 0 picks a free one. Default 4780. */
+  port?: number;
+  /** Fail instead of trying the next port when `port` is taken. */
+  strictPort?: boolean;
+  /** Vite's log level (default 'warn'). */
+  logLevel?: 'info' | 'warn' | 'error' | 'silent';
+  /** Watcher timings, for tests. */
+  watch?: { debounceMs?: number; pollMs?: number };
+}
+
+export interface ServeHandle {
+  /** http://127.0.0.1:PORT/ */
+  url: string;
+  port: number;
+  /** The document's real path. */
+  file: string;
+  vite: ViteDevServer;
+  close(): Promise<void>;
+}
+
+/** Body of a POST /__write. */
+export interface WriteRequest {
+  /** The version of the document the page loaded. */
+  version: string;
+  /** Input name → new value text. */
+  values: Record<string, string>;
+}
+
+const MAX_BODY = 1 << 20;
+
+function sendJson(res: ServerResponse, status: number, body: unknown): void {
+  const text = JSON.stringify(body);
+  res.writeHead(status, { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store', 'X-Content-Type-Options': 'nosniff' });
+  res.end(text);
+}
+
+function readBody(req: IncomingMessage): Promise<string> {
+  return new Promise((ok, fail) => {
+    const chunks: Buffer[] = [];
+    let size = 0;
+    req.on('data', (c: Buffer) => {
+      size += c.length;
+      if (size > MAX_BODY) {
+        fail(new Error('request too large'));
+        req.destroy();
+      } else chunks.push(c);
+    });
+    req.on('end', () => ok(Buffer.concat(chunks).toString('utf8')));
+    req.on('error', fail);
+  });
+}
+
+function isWriteRequest(v: unknown): v is WriteRequest {
+  if (typeof v !== 'object' || v === null) return false;
+  const r = v as WriteRequest;
+  return typeof r.version === 'string' && typeof r.values === 'object' && r.values !== null
+    && Object.values(r.values).every((x) => typeof x === 'string');
+}
+
+/** Does the text decode and re-encode to exactly these bytes? Otherwise a rewrite could alter other bytes. */
+function roundTrips(bytes: Buffer, text: string): boolean {
+  return Buffer.from(text, 'utf8').equals(bytes);
+}
+
+/**
+ * Starts the live sheet for one document.
+ * @example const s = await startServer({file: 'calc.md', port: 0}); console.log(s.url); … await s.close()
+ */
+export async function startServer(options: ServeOptions): Promise<ServeHandle> {
+  const file = realpathSync(options.file);
+  if (!statSync(file).isFile()) throw new Error(`${options.file} is not a file`);
+  const shownName = options.file;
+  const docDir = dirname(file);
+  removeStaleTemps(file);
+  let port = 0;
+  const hostOk = (host: string | undefined) => host === `127.0.0.1:${port}` || host === `localhost:${port}`;
+  const originOk = (origin: string | undefined) => origin === undefined || origin === `http://127.0.0.1:${port}` || origin === `http://localhost:${port}`;
+  const policy: GuardPolicy = {
+    appRoot: join(REPO_ROOT, 'site'),
+    allowRoots: [join(REPO_ROOT, 'site'), join(REPO_ROOT, 'engine'), join(REPO_ROOT, 'cells'), join(REPO_ROOT, 'node_modules')],
+    docDir,
+  };
+  let watcher: DocumentWatch | null = null;
+
+  const readDoc = () => {
+    const bytes = readFileSync(file);
+    return { bytes, text: bytes.toString('utf8'), version: versionOf(bytes) };
+  };
+
+  const write = async (req: IncomingMessage, res: ServerResponse) => {
+    if (req.method !== 'POST') return sendJson(res, 405, { ok: false, message: 'use POST' });
+    if (!originOk(req.headers.origin)) return sendJson(res, 403, { ok: false, message: 'refused: the request did not come from this page' });
+    if (!/^application\/json\b/.test(req.headers['content-type'] ?? '')) return sendJson(res, 415, { ok: false, message: 'expected application/json' });
+    let body: unknown;
+    try {
+      body = JSON.parse(await readBody(req));
+    } catch (e) {
+      return sendJson(res, 400, { ok: false, message: `cannot read the request: ${(e as Error).message}` });
+    }
+    if (!isWriteRequest(body)) return sendJson(res, 400, { ok: false, message: 'expected {version, values: {name: text}}' });
+    // From here to the rename everything is synchronous, so no other write can interleave.
+    const current = readDoc();
+    if (current.version !== body.version) {
+      return sendJson(res, 409, {
+        ok: false, conflict: true, version: current.version,
+        message: `${shownName} changed on disk since this page loaded it; nothing was written. Load the new version (your changed inputs are kept where they still exist) and write again.`,
+      });
+    }
+    if (!roundTrips(current.bytes, current.text)) {
+      return sendJson(res, 422, { ok: false, message: `${shownName} is not valid UTF-8 text; nothing was written` });
+    }
+    let result;
+    try {
+      result = rewriteGivenValues(current.text, body.values);
+    } catch (e) {
+      if (e instanceof RewriteError) return sendJson(res, 400, { ok: false, message: e.message });
+      throw e;
+    }
+    if (result.changed.length === 0) return sendJson(res, 200, { ok: true, version: current.version, changed: [], notes: [], text: current.text });
+    const bytes = Buffer.from(result.text, 'utf8');
+    writeFileAtomic(file, bytes);
+    const version = versionOf(bytes);
+    watcher?.known(version);
+    return sendJson(res, 200, { ok: true, version, changed: result.changed, notes: result.notes, text: result.text });
+  };
+
+  const plugin: Plugin = {
+    name: 'vaultbook-serve',
+    configureServer(server) {
+      // Registered directly (not returned), so it runs before every Vite middleware.
+      server.middlewares.use((req, res, next) => {
+        const url = req.url ?? '/';
+        if (!hostOk(req.headers.host)) {
+          res.writeHead(403, { 'Content-Type': 'text/plain' }).end('refused: unexpected Host header');
+          return;
+        }
+        const verdict = guardRequest(url, policy);
+        if (!verdict.ok) {
+          res.writeHead(verdict.status, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${verdict.reason}`);
+          return;
+        }
+        if (verdict.kind === 'app') return next();
+        if (verdict.kind === 'asset') {
+          const type = ASSET_TYPES[verdict.file.slice(verdict.file.lastIndexOf('.')).toLowerCase()]!;
+          res.writeHead(200, { 'Content-Type': type, 'X-Content-Type-Options': 'nosniff', 'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'", 'Cache-Control': 'no-store' });
+          res.end(readFileSync(verdict.file));
+          return;
+        }
+        if (verdict.name === 'doc') {
+          if (req.method !== 'GET' && req.method !== 'HEAD') return sendJson(res, 405, { ok: false, message: 'use GET' });
+          const d = readDoc();
+          return sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file) });
+        }
+        write(req, res).catch((e) => sendJson(res, 500, { ok: false, message: `writing ${shownName} failed: ${(e as Error).message}; the file on disk is unchanged` }));
+      });
+    },
+  };
+
+  const base = siteConfig();
+  const vite = await createServer({
+    ...base,
+    configFile: false,
+    logLevel: options.logLevel ?? 'warn',
+    plugins: [...(base.plugins ?? []), plugin],
+    server: {
+      ...base.server,
+      host: '127.0.0.1',
+      port: options.port ?? 4780,
+      strictPort: options.strictPort ?? false,
+      open: false,
+    },
+  });
+  await vite.listen();
+  port = (vite.httpServer!.address() as AddressInfo).port;
+  const initial = readDoc();
+  watcher = watchDocument(file, initial.version, (_bytes, version) => {
+    vite.ws.send({ type: 'custom', event: 'vaultbook:doc', data: { version } });
+  }, options.watch);
+  return {
+    url: `http://127.0.0.1:${port}/`,
+    port,
+    file,
+    vite,
+    close: async () => {
+      watcher?.close();
+      await vite.close();
+    },
+  };
+}

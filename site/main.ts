@@ -1,0 +1,216 @@
+/**
+ * The live sheet: wires the document, the sheet, the input fields and the review panel.
+ */
+import 'katex/dist/katex.min.css';
+import { LiveSheet, type PatchEvent } from './preview.js';
+import { enableEditing, markEditable } from './editor.js';
+import { changeBadge, compareToDocument, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
+import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
+import { SHEET_CSS } from './sheet.js';
+
+const sheetEl = document.getElementById('vb-sheet')!;
+const panelEl = document.getElementById('vb-review')!;
+const statusEl = document.getElementById('vb-status')!;
+const fileEl = document.getElementById('vb-file')!;
+
+const style = document.createElement('style');
+style.id = 'vb-sheet-css';
+style.textContent = SHEET_CSS;
+document.head.prepend(style);
+
+const sheet = new LiveSheet(sheetEl, (el) => el.querySelector('input.vb-edit') !== null);
+let loaded: DocPayload = { text: '', version: '', file: '' };
+const changes = new Map<string, ResultChange>();
+let dropped: string[] = [];
+let message: PanelModel['message'] = null;
+let writing = false;
+let lastPanel = '';
+
+function sigfigs(): number {
+  const s = sheet.doc.meta.sigfigs;
+  return typeof s === 'number' ? s : 4;
+}
+
+/** The change badge inside a result's element, and the loud flip marking on checks. */
+function showChange(id: string): void {
+  const cell = sheet.cell(id);
+  const el = sheet.cellElement(id);
+  if (!cell || !el || cell.kind === 'given') return;
+  const change = compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs());
+  if (change) changes.set(id, change); else changes.delete(id);
+  const html = changeBadge(change);
+  let badge = el.querySelector<HTMLElement>(':scope > .vb-badge');
+  if (!html) badge?.remove();
+  else {
+    if (!badge) {
+      badge = document.createElement('div');
+      badge.className = 'vb-badge';
+      el.append(badge);
+    }
+    if (badge.innerHTML !== html) badge.innerHTML = html;
+  }
+  const flip = change?.kind === 'check' && change.flipped ? (change.after === false ? 'fail' : 'pass') : null;
+  el.classList.toggle('vb-flipped-fail', flip === 'fail');
+  el.classList.toggle('vb-flipped-pass', flip === 'pass');
+}
+
+function renderPanel(): void {
+  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, after: c.after }] : []));
+  const html = renderReviewPanel({
+    file: loaded.file, inputs: inputChanges(sheet.doc, sheet.overrides), flips, changedResults: changes.size,
+    dropped, message, writing,
+  });
+  const reviewing = sheet.overrides.size > 0;
+  document.body.classList.toggle('vb-reviewing', reviewing);
+  panelEl.hidden = html === '';
+  if (html !== lastPanel) {
+    panelEl.innerHTML = html;
+    lastPanel = html;
+  }
+}
+
+function showStatus(text: string): void {
+  statusEl.textContent = text;
+}
+
+/** Document images are served from beside the document, under /__asset/. */
+function pointAssets(): void {
+  for (const img of sheetEl.querySelectorAll<HTMLImageElement>('img[src]')) {
+    const src = img.getAttribute('src')!;
+    if (!/^([a-z][a-z0-9+.-]*:|\/|#)/i.test(src)) img.setAttribute('src', `/__asset/${src.replace(/^\.\//, '')}`);
+  }
+}
+
+function afterLoad(): void {
+  changes.clear();
+  for (const cell of sheet.doc.graph.cells) showChange(cell.id);
+  markEditable(sheetEl);
+  pointAssets();
+  fileEl.textContent = loaded.file;
+  const title = sheet.doc.meta.title;
+  document.title = `${typeof title === 'string' ? title : loaded.file} — vaultbook`;
+  renderPanel();
+  document.dispatchEvent(new CustomEvent('vaultbook:loaded', { detail: { version: loaded.version } }));
+}
+
+sheet.onPatch((e: PatchEvent) => {
+  for (const id of e.changed) showChange(id);
+  for (const id of e.patched) {
+    const el = sheet.cellElement(id);
+    if (el && sheet.cell(id)?.kind === 'given') markEditable(el);
+  }
+  renderPanel();
+});
+
+// Loads are serialised: a file change arriving during a write or another load waits its turn.
+let queue: Promise<unknown> = Promise.resolve();
+function serially<T>(task: () => Promise<T>): Promise<T> {
+  const run = queue.then(task, task);
+  queue = run.catch(() => undefined);
+  return run;
+}
+
+async function show(doc: DocPayload, why: 'start' | 'disk' | 'write'): Promise<void> {
+  const scroll = window.scrollY;
+  loaded = doc;
+  const result = await sheet.load(doc.text, doc.file);
+  dropped = result.dropped.map((d) => d.name);
+  if (why === 'disk') {
+    message = { kind: 'info', text: `${doc.file} changed on disk and was reloaded.${sheet.overrides.size ? ' Your trial values are kept.' : ''}` };
+  }
+  afterLoad();
+  window.scrollTo(0, scroll);
+  showStatus(`version ${doc.version.slice(0, 8)} · watching for changes`);
+}
+
+function reloadFromDisk(): Promise<void> {
+  return serially(async () => {
+    const doc = await fetchDocument();
+    if (doc.version !== loaded.version) await show(doc, 'disk');
+  });
+}
+
+function writeBack(): Promise<void> {
+  return serially(async () => {
+    const values = Object.fromEntries(sheet.overrides);
+    writing = true;
+    message = null;
+    renderPanel();
+    const reply = await writeInputs(loaded.version, values);
+    writing = false;
+    if (reply.ok) {
+      await show({ text: reply.text, version: reply.version, file: loaded.file }, 'write');
+      const names = reply.changed.join(', ');
+      message = { kind: 'ok', text: `Wrote ${reply.changed.length} input${reply.changed.length === 1 ? '' : 's'} into ${loaded.file}: ${names}.${reply.notes.length ? ' ' + reply.notes.join(' ') : ''}` };
+    } else {
+      message = { kind: 'error', text: reply.message };
+    }
+    renderPanel();
+    document.dispatchEvent(new CustomEvent('vaultbook:written', { detail: reply }));
+  });
+}
+
+panelEl.addEventListener('click', (e) => {
+  const button = (e.target as HTMLElement).closest<HTMLElement>('[data-action], [data-goto]');
+  if (!button) return;
+  e.preventDefault();
+  if (button.dataset.goto) {
+    sheet.cellElement(button.dataset.goto)?.scrollIntoView({ block: 'center', behavior: 'smooth' });
+    return;
+  }
+  switch (button.dataset.action) {
+    case 'reset-all':
+      sheet.resetAll();
+      dropped = [];
+      message = null;
+      break;
+    case 'reset-one':
+      sheet.resetInput(button.dataset.name!);
+      break;
+    case 'write':
+      void writeBack();
+      return;
+    case 'reload':
+      void reloadFromDisk();
+      return;
+  }
+  renderPanel();
+});
+
+document.getElementById('vb-print')!.addEventListener('click', () => window.print());
+
+enableEditing(sheetEl, {
+  current: (name) => sheet.sourceOf(name),
+  documentValue: (name) => {
+    const s = sheet.baseline.get(name);
+    return s?.status === 'ok' ? s.value : undefined;
+  },
+  apply: (name, text) => {
+    const d = sheet.setInput(name, text);
+    if (!d) message = null;
+    renderPanel();
+    return d ? d.message : null;
+  },
+  closed: () => sheet.release(),
+});
+
+onDocumentChanged((version) => {
+  if (version !== loaded.version) void reloadFromDisk();
+});
+
+/** For tests and the benchmark: the live objects. */
+declare global {
+  interface Window {
+    vaultbook: { sheet: LiveSheet; version(): string; ready: Promise<void>; reload(): Promise<void>; write(): Promise<void> };
+  }
+}
+
+const ready = serially(async () => {
+  try {
+    await show(await fetchDocument(), 'start');
+  } catch (e) {
+    showStatus((e as Error).message);
+    throw e;
+  }
+});
+window.vaultbook = { sheet, version: () => loaded.version, ready, reload: reloadFromDisk, write: writeBack };

@@ -1,0 +1,195 @@
+/**
+ * Review: what changed against the values the author signed.
+ *
+ * The document's own values (evaluated with no overrides) are the baseline.
+ * Each result is compared with its baseline value; a check whose verdict
+ * differs from the document's is a flip and is shown loudly.
+ * Pure functions returning data or HTML strings; main.ts puts them on the page.
+ */
+import type { Unit } from 'mathjs';
+import { formatNumber, formatValue, toJsonValue } from '../engine/index.js';
+import type { Cell, CellState, CheckResult, CompiledDocument } from '../engine/index.js';
+
+/** A given input whose value differs from the document's. */
+export interface InputChange {
+  name: string;
+  /** The document's value text. */
+  from: string;
+  /** The value text in use now. */
+  to: string;
+  line: number;
+}
+
+export type ResultChange =
+  | { kind: 'quantity'; id: string; before: string; after: string; delta: string; percent: string | null; sign: -1 | 0 | 1 }
+  | { kind: 'check'; id: string; before: boolean | null; after: boolean | null; flipped: boolean; utilBefore: number | null; utilAfter: number | null }
+  | { kind: 'text'; id: string; before: string; after: string }
+  | { kind: 'state'; id: string; before: string; after: string };
+
+function isCheck(v: unknown): v is CheckResult {
+  return typeof v === 'object' && v !== null && (v as CheckResult).isCheck === true;
+}
+
+function stateWord(s: CellState | undefined): string {
+  if (!s) return 'not computed';
+  if (s.status === 'ok') return 'a value';
+  if (s.status === 'error') return 'an error';
+  if (s.status === 'blocked') return `blocked by ${s.by}`;
+  return 'pending';
+}
+
+/** Relative size below which two values count as equal (round-off from unit conversion). */
+const SAME = 1e-12;
+
+function signedText(x: number, text: string): string {
+  return x > 0 ? `+${text}` : text;
+}
+
+function percentText(diff: number, before: number): string | null {
+  if (before === 0) return null;
+  const p = (diff / Math.abs(before)) * 100;
+  return `${signedText(p, formatNumber(p, 3))} %`;
+}
+
+/** The difference of two plain numbers or same-dimension quantities, or null when they cannot be compared. */
+function quantityChange(cell: Cell, before: unknown, after: unknown, sigfigs: number): ResultChange | null | undefined {
+  if (typeof before === 'number' && typeof after === 'number') {
+    const diff = after - before;
+    if (Math.abs(diff) <= SAME * Math.max(Math.abs(before), Math.abs(after))) return null;
+    const sign = diff > 0 ? 1 : -1;
+    return {
+      kind: 'quantity', id: cell.id, before: formatNumber(before, sigfigs), after: formatNumber(after, sigfigs),
+      delta: signedText(diff, formatNumber(diff, sigfigs)), percent: percentText(diff, before), sign,
+    };
+  }
+  if (!isUnit(before) || !isUnit(after) || !before.equalBase(after)) return undefined;
+  const siA = before.value as number, siB = after.value as number;
+  const diffSI = siB - siA;
+  if (Math.abs(diffSI) <= SAME * Math.max(Math.abs(siA), Math.abs(siB))) return null;
+  // Shown in the unit the sheet shows the result in.
+  const unit = toJsonValue(after, { sigfigs }, cell.displayUnit).unit;
+  const diff = unit ? after.toNumber(unit) - before.toNumber(unit) : diffSI;
+  const diffText = `${formatNumber(diff, sigfigs)}${unit ? ` ${unit}` : ''}`;
+  return {
+    kind: 'quantity', id: cell.id, before: formatValue(before, { sigfigs }, unit), after: formatValue(after, { sigfigs }, unit),
+    delta: signedText(diffSI, diffText), percent: percentText(diffSI, siA), sign: diffSI > 0 ? 1 : -1,
+  };
+}
+
+function isUnit(v: unknown): v is Unit {
+  return typeof v === 'object' && v !== null && (v as { isUnit?: boolean }).isUnit === true;
+}
+
+/**
+ * How one cell's current state differs from the document's.
+ * @returns null when nothing changed (within round-off)
+ * @example compareToDocument(cell, {status:'ok', value: 72 kN/m}, {status:'ok', value: 80 kN/m}, 4)
+ *          // {kind:'quantity', delta:'+8 kN/m', percent:'+11.1 %', …}
+ */
+export function compareToDocument(cell: Cell, before: CellState | undefined, after: CellState | undefined, sigfigs = 4): ResultChange | null {
+  if (cell.kind === 'check') {
+    const x = before?.status === 'ok' && isCheck(before.value) ? before.value : null;
+    const y = after?.status === 'ok' && isCheck(after.value) ? after.value : null;
+    const pb = x ? x.pass : null, pa = y ? y.pass : null;
+    const ub = x ? x.utilization : null, ua = y ? y.utilization : null;
+    const sameUtil = ub === ua || (ub !== null && ua !== null && Math.abs(ub - ua) <= SAME * Math.max(Math.abs(ub), Math.abs(ua)));
+    if (pb === pa && sameUtil) return null;
+    return { kind: 'check', id: cell.id, before: pb, after: pa, flipped: pb !== pa, utilBefore: ub, utilAfter: ua };
+  }
+  if (before?.status !== 'ok' || after?.status !== 'ok') {
+    if (before?.status === after?.status && (before?.status !== 'blocked' || (before as { by: string }).by === (after as { by: string }).by)) return null;
+    return { kind: 'state', id: cell.id, before: stateWord(before), after: stateWord(after) };
+  }
+  const q = quantityChange(cell, before.value, after.value, sigfigs);
+  if (q !== undefined) return q;
+  // Figures redraw themselves; records, lists and text are compared by how they read.
+  if (typeof after.value === 'string' && after.value.startsWith('<svg')) return null;
+  const tb = formatValue(before.value, { sigfigs }), ta = formatValue(after.value, { sigfigs });
+  return tb === ta ? null : { kind: 'text', id: cell.id, before: tb, after: ta };
+}
+
+/** The inputs whose value text differs from the document's, in document order. */
+export function inputChanges(doc: CompiledDocument, overrides: ReadonlyMap<string, string>): InputChange[] {
+  const out: InputChange[] = [];
+  for (const cell of doc.graph.cells) {
+    if (cell.kind !== 'given' || !cell.name || !overrides.has(cell.name)) continue;
+    out.push({ name: cell.name, from: cell.originalSource ?? cell.source, to: overrides.get(cell.name)!, line: cell.span.start.line });
+  }
+  return out;
+}
+
+const ESC: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+export const esc = (s: unknown) => String(s).replace(/[&<>"']/g, (c) => ESC[c]!);
+
+function verdict(pass: boolean | null): string {
+  return pass === null ? 'no verdict' : pass ? 'holds' : 'FAILS';
+}
+
+function utilText(u: number | null): string {
+  return u === null ? '—' : formatNumber(u, 3);
+}
+
+/**
+ * The badge shown beside a result: its change against the document.
+ * @returns HTML, '' when unchanged
+ */
+export function changeBadge(change: ResultChange | null): string {
+  if (!change) return '';
+  switch (change.kind) {
+    case 'quantity':
+      return `<span class="vb-delta ${change.sign > 0 ? 'vb-up' : 'vb-down'}" title="document: ${esc(change.before)}">`
+        + `Δ ${esc(change.delta)}${change.percent ? ` <small>(${esc(change.percent)})</small>` : ''}</span>`;
+    case 'check':
+      if (change.flipped) {
+        const fails = change.after === false;
+        return `<span class="vb-flip ${fails ? 'vb-flip-fail' : 'vb-flip-pass'}" role="alert">`
+          + `${fails ? '✗ NOW FAILS' : '✓ NOW HOLDS'} — the document's values give: ${verdict(change.before)}`
+          + `${change.utilBefore !== null || change.utilAfter !== null ? ` (utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)})` : ''}</span>`;
+      }
+      return `<span class="vb-delta">utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)}</span>`;
+    case 'text':
+      return `<span class="vb-delta" title="document: ${esc(change.before)}">changed</span>`;
+    case 'state':
+      return `<span class="vb-delta vb-state">document: ${esc(change.before)} → now: ${esc(change.after)}</span>`;
+  }
+}
+
+export interface PanelModel {
+  file: string;
+  inputs: InputChange[];
+  flips: Array<{ id: string; label: string; after: boolean | null }>;
+  changedResults: number;
+  /** Inputs kept from before a reload that the new document no longer has. */
+  dropped: string[];
+  /** A message after a write (ok) or a refusal (error). */
+  message: { kind: 'ok' | 'error' | 'info'; text: string } | null;
+  writing: boolean;
+}
+
+/**
+ * The review panel: changed inputs (document → now), flipped checks, and the actions.
+ * @returns HTML for the panel's body
+ */
+export function renderReviewPanel(m: PanelModel): string {
+  const rows = m.inputs.map((i) => `<tr data-review-input="${esc(i.name)}"><th scope="row"><a href="#" data-goto="${esc(i.name)}">${esc(i.name)}</a></th>`
+    + `<td class="vb-from">${esc(i.from)}</td><td class="vb-arrow">→</td><td class="vb-to">${esc(i.to)}</td>`
+    + `<td><button type="button" data-action="reset-one" data-name="${esc(i.name)}" title="back to ${esc(i.from)}">undo</button></td></tr>`).join('');
+  const flips = m.flips.length
+    ? `<div class="vb-flips" role="alert"><strong>${m.flips.length} check${m.flips.length === 1 ? '' : 's'} changed verdict:</strong><ul>`
+      + m.flips.map((f) => `<li class="${f.after === false ? 'vb-flip-fail' : 'vb-flip-pass'}"><a href="#" data-goto="${esc(f.id)}">${esc(f.label)}</a> ${f.after === false ? 'now FAILS' : f.after ? 'now holds' : 'has no verdict'}</li>`).join('')
+      + '</ul></div>'
+    : '';
+  const dropped = m.dropped.length
+    ? `<p class="vb-dropped">No longer in the document, so no longer applied: ${m.dropped.map(esc).join(', ')}</p>`
+    : '';
+  const msg = m.message ? `<p class="vb-msg vb-msg-${m.message.kind}" role="status">${esc(m.message.text)}</p>` : '';
+  if (!m.inputs.length) return `${dropped}${msg}`;
+  return `<h2>Trial values <small>against ${esc(m.file)}</small></h2>`
+    + `<table class="vb-inputs"><thead><tr><th>input</th><th>document</th><th></th><th>now</th><th></th></tr></thead><tbody>${rows}</tbody></table>`
+    + flips
+    + `<p class="vb-count">${m.changedResults} result${m.changedResults === 1 ? '' : 's'} differ from the document.</p>`
+    + dropped
+    + `<div class="vb-actions"><button type="button" data-action="reset-all">Back to the document's values</button>`
+    + `<button type="button" data-action="write"${m.writing ? ' disabled' : ''}>Write these inputs into the document</button></div>`
+    + msg;
+}
