@@ -5,3 +5,5 @@
 export { interp, clamp } from './table/register.js';
 export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin.js';
 export { buttress, tie } from './supports/register.js';
+export { barrel_membrane, membrane_at } from './vault/register-membrane.js';
+export { masonry_fk, masonry_fd, unit_weight } from './materials/register.js';
