@@ -13,7 +13,9 @@ export const barrel_membrane = defineCellFunction({
   doc: 'Membrane forces of a barrel vault between end walls (membrane theory of cylindrical shells): '
     + 'barrel_membrane({shape, span, rise | R0, half_angle, length, thickness, unit_weight | g, p}). '
     + 'span and rise are the intrados\'; with a thickness the middle surface is the intrados offset by t/2. '
-    + 'R0 and half_angle give the middle surface itself. Compression negative.',
+    + 'R0 and half_angle give the middle surface itself. Compression negative; N_x_max is the largest compression, '
+    + 'N_x_min the largest tension of Nx; tension is true where a principal membrane force is tensile (shear alone counts); '
+    + 'V_wall (down) and H_wall (outward) per unit length of each lateral wall; end_shear the total vertical force on each end wall.',
   params: [{
     name: 'options',
     type: {

@@ -1,4 +1,5 @@
 import { describe, it, expect } from 'vitest';
+import fc from 'fast-check';
 import { expectClose } from '../../helpers/close.js';
 import { barrelMembrane, type BarrelMembraneOptions } from '../../../cells/vault/barrel-membrane.js';
 import { membraneAt } from '../../../cells/vault/membrane-at.js';
@@ -106,6 +107,7 @@ const CASES: Array<[string, BarrelMembraneOptions]> = [
   ['n = 0.5, g + p', { shape: 0.5, span: 8, rise: 3, thickness: 0.3, unitWeight: 18000, length: 10, p: 5000 }],
   ['n = −1 via option n, g', { n: -1, R0: 2, halfAngle: 70 * deg, length: 4, g: 1500 }],
   ['n = −2.5, g + p', { shape: -2.5, span: 7, rise: 5, length: 14, g: 1500, p: 800 }],
+  ['horseshoe circle (half-angle 120°), g + p', { shape: 'circular', R0: 3, halfAngle: 120 * deg, length: 8, g: 1500, p: 800 }],
 ];
 
 describe.each(CASES)('barrelMembrane(%s)', (_, options) => {
@@ -160,5 +162,28 @@ describe('membraneAt(m, x, φ): range', () => {
     expect(b.N_x).toBe(a.N_x);
     expect(b.N_xphi).toBe(-a.N_xphi);
     expect(c.N_xphi).toBe(-a.N_xphi);
+  });
+});
+
+describe('barrelMembrane over random valid-looking input (property, fast-check)', () => {
+  it('either throws a RangeError naming barrel_membrane or returns finite numbers in equilibrium', () => {
+    const shape = fc.oneof(fc.constantFrom<string | number>('circular', 'catenary', 'parabolic', 'cycloid'), fc.double({ min: -4, max: 3, noNaN: true }));
+    fc.assert(fc.property(
+      shape, fc.double({ min: 1, max: 30, noNaN: true }), fc.double({ min: 0.05, max: 1.5, noNaN: true }),
+      fc.double({ min: 1, max: 50, noNaN: true }), fc.option(fc.double({ min: 0.05, max: 1, noNaN: true }), { nil: undefined }),
+      fc.double({ min: 0, max: 1e4, noNaN: true }), fc.double({ min: 0, max: 1e4, noNaN: true }),
+      (sh, span, ratio, length, thickness, g, p) => {
+        let m;
+        try {
+          m = barrelMembrane({ shape: sh, span, rise: ratio * span, length, thickness, g, p });
+        } catch (e) {
+          expect(e).toBeInstanceOf(RangeError);
+          expect((e as Error).message).toMatch(/^barrel_membrane: /);
+          return;
+        }
+        for (const v of Object.values(m)) if (typeof v === 'number') expect(Number.isFinite(v)).toBe(true);
+        expect(Math.abs(2 * length * m.V_wall + 2 * m.end_shear - m.W)).toBeLessThanOrEqual(1e-9 * Math.max(m.W, 1));
+      },
+    ), { numRuns: 40, seed: 20240611 });
   });
 });
