@@ -84,5 +84,8 @@ export function toSI(value: unknown, si: string, what = 'value'): number {
  */
 export function fromSI(x: number, si: string): Unit | number {
   if (si === '' || si === '1') return x;
-  return math.unit(x, si);
+  const u = math.unit(x, si);
+  // A kernel result is computed, not written by hand: let the display pick engineering units.
+  (u as Unit & { skipAutomaticSimplification: boolean }).skipAutomaticSimplification = false;
+  return u;
 }
