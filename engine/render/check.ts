@@ -11,7 +11,7 @@ import { anchorId, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { exprTex, readsNames } from './tex.js';
 import { symbolTex } from './names.js';
-import { utilizationText, valueTex } from './quantity.js';
+import { readableUnit, utilizationText, valueTex } from './quantity.js';
 import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 
@@ -56,7 +56,7 @@ export function verdictHtml(verdict: Verdict, utilization: number | null): strin
 function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
   let unit: string | null = null;
   if (math.isUnit(r.demand) && math.isUnit(r.capacity)) {
-    const d = splitQuantity(r.demand as Unit);
+    const d = splitQuantity(r.demand as Unit, readableUnit(r.demand as Unit));
     try { (r.capacity as Unit).toNumber(d.unit); unit = d.unit; } catch { unit = null; }
   }
   const a = valueTex(r.demand, { sigfigs: ctx.sigfigs, unit });
@@ -85,7 +85,7 @@ function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext): stri
       }
     }
   }
-  return rows.length === 1 ? rows[0]! : `\\begin{gathered}${rows.join('\\\\')}\\end{gathered}`;
+  return rows.length === 1 ? rows[0]! : `\\begin{aligned}${rows.map((r) => `&${r}`).join('\\\\')}\\end{aligned}`;
 }
 
 /**

@@ -55,7 +55,7 @@ function placeOf(d: Diagnostic): string {
  * The inner HTML of the element `data-part="diagnostics"`: every problem, linked to its place.
  * @example renderDiagnosticList(doc, states) // '' when there is nothing to say
  */
-export function renderDiagnosticList(doc: CompiledDocument, states: Map<string, CellState>, warnings?: Map<string, Diagnostic>): string {
+export function renderDiagnostics(doc: CompiledDocument, states: Map<string, CellState>, warnings?: Map<string, Diagnostic>): string {
   const list = collectDiagnostics(doc, states, warnings);
   if (list.length === 0) return '';
   const items = list.map((d) => `<li class="vb-diag-item vb-diag--${d.severity}"><span class="vb-diag-mark" aria-hidden="true">${SEVERITY_MARK[d.severity]}</span>`

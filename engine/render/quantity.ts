@@ -5,7 +5,7 @@
  */
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
-import { formatNumber, formatValue, splitQuantity } from '../values/format.js';
+import { displayUnitOf, formatNumber, formatValue, splitQuantity } from '../values/format.js';
 import type { CheckResult } from '../types.js';
 import { escapeHtml, texText } from './escape.js';
 
@@ -100,8 +100,38 @@ function isAngleMark(unit: string): boolean {
 /** Options for showing one value. */
 export interface ShowOptions {
   sigfigs: number;
-  /** Display unit for a quantity (else its engineering unit). */
+  /** Display unit for a quantity (else its own unit when written by hand, or its engineering unit). */
   unit?: string | null;
+  /** Show in the engineering unit for the dimension (kN, kN/m, kN/m²…) even when the value carries another. */
+  engineering?: boolean;
+}
+
+/**
+ * The engineering unit for a quantity's dimension, ignoring the unit it happens to carry:
+ * kernel results come back in N, m, Pa and read better as kN, m, kN/m².
+ * @example engineeringUnit(math.unit(17090, 'N')) // "kN"
+ */
+export function engineeringUnit(u: Unit): string {
+  const plain = u.clone();
+  Object.assign(plain, { skipAutomaticSimplification: false, fixPrefix: false });
+  return displayUnitOf(plain);
+}
+
+/** Bare SI units of force and stress, as kernels return them: shown in engineering units instead. */
+const BARE_SI = /^(N|Pa|N\/m|N\/m\^2|N\/m\^3|N m|N m\/m)$/;
+
+/**
+ * The unit a quantity is shown in when no display unit is asked for: its own when written
+ * by hand (6.4 m, 40 kN, 2.5 MPa), the engineering unit when it carries bare SI force units.
+ * @example readableUnit(math.unit(17090, 'N')) // "kN"
+ */
+export function readableUnit(u: Unit): string {
+  const own = displayUnitOf(u);
+  return BARE_SI.test(own) ? engineeringUnit(u) : own;
+}
+
+function unitFor(u: Unit, opts: ShowOptions): string {
+  return opts.unit ?? (opts.engineering ? engineeringUnit(u) : readableUnit(u));
 }
 
 function isCheck(v: unknown): v is CheckResult {
@@ -116,14 +146,14 @@ function isCheck(v: unknown): v is CheckResult {
 export function valueHtml(value: unknown, opts: ShowOptions): string {
   if (typeof value === 'number') return numberHtml(value, opts.sigfigs);
   if (math.isUnit(value)) {
-    const q = splitQuantity(value as Unit, opts.unit);
+    const q = splitQuantity(value as Unit, unitFor(value as Unit, opts));
     if (!q.unit) return numberHtml(q.number, opts.sigfigs);
     const gap = isAngleMark(q.unit) ? '' : '\u00a0';
     return `${numberHtml(q.number, opts.sigfigs)}${gap}<span class="vb-unit">${unitHtml(q.unit)}</span>`;
   }
   if (typeof value === 'string') return value.startsWith('<svg') ? '[figure]' : `“${escapeHtml(value)}”`;
   if (Array.isArray(value) && value.length <= 6 && value.every((v) => typeof v === 'number' || math.isUnit(v))) {
-    return `[${value.map((v) => valueHtml(v, { sigfigs: opts.sigfigs })).join(', ')}]`;
+    return `[${value.map((v) => valueHtml(v, { sigfigs: opts.sigfigs, engineering: opts.engineering })).join(', ')}]`;
   }
   if (isCheck(value)) return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs }));
   return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs }));
@@ -137,7 +167,7 @@ export function valueTex(value: unknown, opts: ShowOptions): string | null {
   if (typeof value === 'number') return numberTex(value, opts.sigfigs);
   if (typeof value === 'boolean') return `\\mathrm{${value ? 'true' : 'false'}}`;
   if (math.isUnit(value)) {
-    const q = splitQuantity(value as Unit, opts.unit);
+    const q = splitQuantity(value as Unit, unitFor(value as Unit, opts));
     if (!q.unit) return numberTex(q.number, opts.sigfigs);
     return `${numberTex(q.number, opts.sigfigs)}${isAngleMark(q.unit) ? '' : '\\,'}${unitTex(q.unit)}`;
   }

@@ -42,7 +42,7 @@ interface Piece {
 interface Walk {
   scope: TexScope;
   substitute: boolean;
-  /** Inside an exponent: fractions are written a/b. */
+  /** Inside an exponent or a fraction: further fractions are written a/b. */
   exponent: boolean;
 }
 
@@ -106,7 +106,8 @@ function substituted(path: string[], w: Walk): Piece | null {
   if (!w.substitute || !w.scope.resolve || !w.scope.isDefined(path[0]!)) return null;
   const found = w.scope.resolve(path);
   if (!found) return null;
-  const tex = valueTex(found.value, { sigfigs: w.scope.sigfigs, unit: found.unit });
+  // Fields of kernel results come in SI base units: show them in engineering units.
+  const tex = valueTex(found.value, { sigfigs: w.scope.sigfigs, unit: found.unit, engineering: path.length > 1 });
   if (tex === null) return null;
   const negative = isNegativeValue(found.value);
   return { tex, prec: negative ? Prec.Unary : Prec.Atom, negative, quantity: hasUnit(found.value) };
@@ -189,7 +190,8 @@ function operatorTex(n: AnyNode, w: Walk): Piece {
         const r = walk(b, w);
         return { tex: `${l.prec < Prec.Product ? wrap(l) : l.tex}/${r.prec < Prec.Power ? wrap(r) : r.tex}`, prec: Prec.Product };
       }
-      return atom(`\\frac{${walk(bare(a), w).tex}}{${walk(bare(b), w).tex}}`, { fraction: true });
+      const inner = { ...w, exponent: true };
+      return atom(`\\frac{${walk(bare(a), inner).tex}}{${walk(bare(b), inner).tex}}`, { fraction: true });
     }
     case 'pow': case 'dotPow':
       return { tex: `{${powBase(walk(a, w))}}^{${walk(bare(b), { ...w, exponent: true }).tex}}`, prec: Prec.Power };

@@ -1,0 +1,86 @@
+/**
+ * Printing a sheet to PDF with the system's Chromium (Debian's package),
+ * driven by playwright-core. No browser is ever downloaded: when
+ * /usr/bin/chromium is missing the caller gets ChromiumMissingError and
+ * tells the user how to install it.
+ */
+import { existsSync } from 'node:fs';
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { BrowserContext, Page } from 'playwright-core';
+
+/** Where Debian installs Chromium; VAULTBOOK_CHROMIUM overrides it. */
+export const CHROMIUM_PATH = process.env.VAULTBOOK_CHROMIUM ?? '/usr/bin/chromium';
+
+export const CHROMIUM_ARGS = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
+  '--disable-sync', '--no-first-run',
+];
+
+export class ChromiumMissingError extends Error {
+  override name = 'ChromiumMissingError';
+  constructor(path: string) {
+    super(`Chromium is needed to print PDF and was not found at ${path}.\n`
+      + '  Install it with:  apt-get install -y chromium\n'
+      + '  (or point VAULTBOOK_CHROMIUM at another Chromium executable)');
+  }
+}
+
+export interface Printer {
+  context: BrowserContext;
+  /** Opens the HTML in a fresh page; every request other than data: and about: is refused. */
+  open(html: string): Promise<Page>;
+  close(): Promise<void>;
+}
+
+/**
+ * Starts headless Chromium with a fresh, throw-away profile.
+ * @throws ChromiumMissingError when the executable is absent
+ */
+export async function launchPrinter(executablePath = CHROMIUM_PATH): Promise<Printer> {
+  if (!existsSync(executablePath)) throw new ChromiumMissingError(executablePath);
+  const { chromium } = await import('playwright-core');
+  const profile = await mkdtemp(join(tmpdir(), 'vaultbook-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath, headless: true, args: CHROMIUM_ARGS, offline: true, javaScriptEnabled: true,
+  });
+  await context.route('**/*', (route) => {
+    const url = route.request().url();
+    return url.startsWith('data:') || url.startsWith('about:') ? route.continue() : route.abort();
+  });
+  return {
+    context,
+    async open(html: string) {
+      const page = await context.newPage();
+      await page.setContent(html, { waitUntil: 'load' });
+      await page.evaluate(() => document.fonts.ready.then(() => undefined));
+      return page;
+    },
+    async close() {
+      await context.close();
+      await rm(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/**
+ * Prints a standalone sheet to a PDF file (A4 and margins from the sheet's @page rules).
+ * @param html the standalone sheet
+ * @param outFile where to write the PDF
+ * @returns the PDF's bytes
+ * @example await printPdf(html, 'calc.pdf')
+ */
+export async function printPdf(html: string, outFile: string | null, printer?: Printer): Promise<Buffer> {
+  const own = printer ?? await launchPrinter();
+  try {
+    const page = await own.open(html);
+    await page.emulateMedia({ media: 'print' });
+    const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true, displayHeaderFooter: false, tagged: true });
+    await page.close();
+    if (outFile) await writeFile(outFile, pdf);
+    return pdf;
+  } finally {
+    if (!printer) await own.close();
+  }
+}
