@@ -22,6 +22,8 @@ export interface WatchOptions {
   debounceMs?: number;
   /** Stat poll interval, ms (default 300). */
   pollMs?: number;
+  /** false: poll only (as on file systems where fs.watch is silent). Default true. */
+  fsWatch?: boolean;
 }
 
 /**
@@ -60,7 +62,7 @@ export function watchDocument(file: string, initialVersion: string, onChange: (b
   };
 
   let watcher: FSWatcher | null = null;
-  try {
+  if (options.fsWatch !== false) try {
     watcher = watch(dirname(file), { persistent: false }, (_event, changed) => {
       if (changed === null || changed === name) soon();
     });

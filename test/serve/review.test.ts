@@ -1,0 +1,92 @@
+import { describe, it, expect } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { compile, startSession } from '../../engine/index.js';
+import { math } from '../../cells/math.js';
+import { compareToDocument, changeBadge, inputChanges, renderReviewPanel } from '../../site/review.js';
+import { withDocumentUnit, isSameKind } from '../../site/editor.js';
+import { FIXTURES } from './helpers.js';
+
+const TEXT = readFileSync(join(FIXTURES, 'barrel.md'), 'utf8');
+
+async function reviewAfter(edits: Record<string, string>) {
+  const doc = compile(TEXT, { file: 'barrel.md' });
+  const session = startSession(doc);
+  const baseline = new Map(await session.settle());
+  for (const [n, v] of Object.entries(edits)) expect(session.setInput(n, v)).toBeNull();
+  const now = await session.settle();
+  const changes = new Map(doc.graph.cells.map((c) => [c.id, compareToDocument(c, baseline.get(c.id), now.get(c.id), 3)]));
+  session.dispose();
+  return { doc, changes };
+}
+
+describe('compareToDocument', () => {
+  it('compareToDocument gives the change of a result in its display unit, absolute and in per cent', async () => {
+    // H = w L^2 / (8 f): with w nearly unchanged, 4.8 m → 6 m raises H by about (6/4.8)^2 − 1 = 56 %
+    // less the smaller arc factor (k_arc) — hand check: w 10.84 → 10.58 kN/m², H 26.0 → 39.7 kN/m.
+    const { changes } = await reviewAfter({ L: '6 m' });
+    const h = changes.get('H')!;
+    expect(h).toMatchObject({ kind: 'quantity', before: '26 kN/m', after: '39.7 kN/m', delta: '+13.7 kN/m', sign: 1 });
+    expect(h.kind === 'quantity' && h.percent).toBe('+52.7 %');
+    expect(changes.get('W')).toBeNull(); // the wall does not depend on the span
+    expect(changes.get('x_R')).toMatchObject({ kind: 'quantity', sign: -1 });
+  });
+
+  it('compareToDocument marks a check whose verdict flips, with both utilizations', async () => {
+    const { changes } = await reviewAfter({ L: '6 m' });
+    expect(changes.get('c_third')).toMatchObject({ kind: 'check', before: true, after: false, flipped: true });
+    const tip = changes.get('c_tip')!;
+    expect(tip).toMatchObject({ kind: 'check', flipped: false, before: true, after: true });
+    expect(changeBadge(changes.get('c_third')!)).toContain('NOW FAILS');
+    expect(changeBadge(tip)).toMatch(/utilization 0\.517 → 0\.742/);
+  });
+
+  it('compareToDocument reports a result that now fails to compute', async () => {
+    const { changes } = await reviewAfter({ f: '0 m' });
+    expect(changes.get('H')).toMatchObject({ kind: 'state', before: 'a value', after: 'an error' });
+    expect(changes.get('sigma')).toMatchObject({ kind: 'state', after: 'blocked by H' });
+  });
+
+  it('compareToDocument sees no change for the same value written another way', async () => {
+    const { changes } = await reviewAfter({ L: '4800 mm' });
+    expect([...changes.values()].filter((c) => c !== null)).toEqual([]);
+  });
+});
+
+describe('review panel', () => {
+  it('inputChanges and renderReviewPanel list document → now for each changed input', () => {
+    const doc = compile(TEXT, { file: 'barrel.md' });
+    const overrides = new Map([['t', '0.3 m'], ['L', '6 m']]);
+    const inputs = inputChanges(doc, overrides);
+    expect(inputs).toEqual([
+      { name: 'L', from: '4.8 m', to: '6 m', line: 21 },
+      { name: 't', from: '0.23 m', to: '0.3 m', line: 23 },
+    ]);
+    const html = renderReviewPanel({ file: 'barrel.md', inputs, flips: [{ id: 'c_third', label: 'middle third', after: false }], changedResults: 9, dropped: ['old'], message: null, writing: false });
+    expect(html).toContain('<td class="vb-from">4.8 m</td>');
+    expect(html).toContain('middle third</a> now FAILS');
+    expect(html).toContain('no longer applied: old');
+    expect(html).toContain('data-action="write"');
+    expect(renderReviewPanel({ file: 'x', inputs: [], flips: [], changedResults: 0, dropped: [], message: null, writing: false })).toBe('');
+  });
+});
+
+describe('withDocumentUnit', () => {
+  it('withDocumentUnit gives a bare number the document\'s unit and leaves anything else alone', () => {
+    expect(withDocumentUnit('7', math.unit(6.4, 'm'))).toBe('7 m');
+    expect(withDocumentUnit(' 7.5e-1 ', math.unit(6.4, 'm'))).toBe('7.5e-1 m');
+    expect(withDocumentUnit('−2', math.unit(6.4, 'm'))).toBe('-2 m');
+    expect(withDocumentUnit('20', math.unit('18 kN/m^3'))).toBe('20 kN/m^3');
+    expect(withDocumentUnit('7 ft', math.unit(6.4, 'm'))).toBe('7 ft');
+    expect(withDocumentUnit('2 * 3', math.unit(6.4, 'm'))).toBe('2 * 3');
+    expect(withDocumentUnit('7', 12)).toBe('7');
+  });
+
+  it('isSameKind accepts values of the document\'s dimension only', () => {
+    expect(isSameKind('7 ft', math.unit(6.4, 'm'))).toBe(true);
+    expect(isSameKind('7 kN', math.unit(6.4, 'm'))).toBe(false);
+    expect(isSameKind('7 k', math.unit(6.4, 'm'))).toBe(false);
+    expect(isSameKind('7 +', math.unit(6.4, 'm'))).toBe(false);
+    expect(isSameKind('3', 2)).toBe(true);
+  });
+});
