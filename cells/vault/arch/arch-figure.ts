@@ -1,0 +1,60 @@
+import type { Point } from '../profile.js';
+import type { ArchLoads, ArchRing } from './types.js';
+import { seidelLP } from './seidel-lp.js';
+import { admissibleProgram } from './admissible-program.js';
+import { thrustProgram } from './thrust-program.js';
+import { thrustState } from './thrust-state.js';
+import { thrustPoints } from './thrust-points.js';
+import { ringPoint } from './ring-point.js';
+import { checkLoads } from './check-loads.js';
+
+/** What a figure of a ring needs, in metres in the ring's frame (y above the intrados springing). */
+export interface ArchFigure {
+  intrados: Point[];
+  extrados: Point[];
+  joints: { intrados: Point; extrados: Point }[];
+  /** Lines of thrust of the minimum- and maximum-thrust states; absent when none fits. */
+  thrust_min?: Point[];
+  thrust_max?: Point[];
+}
+
+/**
+ * Outline, joints and the two extreme lines of thrust of a ring, for
+ * drawing: the faces sampled four times per voussoir, every joint as a
+ * segment, and the centres of pressure of the least- and greatest-thrust
+ * states (as arch_limit finds them).
+ * @param ring the ring
+ * @param loads loads, as for arch_limit
+ * @returns points in m
+ * @example archFigure(ring, {}).joints.length // ring.joints.length
+ */
+export function archFigure(ring: ArchRing, loads: ArchLoads = {}): ArchFigure {
+  checkLoads('arch_figure', ring, loads);
+  const { centreline: c, joints, thickness: t } = ring;
+  const face = (d: number): Point[] => {
+    const pts: Point[] = [];
+    joints.forEach((j, k) => {
+      if (k === 0) return void pts.push(ringPoint(c, j.angle, d));
+      const a = joints[k - 1]!.angle;
+      if (a < 0 && j.angle > 0 && c.phiCrown > 0) {
+        const q = ringPoint(c, j.angle, d); // keystone of a pointed ring: tangents meet on the axis
+        pts.push({ x: 0, y: q.y + q.x * Math.tan(j.angle) });
+      } else {
+        for (let s = 1; s < 4; s++) pts.push(ringPoint(c, a + ((j.angle - a) * s) / 4, d));
+      }
+      pts.push(ringPoint(c, j.angle, d));
+    });
+    return pts;
+  };
+  const out: ArchFigure = {
+    intrados: face(-t / 2),
+    extrados: face(t / 2),
+    joints: joints.map((j) => ({ intrados: ringPoint(c, j.angle, -t / 2), extrados: ringPoint(c, j.angle, t / 2) })),
+  };
+  const p = thrustProgram(ring, t, loads);
+  const least = seidelLP(admissibleProgram(p, [-1, 0, 0], false));
+  const most = seidelLP(admissibleProgram(p, [1, 0, 0], false));
+  if (least.feasible) out.thrust_min = thrustPoints(joints, thrustState(p, least.x));
+  if (most.feasible) out.thrust_max = thrustPoints(joints, thrustState(p, most.x));
+  return out;
+}

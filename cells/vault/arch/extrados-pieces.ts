@@ -1,0 +1,69 @@
+import type { Metres, Point, Profile, Radians } from '../profile.js';
+import type { Joint } from './types.js';
+import { ringPoint } from './ring-point.js';
+
+/** A stretch of extrados facing upwards, x increasing from `xa` to `xb` as τ goes `from` → `to`. */
+export interface ExtradosPiece {
+  from: number;
+  to: number;
+  xa: Metres;
+  xb: Metres;
+  /** Point (m) and dx/dτ at τ. */
+  at(tau: number): { x: Metres; y: Metres; dx: number };
+}
+
+/**
+ * The upward-facing extrados of every voussoir, which is where fill and plan
+ * loads bear. On a half the extrados is e(θ) = c(θ) + (t/2)·u(θ), with
+ * dx/dθ = (R + t/2)·cos θ; only |θ| ≤ 90° faces upwards, so a horseshoe ring
+ * carries nothing on the overhang. The keystone of a pointed ring bears on the
+ * two tangent lines meeting on the axis (as in voussoirSections).
+ * @param centreline ring centreline in the ring frame
+ * @param joints joints from ringJoints
+ * @param t ring thickness (m)
+ * @returns per voussoir, its upward-facing pieces (possibly none)
+ * @example extradosPieces(circularArc(5, Math.PI / 2), joints, 0.5)[0][0].xa // -5.25
+ */
+export function extradosPieces(centreline: Profile, joints: readonly Joint[], t: Metres): ExtradosPiece[][] {
+  const half = Math.PI / 2;
+  const out: ExtradosPiece[][] = [];
+  for (let i = 0; i + 1 < joints.length; i++) {
+    const a = Math.max(joints[i]!.angle, -half);
+    const b = Math.min(joints[i + 1]!.angle, half);
+    if (a < 0 && b > 0 && centreline.phiCrown > 0) {
+      const Er = ringPoint(centreline, b, t / 2);
+      const T = { x: 0, y: Er.y + Er.x * Math.tan(b) };
+      out.push([new LinePiece({ x: -Er.x, y: Er.y }, T), new LinePiece(T, Er)]);
+    } else {
+      out.push(a < b ? [new CurvePiece(centreline, t, a, b)] : []);
+    }
+  }
+  return out;
+}
+
+class CurvePiece implements ExtradosPiece {
+  readonly xa: Metres;
+  readonly xb: Metres;
+  constructor(readonly c: Profile, readonly t: Metres, readonly from: Radians, readonly to: Radians) {
+    this.xa = ringPoint(c, from, t / 2).x;
+    this.xb = ringPoint(c, to, t / 2).x;
+  }
+  at(th: Radians) {
+    const p = ringPoint(this.c, th, this.t / 2);
+    return { x: p.x, y: p.y, dx: (this.c.radius(Math.abs(th)) + this.t / 2) * Math.cos(th) };
+  }
+}
+
+class LinePiece implements ExtradosPiece {
+  readonly from = 0;
+  readonly to = 1;
+  readonly xa: Metres;
+  readonly xb: Metres;
+  constructor(readonly p: Point, readonly q: Point) {
+    this.xa = p.x;
+    this.xb = q.x;
+  }
+  at(s: number) {
+    return { x: this.p.x + s * (this.q.x - this.p.x), y: this.p.y + s * (this.q.y - this.p.y), dx: this.q.x - this.p.x };
+  }
+}

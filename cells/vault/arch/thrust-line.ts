@@ -1,0 +1,54 @@
+import type { Point } from '../profile.js';
+import type { ArchLoads, ArchRing, Newtons } from './types.js';
+import { seidelLP } from './seidel-lp.js';
+import { BOX } from './admissible-program.js';
+import { thrustProgram } from './thrust-program.js';
+import { thrustState } from './thrust-state.js';
+import { thrustPoints } from './thrust-points.js';
+import { voussoirLoads } from './voussoir-loads.js';
+import { checkLoads } from './check-loads.js';
+
+/**
+ * The line of thrust of a given horizontal thrust H under symmetric loads.
+ * Symmetry fixes V = half the total load; of the lines left with H and V the
+ * one returned is the best centred, the one whose largest eccentricity ratio
+ * |e_j| / (joint half-length) is least — a one-parameter minimax in the crown
+ * position, solved as a two-variable LP (seidelLP). For H within
+ * [H_min, H_max] it lies within the ring; outside that range it does not, and
+ * shows where it leaves.
+ * @param ring the ring
+ * @param loads symmetric loads
+ * @param H horizontal thrust per strip (N), > 0
+ * @returns the centres of pressure on the joints (m), left springing to right
+ * @example thrustLine(ring, {}, 40e3).length // ring.joints.length
+ */
+export function thrustLine(ring: ArchRing, loads: ArchLoads, H: Newtons): Point[] {
+  checkLoads('thrust_line', ring, loads);
+  if (!(H > 0 && Number.isFinite(H))) throw new RangeError(`thrust_line: H must be positive, got ${H} N`);
+  const { fixed, live } = voussoirLoads(ring, ring.thickness, loads);
+  const all = [...fixed, ...live];
+  const total = all.reduce((s, l) => s + l.W, 0);
+  const moment = all.reduce((s, l) => s + l.W * l.x, 0);
+  if (Math.abs(moment) > 1e-9 * total * ring.span) {
+    throw new RangeError('thrust_line: loads must be symmetric about the crown (use arch_limit for other loads)');
+  }
+  const p = thrustProgram(ring, ring.thickness, loads);
+  const h = H / p.W;
+  const v = total / 2 / p.W;
+  // Joint j: M̂ = m + c_j with c_j the part fixed by h and v; N̂_j fixed. Unknowns (m, s): min s, |m + c_j| ≤ s·N̂_j.
+  const base = thrustState(p, [h, v, 0]);
+  const J = p.joints.length;
+  const a = new Float64Array(4 * J);
+  const b = new Float64Array(2 * J);
+  base.joints.forEach((jt, j) => {
+    const n = jt.N / p.W;
+    if (!(n > 0)) throw new RangeError(`thrust_line: H = ${H} N is too small for the thrust to stay in compression`);
+    const c = jt.M / (p.W * p.L);
+    a.set([1, -n, -1, -n], 4 * j);
+    b[2 * j] = -c;
+    b[2 * j + 1] = c;
+  });
+  const best = seidelLP({ a, b, c: [0, -1], lo: [-BOX, 0], hi: [BOX, BOX] });
+  if (!best.feasible) throw new RangeError('thrust_line: no line of thrust found for this H');
+  return thrustPoints(p.joints, thrustState(p, [h, v, best.x[0]!]));
+}

@@ -1,0 +1,56 @@
+/** Arch and barrel-ring limit analysis, registered for cells. */
+import { defineCellFunction, type FieldType } from '../define.js';
+import { archRing } from './arch/arch-ring.js';
+import { archLimit } from './arch/arch-limit.js';
+import { thrustLine } from './arch/thrust-line.js';
+
+const LOADS: FieldType = {
+  object: {
+    fill_unit_weight: 'N/m^3', fill_level: 'm', dead: 'Pa', live: 'Pa',
+    live_from: 'm', live_to: 'm', P: 'N', P_at: 'm',
+  },
+};
+const HINGES: FieldType = { list: { object: { angle: 'rad', face: 'text' } } };
+
+export const arch_ring = defineCellFunction({
+  name: 'arch_ring',
+  doc: 'A masonry ring one strip deep: shape, span + rise of the intrados (or radius of the centreline + half_angle), thickness, unit_weight, depth, voussoirs.',
+  params: [{
+    name: 'options',
+    type: {
+      object: {
+        shape: 'any', span: 'm', rise: 'm', radius: 'm', half_angle: 'rad', thickness: 'm',
+        unit_weight: 'N/m^3', depth: 'm', voussoirs: 'count',
+      },
+    },
+  }],
+  returns: {
+    object: {
+      shape: 'text', span: 'm', rise: 'm', radius: 'm', half_angle: 'rad', thickness: 'm',
+      unit_weight: 'N/m^3', depth: 'm', voussoirs: '1', weight: 'N',
+    },
+  },
+  required: ['shape', 'thickness', 'unit_weight'],
+  fn: archRing,
+});
+
+export const arch_limit = defineCellFunction({
+  name: 'arch_limit',
+  doc: "Limit analysis of a ring under Heyman's assumptions: thrust range, minimum thickness, geometric factor of safety, hinges, collapse load factor.",
+  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'loads', type: LOADS, optional: true }],
+  returns: {
+    object: {
+      H_min: 'N', H_max: 'N', V_left: 'N', V_right: 'N', t_min: 'm', gsf: '1', hinges: HINGES,
+      load_factor: '1', mechanism: HINGES, safe: 'boolean', notes: { list: 'text' },
+    },
+  },
+  fn: (ring, loads) => archLimit(ring, loads ?? {}),
+});
+
+export const thrust_line = defineCellFunction({
+  name: 'thrust_line',
+  doc: 'The best-centred line of thrust of a ring for a given horizontal thrust H under symmetric loads: points {x, y}.',
+  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'loads', type: LOADS }, { name: 'H', type: 'N' }],
+  returns: { list: { object: { x: 'm', y: 'm' } } },
+  fn: thrustLine,
+});

@@ -1,0 +1,43 @@
+/**
+ * The kernel's LinearProgram handed to javascript-lp-solver (a general
+ * simplex code), so tests and the benchmark can cross-check seidelLP on the
+ * very same programmes.
+ */
+import lpSolver from 'javascript-lp-solver';
+import type { LinearProgram, LpOutcome } from '../../../../cells/vault/arch/seidel-lp.js';
+
+/**
+ * The same programme as a javascript-lp-solver model in y = x − lo ≥ 0 (the
+ * solver's default sign, so no free variables are needed): rows r0… with
+ * a·y ≤ b − a·lo, box rows y_i ≤ hi_i − lo_i, maximise obj = c·y.
+ */
+export function toSolverModel(lp: LinearProgram) {
+  const d = lp.c.length;
+  const m = lp.b.length;
+  const variables: Record<string, Record<string, number>> = {};
+  const constraints: Record<string, { max: number }> = {};
+  for (let i = 0; i < d; i++) {
+    const v: Record<string, number> = { obj: lp.c[i]!, [`box${i}`]: 1 };
+    for (let r = 0; r < m; r++) if (lp.a[r * d + i] !== 0) v[`r${r}`] = lp.a[r * d + i]!;
+    variables[`x${i}`] = v;
+    constraints[`box${i}`] = { max: lp.hi[i]! - lp.lo[i]! };
+  }
+  for (let r = 0; r < m; r++) {
+    let shift = 0;
+    for (let i = 0; i < d; i++) shift += lp.a[r * d + i]! * lp.lo[i]!;
+    constraints[`r${r}`] = { max: lp.b[r]! - shift };
+  }
+  return { optimize: 'obj', opType: 'max' as const, constraints, variables };
+}
+
+// The package is CommonJS typed as a namespace; at run time the default import is the solver itself.
+type Engine = { Solve(model: unknown): unknown };
+const loaded = lpSolver as unknown as Engine & { default?: Engine };
+const solver: Engine = typeof loaded.Solve === 'function' ? loaded : loaded.default!;
+
+/** An LpSolver backed by javascript-lp-solver. */
+export function simplexLP(lp: LinearProgram): LpOutcome {
+  const result = solver.Solve(toSolverModel(lp)) as Record<string, number | boolean>;
+  if (!result.feasible) return { feasible: false };
+  return { feasible: true, x: lp.c.map((_, i) => Number(result[`x${i}`] ?? 0) + lp.lo[i]!) };
+}
