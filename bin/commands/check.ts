@@ -1,10 +1,15 @@
 /**
- * `vaultbook check FILE… [--set …] [--json]`: evaluate and judge every check.
+ * `vaultbook check FILE|GLOB… [--set …] [--json] [--jobs N]`: evaluate and judge every check.
  * Exit 0 when all hold, 1 when any fails, 2 on any error or unreadable file.
+ *
+ * One file prints each verdict; several files (a firm's archive) are evaluated
+ * on worker threads and summed up in one table.
  */
 import { formatDiagnostic, formatNumber } from '../../engine/index.js';
 import { parse, readOverrides, SET_OPTION, JSON_OPTION, UsageError } from '../args.js';
 import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
+import { expandPatterns } from '../archive/glob.js';
+import { archiveCheck } from '../archive/check.js';
 
 export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string }): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
@@ -20,11 +25,18 @@ export function exitCodeFor(results: Loaded[]): number {
 }
 
 export async function checkCommand(args: string[], out: (s: string) => void): Promise<number> {
-  const { values, positionals } = parse(args, { ...SET_OPTION, ...JSON_OPTION });
+  const { values, positionals } = parse(args, { ...SET_OPTION, ...JSON_OPTION, jobs: { type: 'string', short: 'j' } });
+  // --jobs counts every thread that evaluates files, the main thread included.
   if (positionals.length === 0) throw new UsageError('check needs at least one FILE');
   const overrides = readOverrides(values.set as string[] | undefined);
+  const jobs = values.jobs === undefined ? undefined : Number(values.jobs);
+  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) throw new UsageError(`--jobs expects a whole number of worker threads, got "${values.jobs}"`);
+  const expanded = await expandPatterns(positionals);
+  if (expanded.files.length !== 1 || expanded.unmatched.length > 0) {
+    return archiveCheck(expanded, { overrides, json: Boolean(values.json), jobs, out });
+  }
   const results: Loaded[] = [];
-  for (const file of positionals) results.push(await loadAndEvaluate(file, overrides));
+  for (const file of expanded.files) results.push(await loadAndEvaluate(file, overrides));
   if (values.json) {
     out(JSON.stringify(results.length === 1 ? results[0]!.summary : results.map((r) => r.summary), null, 2));
     return exitCodeFor(results);

@@ -1,0 +1,97 @@
+/**
+ * formatDiff: a DocumentDiff as text for a reviewer at a terminal — the
+ * verdict-changing news first (checks), then what drove it (inputs, results),
+ * then housekeeping (cells, figures, prose, title block).
+ * Pure: no Node imports.
+ */
+import { formatDiagnostic, formatNumber } from '../../engine/index.js';
+import type { DocumentDiff, ValueChange } from './document.js';
+import type { CheckChange, CheckSide } from './checks.js';
+import { formatMove, formatPercent } from './values.js';
+
+/** Fields shown per kernel result before "… and N more". */
+const FIELDS_SHOWN = 4;
+
+/** Left-aligned columns, two spaces apart, no header. */
+function columns(rows: string[][], indent = '  '): string[] {
+  const widths: number[] = [];
+  for (const r of rows) r.forEach((c, i) => { widths[i] = Math.max(widths[i] ?? 0, c.length); });
+  return rows.map((r) => indent + r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i]!))).join('  ').trimEnd());
+}
+
+function valueRows(changes: ValueChange[]): string[][] {
+  const rows: string[][] = [];
+  for (const v of changes) {
+    // The biggest relative moves of a kernel result are the ones worth reading.
+    const rank = (f: ValueChange['fields'][number]) => (f.percent === null ? Infinity : Math.abs(f.percent));
+    const fields = [...v.fields].sort((x, y) => rank(y) - rank(x));
+    const kindNote = v.old_kind ? `(was ${v.old_kind})` : '';
+    if (fields.length === 0) rows.push([v.name, 'same value', kindNote, `line ${v.line_new}`]);
+    for (const f of fields.slice(0, FIELDS_SHOWN)) {
+      const what = f.change === 'moved' ? formatPercent(f.percent) || `${f.delta! > 0 ? '+' : '−'}${formatNumber(Math.abs(f.delta!), 3)}${f.unit ? ` ${f.unit}` : ''}`
+        : f.change === 'dimension' ? 'dimension changed'
+        : f.change === 'status' ? 'now ' + (f.new!.text.startsWith('error') ? 'an error' : f.new!.text.startsWith('not computed') ? 'not computed' : 'computed')
+        : f.change;
+      rows.push([v.name + f.path, f.change === 'status' ? `${f.old!.text} → ${f.new!.text}` : formatMove(f), what, kindNote || `line ${v.line_new}`]);
+    }
+    if (fields.length > FIELDS_SHOWN) rows.push([v.name, `… and ${fields.length - FIELDS_SHOWN} more fields changed`, '', '']);
+  }
+  return rows;
+}
+
+const VERDICT_TEXT: Record<CheckSide['verdict'], string> = { holds: 'holds', fails: 'FAILS', 'no verdict': 'no verdict' };
+const MARK: Record<CheckChange['change'], string> = {
+  'to-fail': '!!', 'to-pass': 'ok', 'to-no-verdict': '??', utilization: '··', expression: '··', added: '+ ', removed: '- ',
+};
+
+function checkRow(c: CheckChange): string[] {
+  const u = (s: CheckSide | null) => (s?.utilization === null || s === null ? '—' : formatNumber(s.utilization, 3));
+  const verdict = c.change === 'added' ? `added, ${VERDICT_TEXT[c.new!.verdict]}`
+    : c.change === 'removed' ? `removed (${VERDICT_TEXT[c.old!.verdict]})`
+    : c.old!.verdict === c.new!.verdict ? VERDICT_TEXT[c.new!.verdict] : `${VERDICT_TEXT[c.old!.verdict]} → ${VERDICT_TEXT[c.new!.verdict]}`;
+  const util = c.change === 'added' ? `utilization ${u(c.new)}` : c.change === 'removed' ? `utilization ${u(c.old)}` : `utilization ${u(c.old)} → ${u(c.new)}`;
+  const sideNow = c.new ?? c.old!;
+  const expr = c.change === 'expression' || (c.old && c.new && c.old.source !== c.new.source) ? `${c.old!.source} ⇒ ${c.new!.source}` : sideNow.source;
+  return [MARK[c.change], c.key, verdict, util, `${expr === c.key ? '' : expr}  (line ${sideNow.line})`.trim()];
+}
+
+function preview(text: string, width = 70): string {
+  const flat = text.replace(/\s+/g, ' ').trim();
+  return `"${flat.length > width ? flat.slice(0, width - 1) + '…' : flat}"`;
+}
+
+/**
+ * The human report of `vaultbook diff`.
+ * @example out(formatDiff(diffDocuments(a, b)))
+ */
+export function formatDiff(d: DocumentDiff): string {
+  const out: string[] = [`${d.old.label} → ${d.new.label}`];
+  const section = (title: string, lines: string[]) => { if (lines.length > 0) out.push('', title, ...lines); };
+  const order: CheckChange['change'][] = ['to-fail', 'to-no-verdict', 'to-pass', 'utilization', 'expression', 'added', 'removed'];
+  const checks = [...d.checks].sort((x, y) => order.indexOf(x.change) - order.indexOf(y.change));
+  section(`Checks (${checks.length} changed)`, columns(checks.map(checkRow)));
+  section(`Inputs changed (${d.inputs.length})`, columns(valueRows(d.inputs)));
+  section(`Results moved (${d.results.length})`, columns(valueRows(d.results)));
+  // Added and removed checks are already listed under Checks.
+  const cellList = (cs: DocumentDiff['added']) => cs.filter((c) => c.kind !== 'check').map((c) => `${c.name} (${c.kind}, line ${c.line})`).join(', ');
+  const added = cellList(d.added), removed = cellList(d.removed);
+  section('Cells', [...(added ? [`  added:   ${added}`] : []), ...(removed ? [`  removed: ${removed}`] : [])]);
+  if (d.figures.length) section('Figures', [`  redrawn: ${d.figures.map((f) => f.name).join(', ')}`]);
+  const p = d.prose;
+  if (p.paragraphs.length > 0) {
+    const counts = [`${p.changed} paragraph${p.changed === 1 ? '' : 's'} changed`, p.added ? `${p.added} added` : '', p.removed ? `${p.removed} removed` : ''].filter(Boolean).join(', ');
+    section(`Prose: ${counts} (+${p.lines_added} −${p.lines_removed} lines)`, columns(p.paragraphs.map((c) => {
+      const at = c.new ? `line ${c.new.line}` : `was line ${c.old!.line}`;
+      return [c.change === 'changed' ? '~' : c.change === 'added' ? '+' : '-', at, preview((c.new ?? c.old)!.text)];
+    })));
+  }
+  section('Title block', columns(d.meta.map((m) => [m.key, `${m.old === null ? '—' : String(m.old)} → ${m.new === null ? '—' : String(m.new)}`])));
+  section(`Errors introduced (${d.errors_introduced.length})`, d.errors_introduced.map((e) => `  ${formatDiagnostic(e)}`));
+  const nothing = d.checks.length + d.inputs.length + d.results.length + d.added.length + d.removed.length + d.figures.length + p.paragraphs.length + d.meta.length === 0;
+  if (nothing) out.push('', 'No differences in values, checks, prose or title block.');
+  const errorsNote = d.new.errors > 0 ? `; the new version has ${d.new.errors} error${d.new.errors === 1 ? '' : 's'}` : '';
+  out.push('', d.new_failures > 0
+    ? `Verdict: ${d.new_failures} check${d.new_failures === 1 ? '' : 's'} now fail${d.new_failures === 1 ? 's' : ''} that did not before${errorsNote}.`
+    : `Verdict: no check newly fails${errorsNote}.`);
+  return out.join('\n');
+}

@@ -1,0 +1,160 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { mkdtemp, rm, writeFile, mkdir } from 'node:fs/promises';
+import { tmpdir, availableParallelism } from 'node:os';
+import { join, relative } from 'node:path';
+import { checkCommand } from '../../bin/commands/check.js';
+import { expandPatterns, globToRegExp } from '../../bin/archive/glob.js';
+import { evaluateArchive } from '../../bin/archive/pool.js';
+import { progressBar } from '../../bin/archive/progress.js';
+import type { Summary } from '../../engine/index.js';
+import { writeArchive, type PlantedFile } from './archive-fixtures.js';
+import { expectClose } from '../helpers/close.js';
+
+/** Generated archive size; the bench runs 1,000 (test/bench/archive.bench.ts). */
+const COUNT = Number(process.env.VAULTBOOK_ARCHIVE_COUNT ?? 1000);
+
+let dir: string;
+let planted: PlantedFile[];
+const run = async (...args: string[]) => {
+  const out: string[] = [];
+  const code = await checkCommand(args, (s) => out.push(s));
+  return { code, out: out.join('\n') };
+};
+
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'vaultbook-archive-'));
+  planted = await writeArchive(join(dir, 'archive'), COUNT);
+});
+afterAll(() => rm(dir, { recursive: true, force: true }));
+
+describe('glob expansion', () => {
+  it('globToRegExp handles *, ** and ?', () => {
+    expect(globToRegExp('**/*.md').test('a/b/c.md')).toBe(true);
+    expect(globToRegExp('**/*.md').test('c.md')).toBe(true);
+    expect(globToRegExp('*.md').test('a/c.md')).toBe(false);
+    expect(globToRegExp('pier-00?.md').test('pier-007.md')).toBe(true);
+    expect(globToRegExp('pier-00?.md').test('pier-0077.md')).toBe(false);
+    expect(globToRegExp('a.b/*.md').test('axb/c.md')).toBe(false);
+  });
+
+  it('expandPatterns expands globs and folders, keeps plain paths, reports patterns that match nothing', async () => {
+    const root = join(dir, 'archive');
+    const e = await expandPatterns([`${root}/block-00/pier-000?.md`, `${root}/block-01`, `${root}/block-00/pier-0001.md`, 'plain.md', `${root}/none/*.md`]);
+    expect(e.files.slice(0, 10).map((f) => relative(root, f))).toEqual(Array.from({ length: 10 }, (_, i) => `block-00/pier-000${i}.md`));
+    expect(e.files.filter((f) => f.includes('block-01'))).toHaveLength(Math.min(100, Math.max(0, COUNT - 100)));
+    expect(e.files.filter((f) => f.endsWith('pier-0001.md'))).toHaveLength(1); // no duplicates
+    expect(e.files).toContain('plain.md');
+    expect(e.unmatched).toEqual([`${root}/none/*.md`]);
+  });
+
+  it('expandPatterns skips hidden folders and node_modules under **', async () => {
+    const root = join(dir, 'hidden-test');
+    await mkdir(join(root, '.git'), { recursive: true });
+    await mkdir(join(root, 'node_modules'), { recursive: true });
+    await writeFile(join(root, '.git', 'x.md'), '');
+    await writeFile(join(root, 'node_modules', 'y.md'), '');
+    await writeFile(join(root, 'z.md'), '');
+    expect((await expandPatterns([`${root}/**/*.md`])).files).toEqual([`${root}/z.md`]);
+  });
+});
+
+describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
+  it(`evaluateArchive(${COUNT} files) reports every planted verdict, using the main thread and workers`, { timeout: 120_000 }, async () => {
+    const { reports, byWorkers } = await evaluateArchive(planted.map((p) => p.path));
+    expect(reports).toHaveLength(COUNT);
+    let fails = 0, errors = 0;
+    reports.forEach((r, i) => {
+      const p = planted[i]!;
+      expect(r.file).toBe(p.path);
+      expect({ checks: r.checks, fails: r.fails, errors: r.errors }, p.path).toEqual({ checks: p.checks, fails: p.fails, errors: p.errors });
+      // Utilization against the hand calc in the fixture (N_Ed / N_Rd, λ / 27).
+      expectClose(r.worst!, p.worst!, 1e-9);
+      fails += r.fails;
+      errors += r.errors;
+    });
+    // Planted: every 10th pier overloaded, every 97th too slender (one error + one failing check each).
+    const ids = Array.from({ length: COUNT }, (_, i) => i);
+    const slender = ids.filter((i) => i % 97 === 5).length;
+    const overloaded = ids.filter((i) => i % 10 === 3 && i % 97 !== 5).length;
+    expect(fails).toBe(overloaded + slender);
+    expect(errors).toBe(slender);
+    if (availableParallelism() > 1 && COUNT >= 500) expect(byWorkers).toBeGreaterThan(0);
+  });
+
+  it('evaluateArchive(files, {jobs: 2, useMainThread: false}) runs every file on worker threads, reports in file order', { timeout: 120_000 }, async () => {
+    const files = planted.slice(0, 8).map((p) => p.path);
+    const seen: number[] = [];
+    const { reports, workersStarted, byWorkers } = await evaluateArchive(files, { jobs: 2, useMainThread: false, onReport: (_r, done) => seen.push(done) });
+    expect(workersStarted).toBe(2);
+    expect(byWorkers).toBe(8);
+    expect(reports.map((r) => r.file)).toEqual(files);
+    expect(reports.map((r) => r.fails)).toEqual(planted.slice(0, 8).map((p) => p.fails));
+    expect(seen).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
+  });
+
+  it('check FOLDER prints one table row per file and the totals (exit 2 with a planted error)', async () => {
+    const r = await run(`${dir}/archive/block-00`);
+    const n = Math.min(100, COUNT);
+    const rows = r.out.split('\n').filter((l) => /pier-\d{4}\.md\s+\d/.test(l));
+    expect(rows).toHaveLength(n);
+    expect(rows.find((l) => l.includes('pier-0003.md'))).toMatch(/pier-0003\.md\s+2\s+1\s+0\s+1\.25\s+FAILS$/);
+    expect(rows.find((l) => l.includes('pier-0005.md'))).toMatch(/pier-0005\.md\s+2\s+1\s+1\s+\S+\s+ERRORS$/);
+    expect(r.out.split('\n')[0]).toMatch(/^file\s+checks\s+fails\s+errors\s+highest utilization\s+verdict$/);
+    const fails = planted.slice(0, n).reduce((a, p) => a + p.fails, 0);
+    expect(r.out).toMatch(new RegExp(`^${n} files: ${2 * n} checks, ${2 * n - fails - 1} hold, ${fails} fail \\(in ${fails} files\\); 1 error \\(in 1 file\\)`, 'm'));
+    expect(r.out).toContain(`Failing checks (${fails}):`);
+    expect(r.out).toMatch(/pier-0005\.md:24:1 {2}error: interp: x = \S+ is outside the table/);
+    expect(r.code).toBe(2);
+  });
+
+  it('check GLOB missing.md --json prints every summary; a missing file or an empty pattern is an error (exit 2)', async () => {
+    const missing = join(dir, 'missing.md');
+    const r = await run(`${dir}/archive/block-00/pier-001?.md`, missing, `${dir}/nowhere/*.md`, '--json');
+    const summaries = JSON.parse(r.out) as Summary[];
+    expect(summaries.map((s) => relative(dir, s.file))).toEqual([
+      ...Array.from({ length: 10 }, (_, i) => `archive/block-00/pier-001${i}.md`), 'missing.md', 'nowhere/*.md',
+    ]);
+    expect(summaries[3]!.checks.map((c) => c.pass)).toEqual([false, true]); // pier-0013 is overloaded
+    expect(summaries[10]!.diagnostics[0]!.ruleId).toBe('io/read');
+    expect(summaries[11]!.diagnostics[0]!.message).toContain('no file matches');
+    expect(r.code).toBe(2);
+  });
+
+  it('check over files that all hold exits 0; one failing check makes it 1', async () => {
+    const ok = await run(join(dir, 'archive/block-00/pier-0000.md'), join(dir, 'archive/block-00/pier-0001.md'));
+    expect(ok.code).toBe(0);
+    expect(ok.out).toMatch(/^2 files: 4 checks, 4 hold, 0 fail/m);
+    const failing = await run(join(dir, 'archive/block-00/pier-0003.md'), join(dir, 'archive/block-00/pier-0004.md'), '--jobs', '1');
+    expect(failing.code).toBe(1);
+  });
+
+  it('check FILE (one file) keeps the single-file verdict lines, no table', async () => {
+    const r = await run(join(dir, 'archive/block-00/pier-0003.md'));
+    expect(r.code).toBe(1);
+    expect(r.out).toMatch(/^ {2}!! {2}FAILS +1\.25 {2}bearing: N_Ed <= N_Rd {2}\(line 29\)/m);
+    expect(r.out).not.toMatch(/^file\s+checks/m);
+  });
+
+  it('check --jobs 0 is a usage error', async () => {
+    await expect(run(join(dir, 'archive/block-00/pier-0003.md'), '--jobs', '0')).rejects.toThrow(/--jobs/);
+  });
+});
+
+describe('progressBar', () => {
+  it('progressBar(stream) draws only on a terminal', () => {
+    const writes: string[] = [];
+    progressBar({ isTTY: false, write: (s) => writes.push(s) }).update(1, 2, { fails: 0, errors: 0 });
+    expect(writes).toEqual([]);
+    let t = 0;
+    const bar = progressBar({ isTTY: true, columns: 100, write: (s) => writes.push(s) }, () => t);
+    bar.update(1, 4, { fails: 1, errors: 0 });
+    t = 50;
+    bar.update(2, 4, { fails: 1, errors: 0 }); // throttled
+    t = 2500;
+    bar.update(4, 4, { fails: 1, errors: 2 });
+    bar.finish();
+    expect(writes).toHaveLength(3);
+    expect(writes[1]).toMatch(/4\/4 files {2}1 failing {2}2 with errors {2}2\.5 s$/);
+    expect(writes[2]).toBe('\r\x1b[2K');
+  });
+});
