@@ -1,0 +1,86 @@
+/**
+ * Drafting marks shared by every figure: dimension lines, a scale bar,
+ * force arrows and labels with a white halo so they stay legible over lines.
+ */
+import { el, num, text, INK, MUTED, TEXT_SIZE, type P } from './svg.js';
+import { niceStep } from './frame.js';
+
+/** A length in metres as a dimension label: "6.40 m" below 10 m, "12.5 m" above. */
+export function metres(x: number): string {
+  const a = Math.abs(x);
+  return `${a < 10 ? x.toFixed(2) : a < 100 ? x.toFixed(1) : x.toFixed(0)} m`;
+}
+
+/** A force in kN with three significant figures, for arrow labels. */
+export function kilonewtons(n: number, unit = 'kN'): string {
+  const k = n / 1000;
+  const a = Math.abs(k);
+  return `${a >= 100 ? k.toFixed(0) : a >= 10 ? k.toFixed(1) : k.toFixed(2)} ${unit}`;
+}
+
+/** A label with a white halo. */
+export function label(x: number, y: number, content: string, anchor: 'start' | 'middle' | 'end' = 'middle', extra: Record<string, string | number> = {}): string {
+  return text(x, y, content, { 'text-anchor': anchor, fill: INK, stroke: '#fff', 'stroke-width': 0.8, 'paint-order': 'stroke', ...extra });
+}
+
+/**
+ * A dimension line between two paper points, offset to one side, with
+ * extension lines, closed arrowheads and the label along it.
+ * @param a first point (mm), b second point (mm)
+ * @param offset distance of the dimension line from a–b (mm; + to the left of a→b)
+ */
+export function dimension(a: P, b: P, offset: number, content: string): string {
+  const len = Math.hypot(b.x - a.x, b.y - a.y);
+  if (len < 1e-6) return '';
+  const ux = (b.x - a.x) / len, uy = (b.y - a.y) / len;
+  const nx = uy, ny = -ux;
+  const a2 = { x: a.x + nx * offset, y: a.y + ny * offset }, b2 = { x: b.x + nx * offset, y: b.y + ny * offset };
+  const ext = (p: P, q: P) => el('line', { x1: p.x + nx * Math.sign(offset) * 0.8, y1: p.y + ny * Math.sign(offset) * 0.8, x2: q.x + nx * Math.sign(offset) * 1.2, y2: q.y + ny * Math.sign(offset) * 1.2 });
+  const head = (p: P, dir: number) => el('path', { d: `M${num(p.x)} ${num(p.y)}l${num(dir * (ux * 2.2 + nx * 0.6))} ${num(dir * (uy * 2.2 + ny * 0.6))}l${num(-dir * nx * 1.2)} ${num(-dir * ny * 1.2)}Z`, fill: INK });
+  let angle = (Math.atan2(uy, ux) * 180) / Math.PI;
+  if (angle >= 90 || angle < -90) angle += 180;
+  // The label sits beside the dimension line, on the side away from the object.
+  const side = Math.sign(offset || 1) * 2;
+  const mid = { x: (a2.x + b2.x) / 2 + nx * side, y: (a2.y + b2.y) / 2 + ny * side };
+  return el('g', { stroke: INK, 'stroke-width': 0.18 },
+    ext(a, a2) + ext(b, b2) + el('line', { x1: a2.x, y1: a2.y, x2: b2.x, y2: b2.y }) + head(a2, 1) + head(b2, -1))
+    + label(mid.x, mid.y, content, 'middle', { transform: `rotate(${num(angle)} ${num(mid.x)} ${num(mid.y)})`, 'dominant-baseline': 'central' });
+}
+
+/**
+ * A scale bar of alternating blocks with its length written under it.
+ * @param scale paper mm per world unit (per m for drawings, per N for force diagrams)
+ * @param at left end of the bar (mm)
+ * @param maxWidth longest bar allowed (mm)
+ * @param unit the unit written, and how many of it make one world unit (kN: 0.001 per N)
+ */
+export function scaleBar(scale: number, at: P, maxWidth = 40, unit = 'm', perWorld = 1): string {
+  const step = niceStep((maxWidth / scale / 4) * perWorld);
+  const seg = (step / perWorld) * scale;
+  let body = '';
+  for (let i = 0; i < 4; i++) {
+    body += el('rect', { x: at.x + i * seg, y: at.y, width: seg, height: 1.2, fill: i % 2 === 0 ? INK : '#fff', stroke: INK, 'stroke-width': 0.15 });
+  }
+  body += text(at.x, at.y + 1.2 + TEXT_SIZE + 0.4, '0', { 'text-anchor': 'middle', fill: MUTED });
+  body += text(at.x + 4 * seg, at.y + 1.2 + TEXT_SIZE + 0.4, `${+(4 * step).toPrecision(6)} ${unit}`, { 'text-anchor': 'middle', fill: MUTED });
+  return el('g', {}, body);
+}
+
+/**
+ * A force arrow ending at `tip` (mm), drawn from `tail`, with a label at the tail.
+ */
+export function arrow(tail: P, tip: P, content: string, colour = INK, anchor: 'start' | 'middle' | 'end' = 'middle'): string {
+  const len = Math.hypot(tip.x - tail.x, tip.y - tail.y);
+  if (len < 1e-6) return '';
+  const ux = (tip.x - tail.x) / len, uy = (tip.y - tail.y) / len;
+  const back = { x: tip.x - ux * 2.6, y: tip.y - uy * 2.6 };
+  const head = `M${num(tip.x)} ${num(tip.y)}L${num(back.x - uy * 1)} ${num(back.y + ux * 1)}L${num(back.x + uy * 1)} ${num(back.y - ux * 1)}Z`;
+  const lx = tail.x - ux * 1.5, ly = tail.y - uy * 1.5 + (uy < -0.5 ? -0.6 : uy > 0.5 ? -0.6 : 0.9);
+  return el('line', { x1: tail.x, y1: tail.y, x2: back.x, y2: back.y, stroke: colour, 'stroke-width': 0.5 })
+    + el('path', { d: head, fill: colour }) + (content ? label(lx, ly, content, anchor, { fill: colour }) : '');
+}
+
+/** A legend entry: a short sample of a line style and its words. */
+export function legendItem(at: P, style: Record<string, string | number>, content: string): string {
+  return el('line', { x1: at.x, y1: at.y, x2: at.x + 8, y2: at.y, ...style }) + text(at.x + 10, at.y + 0.9, content, { fill: INK });
+}

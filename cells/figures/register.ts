@@ -1,0 +1,27 @@
+/** Figure functions, registered for ```figure cells: each returns an SVG string recorded as a figure. */
+import { defineCellFunction, type FieldType } from '../define.js';
+import { section as sectionFigure } from './section.js';
+import { forcePolygon } from './force-polygon.js';
+
+/** The loads record of arch_limit, so a figure can be drawn for the same loads. */
+const ARCH_LOADS: FieldType = {
+  object: {
+    fill_unit_weight: 'N/m^3', fill_level: 'm', dead: 'Pa', live: 'Pa', live_from: 'm', live_to: 'm', P: 'N', P_at: 'm',
+  },
+};
+
+export const section = defineCellFunction({
+  name: 'section',
+  doc: 'Figure: the ring to scale with intrados, extrados, the lines of least and greatest thrust and the hinges: section(r, a[, loads]) with the loads given to arch_limit.',
+  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { ref: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
+  returns: 'text',
+  fn: (ring, limit, loads) => sectionFigure(ring, limit, loads ?? {}),
+});
+
+export const force_polygon = defineCellFunction({
+  name: 'force_polygon',
+  doc: 'Figure: the force polygon of the line of least thrust — load line, pole at H, rays and springing reactions: force_polygon(r, a[, loads]).',
+  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { ref: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
+  returns: 'text',
+  fn: (ring, limit, loads) => forcePolygon(ring, limit, loads ?? {}),
+});
