@@ -4,7 +4,8 @@
  */
 export { interp, clamp } from './table/register.js';
 export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin.js';
+export { arch_ring, arch_limit, thrust_line } from './vault/register-arch.js';
 export { buttress, tie } from './supports/register.js';
 export { barrel_membrane, membrane_at } from './vault/register-membrane.js';
 export { masonry_fk, masonry_fd, unit_weight } from './materials/register.js';
-export { arch_ring, arch_limit, thrust_line } from './vault/register-arch.js';
+export { section, force_polygon } from './figures/register.js';
