@@ -1,8 +1,10 @@
 import type { LinearProgram } from './seidel-lp.js';
 import type { ThrustProgram } from './thrust-program.js';
 
-/** Half-width of the box on the scaled unknowns: an optimum this far out means "unbounded". */
-export const BOX = 1e3;
+/** Half-width of the box on the scaled thrust unknowns (h, v, m): an optimum past half of it means "unbounded". */
+export const BOX = 1e6;
+/** Upper bound on the scaled live multiplier ℓ, far below BOX so that ℓ meets its bound before the thrust does. */
+export const LIVE_BOX = 1e3;
 
 /**
  * The safe theorem as a linear programme (Heyman, "The stone skeleton", Int.
@@ -34,6 +36,6 @@ export function admissibleProgram(p: ThrustProgram, objective: number[], lambdaF
     }
   }
   const lo = [-BOX, -BOX, -BOX, 0].slice(0, d);
-  const hi = [BOX, BOX, BOX, BOX].slice(0, d);
+  const hi = [BOX, BOX, BOX, LIVE_BOX].slice(0, d);
   return { a, b, c: objective, lo, hi };
 }

@@ -1,6 +1,6 @@
 import type { ArchLimit, ArchLoads, ArchRing, Hinge } from './types.js';
 import { seidelLP, type LpSolver } from './seidel-lp.js';
-import { admissibleProgram, BOX } from './admissible-program.js';
+import { admissibleProgram, BOX, LIVE_BOX } from './admissible-program.js';
 import { thrustProgram } from './thrust-program.js';
 import { thrustState } from './thrust-state.js';
 import { touchingJoints } from './touching-joints.js';
@@ -47,7 +47,7 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   if (p.live > 0) {
     const collapse = solve(admissibleProgram(p, [0, 0, 0, 1], true));
     if (!collapse.feasible) notes.push('the ring cannot carry its dead loads alone: no load factor');
-    else if (collapse.x[3]! >= BOX / 2) notes.push('the live load never causes collapse: no load factor');
+    else if (collapse.x[3]! >= LIVE_BOX / 2 || collapse.x.some((x) => Math.abs(x) >= BOX / 2)) notes.push('the live load never causes collapse: no load factor');
     else [load_factor, mechanism] = [thrustState(p, collapse.x).lambda, hinges(collapse.x)];
   }
   const result = {

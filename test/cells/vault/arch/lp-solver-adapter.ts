@@ -7,9 +7,8 @@ import lpSolver from 'javascript-lp-solver';
 import type { LinearProgram, LpOutcome } from '../../../../cells/vault/arch/seidel-lp.js';
 
 /**
- * The same programme as a javascript-lp-solver model in y = x − lo ≥ 0 (the
- * solver's default sign, so no free variables are needed): rows r0… with
- * a·y ≤ b − a·lo, box rows y_i ≤ hi_i − lo_i, maximise obj = c·y.
+ * The same programme as a javascript-lp-solver model: free variables x0…,
+ * rows r0… ≤ b, and the box as rows x_i ≤ hi_i and −x_i ≤ −lo_i.
  */
 export function toSolverModel(lp: LinearProgram) {
   const d = lp.c.length;
@@ -17,17 +16,15 @@ export function toSolverModel(lp: LinearProgram) {
   const variables: Record<string, Record<string, number>> = {};
   const constraints: Record<string, { max: number }> = {};
   for (let i = 0; i < d; i++) {
-    const v: Record<string, number> = { obj: lp.c[i]!, [`box${i}`]: 1 };
+    const v: Record<string, number> = { obj: lp.c[i]!, [`up${i}`]: 1, [`down${i}`]: -1 };
     for (let r = 0; r < m; r++) if (lp.a[r * d + i] !== 0) v[`r${r}`] = lp.a[r * d + i]!;
     variables[`x${i}`] = v;
-    constraints[`box${i}`] = { max: lp.hi[i]! - lp.lo[i]! };
+    constraints[`up${i}`] = { max: lp.hi[i]! };
+    constraints[`down${i}`] = { max: -lp.lo[i]! };
   }
-  for (let r = 0; r < m; r++) {
-    let shift = 0;
-    for (let i = 0; i < d; i++) shift += lp.a[r * d + i]! * lp.lo[i]!;
-    constraints[`r${r}`] = { max: lp.b[r]! - shift };
-  }
-  return { optimize: 'obj', opType: 'max' as const, constraints, variables };
+  for (let r = 0; r < m; r++) constraints[`r${r}`] = { max: lp.b[r]! };
+  const unrestricted = Object.fromEntries(lp.c.map((_, i) => [`x${i}`, 1]));
+  return { optimize: 'obj', opType: 'max' as const, constraints, variables, unrestricted };
 }
 
 // The package is CommonJS typed as a namespace; at run time the default import is the solver itself.
@@ -39,5 +36,5 @@ const solver: Engine = typeof loaded.Solve === 'function' ? loaded : loaded.defa
 export function simplexLP(lp: LinearProgram): LpOutcome {
   const result = solver.Solve(toSolverModel(lp)) as Record<string, number | boolean>;
   if (!result.feasible) return { feasible: false };
-  return { feasible: true, x: lp.c.map((_, i) => Number(result[`x${i}`] ?? 0) + lp.lo[i]!) };
+  return { feasible: true, x: lp.c.map((_, i) => Number(result[`x${i}`] ?? 0)) };
 }

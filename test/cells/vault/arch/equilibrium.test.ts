@@ -1,0 +1,78 @@
+import { describe, it, expect } from 'vitest';
+import { expectClose } from '../../../helpers/close.js';
+import { archRing, type ArchRingOptions } from '../../../../cells/vault/arch/arch-ring.js';
+import { archLimit } from '../../../../cells/vault/arch/arch-limit.js';
+import { thrustProgram } from '../../../../cells/vault/arch/thrust-program.js';
+import { admissibleProgram } from '../../../../cells/vault/arch/admissible-program.js';
+import { thrustState, type ThrustState } from '../../../../cells/vault/arch/thrust-state.js';
+import { seidelLP } from '../../../../cells/vault/arch/seidel-lp.js';
+import { voussoirLoads } from '../../../../cells/vault/arch/voussoir-loads.js';
+import type { ArchLoads, ArchRing } from '../../../../cells/vault/arch/types.js';
+
+/**
+ * Statics of every voussoir, rebuilt from the loads alone (not from the
+ * kernel's linear forms): the joint force F_j = (H, V − Σ loads left of j)
+ * acts at the centre of pressure mid_j + e_j·u_j. Returns the largest force
+ * and moment residuals, the largest |N_j − F_j·n_j| and the least margin
+ * t/2 − |e_j| (Heyman's admissibility).
+ */
+function residuals(ring: ArchRing, loads: ArchLoads, s: ThrustState) {
+  const { fixed, live } = voussoirLoads(ring, ring.thickness, loads);
+  const F = [{ x: s.H, y: s.V }];
+  const load = fixed.map((f, i) => ({ W: f.W + s.lambda * live[i]!.W, Wx: f.W * f.x + s.lambda * live[i]!.W * live[i]!.x }));
+  load.forEach((l) => F.push({ x: s.H, y: F[F.length - 1]!.y - l.W }));
+  const P = ring.joints.map((j, k) => ({ x: j.mid.x + s.joints[k]!.e * j.u.x, y: j.mid.y + s.joints[k]!.e * j.u.y }));
+  const cross = (p: { x: number; y: number }, f: { x: number; y: number }) => p.x * f.y - p.y * f.x;
+  let force = 0;
+  let moment = 0;
+  let normal = 0;
+  let margin = Infinity;
+  load.forEach((l, i) => {
+    // Voussoir i: +F_i at P_i from the left, −F_{i+1} at P_{i+1} from the right, its loads downwards.
+    force = Math.max(force, Math.abs(F[i]!.x - F[i + 1]!.x), Math.abs(F[i]!.y - F[i + 1]!.y - l.W));
+    moment = Math.max(moment, Math.abs(cross(P[i]!, F[i]!) - cross(P[i + 1]!, F[i + 1]!) - l.Wx));
+  });
+  ring.joints.forEach((j, k) => {
+    normal = Math.max(normal, Math.abs(s.joints[k]!.N - (F[k]!.x * j.n.x + F[k]!.y * j.n.y)));
+    margin = Math.min(margin, ring.thickness / 2 - Math.abs(s.joints[k]!.e));
+  });
+  const scale = load.reduce((sum, l) => sum + l.W, 0);
+  return { force: force / scale, moment: moment / (scale * ring.span), normal: normal / scale, margin: margin / ring.thickness };
+}
+
+const cases: [string, ArchRingOptions, ArchLoads][] = [
+  ['semicircle, self-weight', { shape: 'circular', radius: 5, half_angle: Math.PI / 2, thickness: 0.75, unit_weight: 2e4 }, {}],
+  ['pointed, crown point load', { shape: 'pointed', span: 8, thickness: 0.6, unit_weight: 2e4, voussoirs: 60 }, { P: 40e3, P_at: 4 }],
+  ['parabola, fill and part live load', { shape: 'parabolic', span: 9, rise: 3, thickness: 0.5, unit_weight: 2e4, voussoirs: 80 },
+    { fill_unit_weight: 17e3, fill_level: 3.8, live: 8e3, live_from: 1, live_to: 4.5 }],
+  ['ellipse, dead load and offset point load', { shape: 'elliptical', span: 10, rise: 4, thickness: 0.9, unit_weight: 2e4, voussoirs: 90 },
+    { dead: 4e3, P: 30e3, P_at: 2.5 }],
+];
+
+describe('equilibrium of every voussoir in the returned states — statics of a rigid block (any statics text)', () => {
+  for (const [name, options, loads] of cases) {
+    it(`archLimit(${name}): minimum-, maximum-thrust and collapse states balance to 1e-9 and stay within the ring`, () => {
+      const ring = archRing(options);
+      const p = thrustProgram(ring, ring.thickness, loads);
+      const result = archLimit(ring, loads);
+      const states: ThrustState[] = [];
+      for (const [c, free] of [[[-1, 0, 0], false], [[1, 0, 0], false], [[0, 0, 0, 1], true]] as const) {
+        if (free && p.live === 0) continue;
+        const r = seidelLP(admissibleProgram(p, [...c], free));
+        expect(r.feasible).toBe(true);
+        if (r.feasible) states.push(thrustState(p, r.x));
+      }
+      // These are the states arch_limit reports.
+      expectClose(states[0]!.H, result.H_min!, 1e-12);
+      expectClose(states[1]!.H, result.H_max!, 1e-12);
+      if (states[2]) expectClose(states[2].lambda, result.load_factor!, 1e-12);
+      for (const s of states) {
+        const r = residuals(ring, loads, s);
+        expect(r.force).toBeLessThan(1e-9);
+        expect(r.moment).toBeLessThan(1e-9);
+        expect(r.normal).toBeLessThan(1e-9);
+        expect(r.margin).toBeGreaterThan(-1e-9);
+      }
+    });
+  }
+});
