@@ -23,9 +23,12 @@ export function siteConfig(): UserConfig {
     clearScreen: false,
     optimizeDeps: {
       entries: ['index.html'],
-      include: ['mathjs', 'marked', 'katex', '@observablehq/runtime', 'yaml'],
+      include: ['mathjs', 'marked', 'katex', '@observablehq/runtime', 'yaml', 'sanitize-html'],
     },
     server: {
+      // No file watcher: a page that reloads itself because a source file changed would lose a
+      // reviewer's trial values. The document is watched by the server itself (bin/serve/watch.ts).
+      watch: null,
       fs: {
         strict: true,
         allow: [join(REPO_ROOT, 'site'), join(REPO_ROOT, 'engine'), join(REPO_ROOT, 'cells'), join(REPO_ROOT, 'node_modules')],

@@ -8,10 +8,12 @@ export interface DocPayload {
   version: string;
   /** The file as named on the command line. */
   file: string;
+  /** Hash of the bytes and git commit, for the sheet's archive footer (as `vaultbook render` gives it). */
+  archive?: { hash: string; commit?: string; dirty?: boolean };
 }
 
 export type WriteReply =
-  | { ok: true; version: string; changed: string[]; notes: string[]; text: string }
+  | { ok: true; version: string; changed: string[]; notes: string[]; text: string; archive?: DocPayload['archive'] }
   | { ok: false; conflict?: boolean; version?: string; message: string };
 
 /** GET /__doc */

@@ -65,11 +65,11 @@ export function isSameKind(text: string, documentValue: unknown): boolean {
 export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
   const open = (target: HTMLElement) => {
     const name = target.dataset.input!;
-    if (target.querySelector('input.vb-edit')) return;
+    if (target.querySelector('input.lv-edit')) return;
     const opened = host.current(name);
     const field = document.createElement('input');
     field.type = 'text';
-    field.className = 'vb-edit';
+    field.className = 'lv-edit';
     field.value = opened;
     field.spellcheck = false;
     field.setAttribute('aria-label', `value of ${name}`);
@@ -77,14 +77,14 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
     field.size = Math.max(6, opened.length + 2);
     const shown = target.innerHTML;
     target.replaceChildren(field);
-    target.classList.add('vb-editing');
+    target.classList.add('lv-editing');
     field.focus();
     field.select();
     let lastApplied = opened;
     let closing = false;
 
     const report = (message: string | null) => {
-      field.classList.toggle('vb-edit-bad', message !== null);
+      field.classList.toggle('lv-edit-bad', message !== null);
       field.title = message ?? '';
     };
     const applyText = (raw: string, force: boolean) => {
@@ -101,7 +101,7 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
     const close = () => {
       if (closing) return;
       closing = true;
-      target.classList.remove('vb-editing');
+      target.classList.remove('lv-editing');
       // Put back what was shown; the sheet patches the cell with its new value right after.
       if (target.contains(field)) target.innerHTML = shown;
       host.closed(name);
@@ -111,7 +111,7 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
       if (e.key === 'Enter') {
         e.preventDefault();
         applyText(field.value, true);
-        if (!field.classList.contains('vb-edit-bad')) close();
+        if (!field.classList.contains('lv-edit-bad')) close();
       } else if (e.key === 'Escape') {
         e.preventDefault();
         if (lastApplied !== opened) host.apply(name, opened);
@@ -119,7 +119,7 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
       }
     });
     field.addEventListener('blur', () => {
-      if (field.value.trim() !== '' && !field.classList.contains('vb-edit-bad')) applyText(field.value, false);
+      if (field.value.trim() !== '' && !field.classList.contains('lv-edit-bad')) applyText(field.value, false);
       close();
     });
   };

@@ -8,17 +8,17 @@ import { changeBadge, compareToDocument, inputChanges, renderReviewPanel, type P
 import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
 import { SHEET_CSS } from './sheet.js';
 
-const sheetEl = document.getElementById('vb-sheet')!;
-const panelEl = document.getElementById('vb-review')!;
-const statusEl = document.getElementById('vb-status')!;
-const fileEl = document.getElementById('vb-file')!;
+const sheetEl = document.getElementById('lv-sheet')!;
+const panelEl = document.getElementById('lv-review')!;
+const statusEl = document.getElementById('lv-status')!;
+const fileEl = document.getElementById('lv-file')!;
 
 const style = document.createElement('style');
-style.id = 'vb-sheet-css';
+style.id = 'lv-sheet-css';
 style.textContent = SHEET_CSS;
 document.head.prepend(style);
 
-const sheet = new LiveSheet(sheetEl, (el) => el.querySelector('input.vb-edit') !== null);
+const sheet = new LiveSheet(sheetEl, (el) => el.querySelector('input.lv-edit') !== null);
 let loaded: DocPayload = { text: '', version: '', file: '' };
 const changes = new Map<string, ResultChange>();
 let dropped: string[] = [];
@@ -39,19 +39,19 @@ function showChange(id: string): void {
   const change = compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs());
   if (change) changes.set(id, change); else changes.delete(id);
   const html = changeBadge(change);
-  let badge = el.querySelector<HTMLElement>(':scope > .vb-badge');
+  let badge = el.querySelector<HTMLElement>(':scope > .lv-badge');
   if (!html) badge?.remove();
   else {
     if (!badge) {
       badge = document.createElement('div');
-      badge.className = 'vb-badge';
+      badge.className = 'lv-badge';
       el.append(badge);
     }
     if (badge.innerHTML !== html) badge.innerHTML = html;
   }
   const flip = change?.kind === 'check' && change.flipped ? (change.after === false ? 'fail' : 'pass') : null;
-  el.classList.toggle('vb-flipped-fail', flip === 'fail');
-  el.classList.toggle('vb-flipped-pass', flip === 'pass');
+  el.classList.toggle('lv-flipped-fail', flip === 'fail');
+  el.classList.toggle('lv-flipped-pass', flip === 'pass');
 }
 
 function renderPanel(): void {
@@ -61,7 +61,7 @@ function renderPanel(): void {
     dropped, message, writing,
   });
   const reviewing = sheet.overrides.size > 0;
-  document.body.classList.toggle('vb-reviewing', reviewing);
+  document.body.classList.toggle('lv-reviewing', reviewing);
   panelEl.hidden = html === '';
   if (html !== lastPanel) {
     panelEl.innerHTML = html;
@@ -113,7 +113,7 @@ function serially<T>(task: () => Promise<T>): Promise<T> {
 async function show(doc: DocPayload, why: 'start' | 'disk' | 'write'): Promise<void> {
   const scroll = window.scrollY;
   loaded = doc;
-  const result = await sheet.load(doc.text, doc.file);
+  const result = await sheet.load(doc.text, doc.file, doc.archive);
   dropped = result.dropped.map((d) => d.name);
   if (why === 'disk') {
     message = { kind: 'info', text: `${doc.file} changed on disk and was reloaded.${sheet.overrides.size ? ' Your trial values are kept.' : ''}` };
@@ -139,11 +139,11 @@ function writeBack(): Promise<void> {
     const reply = await writeInputs(loaded.version, values);
     writing = false;
     if (reply.ok) {
-      await show({ text: reply.text, version: reply.version, file: loaded.file }, 'write');
+      await show({ text: reply.text, version: reply.version, file: loaded.file, archive: reply.archive }, 'write');
       const names = reply.changed.join(', ');
       message = { kind: 'ok', text: `Wrote ${reply.changed.length} input${reply.changed.length === 1 ? '' : 's'} into ${loaded.file}: ${names}.${reply.notes.length ? ' ' + reply.notes.join(' ') : ''}` };
     } else {
-      message = { kind: 'error', text: reply.message };
+      message = { kind: 'error', text: reply.message, conflict: reply.conflict === true };
     }
     renderPanel();
     document.dispatchEvent(new CustomEvent('vaultbook:written', { detail: reply }));
@@ -177,7 +177,7 @@ panelEl.addEventListener('click', (e) => {
   renderPanel();
 });
 
-document.getElementById('vb-print')!.addEventListener('click', () => window.print());
+document.getElementById('lv-print')!.addEventListener('click', () => window.print());
 
 enableEditing(sheetEl, {
   current: (name) => sheet.sourceOf(name),

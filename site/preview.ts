@@ -9,7 +9,7 @@
  */
 import { compile, startSession } from '../engine/index.js';
 import type { Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
-import { makeContext, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, type SheetContext } from './sheet.js';
+import { makeRenderContext, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
 
 export interface PatchEvent {
   /** Cells whose state changed in this turn (patched or not). */
@@ -44,7 +44,7 @@ export class LiveSheet {
   baseline = new Map<string, CellState>();
   /** Inputs set on the page: name → value text. */
   readonly overrides = new Map<string, string>();
-  private ctx!: SheetContext;
+  private ctx!: RenderContext;
   private cells = new Map<string, HTMLElement>();
   private parts = new Map<string, HTMLElement>();
   private lastHtml = new Map<string, string>();
@@ -69,7 +69,7 @@ export class LiveSheet {
    * Compiles and shows a document text, then re-applies the page's overrides where the inputs still exist.
    * @param text the document as read from disk
    */
-  async load(text: string, file: string): Promise<LoadResult> {
+  async load(text: string, file: string, archive?: ArchiveInfo): Promise<LoadResult> {
     this.unsubscribe?.();
     this.session?.dispose();
     this.doc = compile(text, { file });
@@ -92,8 +92,10 @@ export class LiveSheet {
       }
     }
     await this.session.settle();
-    this.ctx = makeContext(this.doc, this.session.states, this.session.warnings);
-    this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options: { standalone: false } });
+    // The context reads session.states live, so one context serves every later patch.
+    const options = { standalone: false, ...(archive ? { archive } : {}) };
+    this.ctx = makeRenderContext(this.doc, this.session.states, this.session.warnings, options);
+    this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options });
     this.index();
     this.unsubscribe = this.session.subscribe((id, state) => this.mark(id, state));
     return { dropped };
@@ -108,9 +110,18 @@ export class LiveSheet {
     this.held.clear();
     for (const el of this.root.querySelectorAll<HTMLElement>('[data-cell]')) this.cells.set(el.dataset.cell!, el);
     for (const el of this.root.querySelectorAll<HTMLElement>('[data-part]')) this.parts.set(el.dataset.part!, el);
-    const states = this.session.states;
-    this.lastHtml.set('@check-summary', renderCheckSummary(this.doc, states));
-    this.lastHtml.set('@diagnostics', renderDiagnostics(this.doc, states, this.session.warnings));
+    for (const [part, render] of this.partRenderers()) this.lastHtml.set(`@${part}`, render());
+  }
+
+  /** The sheet's parts that depend on every cell: status banner, checks summary, diagnostics list. */
+  private partRenderers(): Array<[string, () => string]> {
+    const { doc, ctx } = this;
+    const states = this.session.states, warnings = this.session.warnings;
+    return [
+      ['status', () => renderStatus(doc, states, warnings)],
+      ['check-summary', () => renderCheckSummary(doc, states, ctx)],
+      ['diagnostics', () => renderDiagnostics(doc, states, warnings)],
+    ];
   }
 
   cellElement(id: string): HTMLElement | undefined {
@@ -198,8 +209,7 @@ export class LiveSheet {
       this.shown.set(id, state);
     }
     this.dirty.clear();
-    this.patchPart('check-summary', () => renderCheckSummary(this.doc, states));
-    this.patchPart('diagnostics', () => renderDiagnostics(this.doc, states, this.session.warnings));
+    for (const [part, render] of this.partRenderers()) this.patchPart(part, render);
     for (const s of states.values()) if (s.status === 'pending') return;
     const event: PatchEvent = { changed: [...this.turnChanged], patched: this.turnPatched, at: performance.now() };
     this.turnChanged = new Set();

@@ -137,20 +137,20 @@ export function changeBadge(change: ResultChange | null): string {
   if (!change) return '';
   switch (change.kind) {
     case 'quantity':
-      return `<span class="vb-delta ${change.sign > 0 ? 'vb-up' : 'vb-down'}" title="document: ${esc(change.before)}">`
+      return `<span class="lv-delta ${change.sign > 0 ? 'lv-up' : 'lv-down'}" title="document: ${esc(change.before)}">`
         + `Δ ${esc(change.delta)}${change.percent ? ` <small>(${esc(change.percent)})</small>` : ''}</span>`;
     case 'check':
       if (change.flipped) {
         const fails = change.after === false;
-        return `<span class="vb-flip ${fails ? 'vb-flip-fail' : 'vb-flip-pass'}" role="alert">`
+        return `<span class="lv-flip ${fails ? 'lv-flip-fail' : 'lv-flip-pass'}" role="alert">`
           + `${fails ? '✗ NOW FAILS' : '✓ NOW HOLDS'} — the document's values give: ${verdict(change.before)}`
           + `${change.utilBefore !== null || change.utilAfter !== null ? ` (utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)})` : ''}</span>`;
       }
-      return `<span class="vb-delta">utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)}</span>`;
+      return `<span class="lv-delta">utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)}</span>`;
     case 'text':
-      return `<span class="vb-delta" title="document: ${esc(change.before)}">changed</span>`;
+      return `<span class="lv-delta" title="document: ${esc(change.before)}">changed</span>`;
     case 'state':
-      return `<span class="vb-delta vb-state">document: ${esc(change.before)} → now: ${esc(change.after)}</span>`;
+      return `<span class="lv-delta lv-state">document: ${esc(change.before)} → now: ${esc(change.after)}</span>`;
   }
 }
 
@@ -162,7 +162,7 @@ export interface PanelModel {
   /** Inputs kept from before a reload that the new document no longer has. */
   dropped: string[];
   /** A message after a write (ok) or a refusal (error). */
-  message: { kind: 'ok' | 'error' | 'info'; text: string } | null;
+  message: { kind: 'ok' | 'error' | 'info'; text: string; conflict?: boolean } | null;
   writing: boolean;
 }
 
@@ -172,24 +172,27 @@ export interface PanelModel {
  */
 export function renderReviewPanel(m: PanelModel): string {
   const rows = m.inputs.map((i) => `<tr data-review-input="${esc(i.name)}"><th scope="row"><a href="#" data-goto="${esc(i.name)}">${esc(i.name)}</a></th>`
-    + `<td class="vb-from">${esc(i.from)}</td><td class="vb-arrow">→</td><td class="vb-to">${esc(i.to)}</td>`
+    + `<td class="lv-from">${esc(i.from)}</td><td class="lv-arrow">→</td><td class="lv-to">${esc(i.to)}</td>`
     + `<td><button type="button" data-action="reset-one" data-name="${esc(i.name)}" title="back to ${esc(i.from)}">undo</button></td></tr>`).join('');
   const flips = m.flips.length
-    ? `<div class="vb-flips" role="alert"><strong>${m.flips.length} check${m.flips.length === 1 ? '' : 's'} changed verdict:</strong><ul>`
-      + m.flips.map((f) => `<li class="${f.after === false ? 'vb-flip-fail' : 'vb-flip-pass'}"><a href="#" data-goto="${esc(f.id)}">${esc(f.label)}</a> ${f.after === false ? 'now FAILS' : f.after ? 'now holds' : 'has no verdict'}</li>`).join('')
+    ? `<div class="lv-flips" role="alert"><strong>${m.flips.length} check${m.flips.length === 1 ? '' : 's'} changed verdict:</strong><ul>`
+      + m.flips.map((f) => `<li class="${f.after === false ? 'lv-fliprow-fail' : 'lv-fliprow-pass'}"><a href="#" data-goto="${esc(f.id)}">${esc(f.label)}</a> ${f.after === false ? 'now FAILS' : f.after ? 'now holds' : 'has no verdict'}</li>`).join('')
       + '</ul></div>'
     : '';
   const dropped = m.dropped.length
-    ? `<p class="vb-dropped">No longer in the document, so no longer applied: ${m.dropped.map(esc).join(', ')}</p>`
+    ? `<p class="lv-dropped">No longer in the document, so no longer applied: ${m.dropped.map(esc).join(', ')}</p>`
     : '';
-  const msg = m.message ? `<p class="vb-msg vb-msg-${m.message.kind}" role="status">${esc(m.message.text)}</p>` : '';
+  const msg = m.message
+    ? `<p class="lv-msg lv-msg-${m.message.kind}" role="status">${esc(m.message.text)}`
+      + `${m.message.conflict ? ' <button type="button" data-action="reload">Load the version on disk</button>' : ''}</p>`
+    : '';
   if (!m.inputs.length) return `${dropped}${msg}`;
   return `<h2>Trial values <small>against ${esc(m.file)}</small></h2>`
-    + `<table class="vb-inputs"><thead><tr><th>input</th><th>document</th><th></th><th>now</th><th></th></tr></thead><tbody>${rows}</tbody></table>`
+    + `<table class="lv-inputs"><thead><tr><th>input</th><th>document</th><th></th><th>now</th><th></th></tr></thead><tbody>${rows}</tbody></table>`
     + flips
-    + `<p class="vb-count">${m.changedResults} result${m.changedResults === 1 ? '' : 's'} differ from the document.</p>`
+    + `<p class="lv-count">${m.changedResults} result${m.changedResults === 1 ? '' : 's'} differ from the document.</p>`
     + dropped
-    + `<div class="vb-actions"><button type="button" data-action="reset-all">Back to the document's values</button>`
+    + `<div class="lv-actions"><button type="button" data-action="reset-all">Back to the document's values</button>`
     + `<button type="button" data-action="write"${m.writing ? ' disabled' : ''}>Write these inputs into the document</button></div>`
     + msg;
 }

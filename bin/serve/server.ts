@@ -21,6 +21,7 @@ import { rewriteGivenValues, RewriteError } from './rewrite.js';
 import { writeFileAtomic, removeStaleTemps } from './atomic.js';
 import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
+import { archiveInfo } from '../commands/render.js';
 
 export interface ServeOptions {
   /** The calc document to serve (and the only file ever written). */
@@ -148,7 +149,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     writeFileAtomic(file, bytes);
     const version = versionOf(bytes);
     watcher?.known(version);
-    return sendJson(res, 200, { ok: true, version, changed: result.changed, notes: result.notes, text: result.text });
+    return sendJson(res, 200, { ok: true, version, changed: result.changed, notes: result.notes, text: result.text, archive: await archiveInfo(file, bytes) });
   };
 
   const plugin: Plugin = {
@@ -176,7 +177,9 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
         if (verdict.name === 'doc') {
           if (req.method !== 'GET' && req.method !== 'HEAD') return sendJson(res, 405, { ok: false, message: 'use GET' });
           const d = readDoc();
-          return sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file) });
+          // The same archive identification `vaultbook render` prints in the sheet's footer.
+          void archiveInfo(file, d.bytes).then((archive) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive }));
+          return;
         }
         write(req, res).catch((e) => sendJson(res, 500, { ok: false, message: `writing ${shownName} failed: ${(e as Error).message}; the file on disk is unchanged` }));
       });

@@ -63,7 +63,7 @@ describe('review panel', () => {
       { name: 't', from: '0.23 m', to: '0.3 m', line: 23 },
     ]);
     const html = renderReviewPanel({ file: 'barrel.md', inputs, flips: [{ id: 'c_third', label: 'middle third', after: false }], changedResults: 9, dropped: ['old'], message: null, writing: false });
-    expect(html).toContain('<td class="vb-from">4.8 m</td>');
+    expect(html).toContain('<td class="lv-from">4.8 m</td>');
     expect(html).toContain('middle third</a> now FAILS');
     expect(html).toContain('no longer applied: old');
     expect(html).toContain('data-action="write"');
