@@ -15,7 +15,7 @@ export function metres(x: number): string {
 export function kilonewtons(n: number, unit = 'kN'): string {
   const k = n / 1000;
   const a = Math.abs(k);
-  return `${a >= 100 ? k.toFixed(0) : a >= 10 ? k.toFixed(1) : k.toFixed(2)} ${unit}`;
+  return `${(a >= 100 ? k.toFixed(0) : a >= 10 ? k.toFixed(1) : k.toFixed(2)).replace(/^-/, '−')} ${unit}`;
 }
 
 /** A label with a white halo. */

@@ -2,6 +2,8 @@
 import { defineCellFunction, type FieldType } from '../define.js';
 import { section as sectionFigure } from './section.js';
 import { forcePolygon } from './force-polygon.js';
+import { membranePlot } from './membrane-plot.js';
+import { vaultPlan } from './vault-plan.js';
 
 /** The loads record of arch_limit, so a figure can be drawn for the same loads. */
 const ARCH_LOADS: FieldType = {
@@ -24,4 +26,20 @@ export const force_polygon = defineCellFunction({
   params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { ref: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
   returns: 'text',
   fn: (ring, limit, loads) => forcePolygon(ring, limit, loads ?? {}),
+});
+
+export const membrane_plot = defineCellFunction({
+  name: 'membrane_plot',
+  doc: 'Figure: membrane forces N_φ, N_x, N_xφ of a barrel vault along the profile and along the generatrix: membrane_plot(m) with m from barrel_membrane.',
+  params: [{ name: 'm', type: { ref: 'barrel_membrane' } }],
+  returns: 'text',
+  fn: membranePlot,
+});
+
+export const vault_plan = defineCellFunction({
+  name: 'vault_plan',
+  doc: 'Figure: a cross vault in plan (webs, groins, corner thrusts) and in elevation (thrust at its height, corner load): vault_plan(v) with v from groin_vault.',
+  params: [{ name: 'vault', type: { ref: 'groin_vault' } }],
+  returns: 'text',
+  fn: vaultPlan,
 });

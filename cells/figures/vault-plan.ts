@@ -1,0 +1,122 @@
+/**
+ * vault_plan(v): a cross vault in plan — webs, groins and the thrusts at the
+ * corners — and in elevation across the x-span, with the corner thrust at
+ * the height where it acts (the statics of groin_vault: Heyman, Equilibrium
+ * of Shell Structures, 1977, cross-vault chapter).
+ */
+import type { GroinVault } from '../vault/groin/groin-vault.js';
+import type { BarrelSection } from '../vault/groin/sections.js';
+import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
+import { fitFrame } from './frame.js';
+import { arrow, dimension, kilonewtons, label, metres, scaleBar } from './marks.js';
+import { markFigure } from './registry.js';
+
+const WIDTH = 170;
+const RED = '#a3162b';
+
+/** Points of a section's middle surface from the left springing to the right, offset d along the normal. */
+function arch(sec: BarrelSection, d: number, n = 36): P[] {
+  const right: P[] = [];
+  for (let i = 0; i <= n; i++) {
+    const phi = sec.phiCrown + ((Math.PI / 2 - sec.phiCrown) * i) / n;
+    right.push({ x: sec.u(phi) + d * Math.sin(phi), y: sec.z(phi) + d * Math.cos(phi) });
+  }
+  const left = right.map((p) => ({ x: -p.x, y: p.y })).reverse();
+  // A pointed section's two halves meet at the ridge; a round one shares its crown point.
+  return sec.phiCrown > 0 ? [...left, ...right] : [...left, ...right.slice(1)];
+}
+
+/**
+ * Draws a cross vault in plan and in elevation with its corner thrusts.
+ * @param v from groin_vault (SI)
+ * @returns an SVG string, recorded as a figure
+ * @example vault_plan(v)
+ */
+export function vaultPlan(v: GroinVault): string {
+  const { x: sx, y: sy } = v.model;
+  const ex = sx.section.e, ey = sy.section.e, h = sx.section.h;
+  const reach = Math.max(ex, ey) * 0.55;
+  // One scale for plan and elevation: plan in the left box, elevation in the right.
+  const planBox = { left: 8, top: 14, width: 72, height: 72 };
+  const frameP = fitFrame({ xMin: -ex - reach, xMax: ex + reach, yMin: -ey - reach, yMax: ey + reach }, planBox);
+  const elevTop = v.crown + h;
+  const frameE0 = fitFrame({ xMin: -ex - reach, xMax: ex + reach, yMin: -0.15 * ex, yMax: elevTop + 0.1 * ex }, { left: 90, top: 14, width: 76, height: 72 });
+  const scale = Math.min(frameP.scale, frameE0.scale);
+  const P0 = { x: planBox.left + planBox.width / 2, y: planBox.top + planBox.height / 2 };
+  const pl = (p: P): P => ({ x: P0.x + p.x * scale, y: P0.y - p.y * scale });
+  const baseE = 14 + 72 - 0.15 * ex * scale - 8;
+  const E0 = { x: 90 + 76 / 2 };
+  const ev = (p: P): P => ({ x: E0.x + p.x * scale, y: baseE - p.y * scale });
+  let body = text(8, 6, 'PLAN', { fill: INK, 'font-weight': 'bold' }) + text(90, 6, 'ELEVATION across the x-span', { fill: INK, 'font-weight': 'bold' });
+  // Plan: the bay, the groins where the two barrels meet (at equal heights), and generator lines on each web.
+  const corners = [{ x: ex, y: ey }, { x: -ex, y: ey }, { x: -ex, y: -ey }, { x: ex, y: -ey }];
+  body += el('path', { d: pathData(corners.map(pl), true), fill: '#f1f3f5', stroke: INK, 'stroke-width': 0.45 });
+  const groin: P[] = [];
+  for (let i = 0; i <= 40; i++) {
+    const z = sx.section.s + (v.crown - sx.section.s) * (i / 40) + 0;
+    groin.push({ x: sx.section.planAt(Math.max(z, sy.section.s)), y: sy.section.planAt(Math.max(z, sx.section.s)) });
+  }
+  const groinPaths = [[1, 1], [-1, 1], [-1, -1], [1, -1]].map(([a, b]) => el('path', { d: pathData(groin.map((p) => pl({ x: a! * p.x, y: b! * p.y }))), stroke: INK, 'stroke-width': 0.5 })).join('');
+  // Generators: web x (barrel spanning x) runs along y, between a groin and the side y = ±e_y.
+  let gens = '';
+  for (let k = -4; k <= 4; k++) {
+    const gx = (k / 5) * ex, gy = (k / 5) * ey;
+    const yAtGroin = groinAt(groin, 'x', Math.abs(gx)), xAtGroin = groinAt(groin, 'y', Math.abs(gy));
+    for (const sgn of [1, -1]) {
+      gens += el('line', { x1: pl({ x: gx, y: sgn * yAtGroin }).x, y1: pl({ x: gx, y: sgn * yAtGroin }).y, x2: pl({ x: gx, y: sgn * ey }).x, y2: pl({ x: gx, y: sgn * ey }).y });
+      gens += el('line', { x1: pl({ x: sgn * xAtGroin, y: gy }).x, y1: pl({ x: sgn * xAtGroin, y: gy }).y, x2: pl({ x: sgn * ex, y: gy }).x, y2: pl({ x: sgn * ex, y: gy }).y });
+    }
+  }
+  body += el('g', { stroke: MUTED, 'stroke-width': 0.12 }, gens) + groinPaths;
+  body += label(pl({ x: 0, y: ey * 0.62 }).x, pl({ x: 0, y: ey * 0.62 }).y, 'web x') + label(pl({ x: ex * 0.62, y: 0 }).x, pl({ x: ex * 0.62, y: 0 }).y + 0.9, 'web y');
+  // Corner thrusts, to a common force scale; the resultant heavier.
+  const fmax = Math.max(v.H_corner, 1e-9), len = (f: number) => (f / fmax) * reach * 0.85 * scale;
+  for (const c of corners) {
+    const q = pl(c), sx1 = Math.sign(c.x), sy1 = Math.sign(c.y);
+    body += el('rect', { x: q.x - 1.3, y: q.y - 1.3, width: 2.6, height: 2.6, fill: INK });
+    body += arrow(q, { x: q.x + sx1 * len(v.H_corner_x), y: q.y }, '', '#2c4a6b') + arrow(q, { x: q.x, y: q.y - sy1 * len(v.H_corner_y) }, '', '#2c4a6b');
+    const r = { x: q.x + sx1 * len(v.H_corner_x), y: q.y - sy1 * len(v.H_corner_y) };
+    body += arrow(q, r, '', RED);
+  }
+  const q = pl(corners[0]!);
+  body += label(q.x + len(v.H_corner_x) + 1, q.y - len(v.H_corner_y) - 1.5, `H = ${kilonewtons(v.H_corner)}`, 'end', { fill: RED, 'font-weight': 'bold' });
+  body += label(q.x + len(v.H_corner_x) + 1.5, q.y + 0.9, `H_x = ${kilonewtons(v.H_corner_x)}`, 'start', { fill: '#2c4a6b' });
+  body += label(q.x - 1.5, q.y - len(v.H_corner_y) + 2, `H_y = ${kilonewtons(v.H_corner_y)}`, 'end', { fill: '#2c4a6b' });
+  body += dimension(pl({ x: -ex, y: -ey }), pl({ x: ex, y: -ey }), -4, `${metres(2 * ex)} (x)`);
+  body += dimension(pl({ x: -ex, y: ey }), pl({ x: -ex, y: -ey }), -(reach * 0.85 * scale + 4), `${metres(2 * ey)} (y)`);
+  // Elevation: the x-barrel's shell, the piers, the thrust at its height and the corner load.
+  const outline = [...arch(sx.section, h), ...arch(sx.section, -h).reverse()];
+  body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
+  const ground = ev({ x: 0, y: 0 }).y;
+  for (const side of [-1, 1]) {
+    const a = ev({ x: side * (ex - h), y: 0 }), b = ev({ x: side * (ex + h), y: sx.section.s });
+    if (sx.section.s > 0) body += el('rect', { x: Math.min(a.x, b.x), y: b.y, width: Math.abs(b.x - a.x), height: a.y - b.y, fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
+    const c = ev({ x: side * ex, y: v.z_thrust });
+    const tip = { x: c.x + side * len(v.H_corner_x), y: c.y };
+    body += arrow(c, tip, '', RED) + el('circle', { cx: c.x, cy: c.y, r: 0.8, fill: RED });
+    body += arrow({ x: c.x, y: ground + 0.8 }, { x: c.x, y: ground + 9 }, '', INK);
+    if (side > 0) {
+      body += label(c.x + 1, c.y + 3.8, `H_x = ${kilonewtons(v.H_corner_x)}`, 'start', { fill: RED });
+      body += label(c.x + 1.5, ground + 7, `V = ${kilonewtons(v.V_corner)}`, 'start');
+    }
+  }
+  body += el('line', { x1: ev({ x: -ex - reach, y: 0 }).x, y1: ground, x2: ev({ x: ex + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
+  body += dimension(ev({ x: -ex, y: 0 }), ev({ x: -ex, y: v.z_thrust }), len(v.H_corner_x) + 3, `z = ${metres(v.z_thrust)}`);
+  body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), -3, `crown ${metres(v.crown)}`);
+  body += scaleBar(scale, { x: 8, y: 92 }, 40);
+  body += text(90, 94, 'Corners at the springing of the middle surface; thrust per corner.', { fill: MUTED, 'font-size': 2.2 });
+  return markFigure(svgDocument(WIDTH, 100, 'Cross vault in plan and elevation with its corner thrusts', body));
+}
+
+/** Where a groin crosses a generator line: for web x the |y| of the groin at plan x, for web y the |x| at plan y. */
+function groinAt(groin: P[], web: 'x' | 'y', at: number): number {
+  const key = web === 'x' ? 'x' : 'y', other = web === 'x' ? 'y' : 'x';
+  for (let i = 1; i < groin.length; i++) {
+    const a = groin[i - 1]!, b = groin[i]!;
+    if ((a[key] - at) * (b[key] - at) <= 0 && a[key] !== b[key]) {
+      const s = (at - a[key]) / (b[key] - a[key]);
+      return a[other] + s * (b[other] - a[other]);
+    }
+  }
+  return groin[groin.length - 1]![other];
+}
