@@ -4,6 +4,7 @@ import { section as sectionFigure } from './section.js';
 import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
+import { supportFigure } from './support-figure.js';
 
 /** The loads record of arch_limit, so a figure can be drawn for the same loads. */
 const ARCH_LOADS: FieldType = {
@@ -42,4 +43,20 @@ export const vault_plan = defineCellFunction({
   params: [{ name: 'vault', type: { ref: 'groin_vault' } }],
   returns: 'text',
   fn: vaultPlan,
+});
+
+/** The options record of buttress, so the figure can rebuild the support's geometry. */
+const SUPPORT_OPTIONS: FieldType = {
+  object: {
+    height: 'm', width: 'm', depth: 'm', unit_weight: 'N/m^3', T: 'N', z_T: 'm', V: 'N', x_V: 'm',
+    steps: { list: { object: { height: 'm', width: 'm' } } }, friction: '1', bearing: 'Pa',
+  },
+};
+
+export const support_figure = defineCellFunction({
+  name: 'support_figure',
+  doc: 'Figure: a wall or buttress in elevation with the thrust, the path of the resultant and the middle third: support_figure(b, options) with the options given to buttress.',
+  params: [{ name: 'support', type: { ref: 'buttress' } }, { name: 'options', type: SUPPORT_OPTIONS }],
+  returns: 'text',
+  fn: supportFigure,
 });

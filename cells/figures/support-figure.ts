@@ -1,0 +1,83 @@
+/**
+ * support_figure(b, options): a wall or buttress in elevation, with the
+ * vault's thrust, the path of the resultant through every level and the
+ * middle third of each section (rigid-block statics with no tension;
+ * Heyman, The Stone Skeleton, 1995, on buttresses).
+ */
+import type { Buttress } from '../supports/buttress.js';
+import { buttressBlocks, type ButtressOptions } from '../supports/blocks.js';
+import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
+import { fitFrame } from './frame.js';
+import { arrow, dimension, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { markFigure } from './registry.js';
+
+const WIDTH = 170;
+const RED = '#a3162b';
+const PATH = { stroke: RED, 'stroke-width': 0.6 };
+const THIRD = { stroke: '#2c4a6b', 'stroke-width': 0.3, 'stroke-dasharray': '1.6 1' };
+
+/**
+ * Draws a support with its line of thrust.
+ * @param b from buttress (SI)
+ * @param o the options given to buttress (the result does not carry its geometry)
+ * @returns an SVG string, recorded as a figure
+ * @example support_figure(b, opts)
+ */
+export function supportFigure(b: Buttress, o: ButtressOptions): string {
+  const blocks = buttressBlocks(o);
+  const B = blocks[0]!.b;
+  const height = blocks[blocks.length - 1]!.z0 + blocks[blocks.length - 1]!.h;
+  if (Math.abs(B - b.base_width) > 1e-9 * B || b.path.length === 0 || Math.abs(b.path[b.path.length - 1]!.x - b.x_R) > 1e-6 * B) {
+    throw new RangeError('support_figure: these options do not describe the support of this buttress result; pass the same options as to buttress');
+  }
+  // World: X from the inner (vault) face, positive outwards; z up from the base.
+  const margin = Math.max(height, B) * 0.12;
+  const frame = fitFrame({ xMin: -B * 1.2 - margin, xMax: B + margin * 2, yMin: -margin * 0.6, yMax: height + margin * 0.5 }, { left: 10, top: 16, width: 100, height: 110 });
+  const at = (X: number, z: number): P => frame.at({ x: X, y: z });
+  let body = text(10, 6, 'Support in elevation: the thrust, the path of the resultant and the middle third', { fill: INK, 'font-weight': 'bold' });
+  for (const blk of blocks) {
+    const a = at(0, blk.z0 + blk.h), c = at(blk.b, blk.z0);
+    body += el('rect', { x: a.x, y: a.y, width: c.x - a.x, height: c.y - a.y, fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
+    for (const f of [1 / 3, 2 / 3]) {
+      const p = at(blk.b * f, blk.z0), q = at(blk.b * f, blk.z0 + blk.h);
+      body += el('line', { x1: p.x, y1: p.y, x2: q.x, y2: q.y, ...THIRD });
+    }
+  }
+  // Ground under the base.
+  const g0 = at(-B * 0.3, 0), g1 = at(B * 1.3, 0);
+  body += el('line', { x1: g0.x, y1: g0.y, x2: g1.x, y2: g1.y, stroke: INK, 'stroke-width': 0.4 });
+  for (let x = g0.x; x < g1.x - 0.1; x += 1.6) body += el('line', { x1: x, y1: g0.y + 1.6, x2: x + 1.6, y2: g0.y, stroke: MUTED, 'stroke-width': 0.15 });
+  // The path of the resultant; x of the path is measured from the outer toe.
+  const path = b.path.map((p) => at(B - p.x, p.z));
+  body += el('path', { d: pathData(path), ...PATH });
+  // Thrust of the vault and its vertical load, to one force scale.
+  const fmax = Math.max(o.T, o.V ?? 0, 1e-9), len = (f: number) => (f / fmax) * Math.min(B * frame.scale, 14);
+  const tHead = at(0, o.z_T);
+  body += arrow({ x: tHead.x - len(o.T), y: tHead.y }, tHead, '', INK);
+  body += label(tHead.x - len(o.T) / 2, tHead.y - 1.6, `T = ${kilonewtons(o.T)}`);
+  if (o.V) {
+    const v = at(o.x_V ?? 0, height);
+    body += arrow({ x: v.x, y: v.y - len(o.V) }, v, '', INK) + label(v.x + 1.5, v.y - len(o.V) / 2, `V = ${kilonewtons(o.V)}`, 'start');
+  }
+  // The resultant on the base.
+  const base = at(B - b.x_R, 0);
+  body += arrow({ x: base.x, y: base.y - 9 }, { x: base.x, y: base.y + 0.2 }, '', RED);
+  body += label(base.x + 1.5, base.y - 5, `N = ${kilonewtons(b.N)}`, 'start', { fill: RED });
+  body += dimension(at(0, 0), at(B, 0), -9, `base ${metres(B)}`);
+  body += dimension(at(B, 0), at(B, height), -(B * 0.1 * frame.scale + 6), `height ${metres(height)}`);
+  body += dimension(at(0, 0), at(0, o.z_T), 5, `z_T ${metres(o.z_T)}`);
+  // Verdicts and the legend, on the right.
+  const lines = [
+    [`resultant at the base: ${metres(b.x_R)} from the outer toe,`, INK],
+    [`eccentricity e = ${metres(b.e)} from the centre of the base`, INK],
+    [b.middle_third ? 'within the middle third of the base' : b.in_base ? 'OUTSIDE the middle third: part of the base lifts' : 'OUTSIDE the base: the support overturns', b.middle_third ? INK : RED],
+    [`overturning: safety factor ${b.sf_overturning.toFixed(2)}`, b.sf_overturning < 1 ? RED : INK],
+    [`least base width: ${metres(b.width_min_third)} (middle third), ${metres(b.width_min_base)} (in base)`, INK],
+    ...(b.sigma_max !== undefined ? [[`base pressure: max ${kilonewtons(b.sigma_max, 'kN/m²')}, min ${kilonewtons(b.sigma_min ?? 0, 'kN/m²')}`, INK]] : []),
+    ...(b.sf_sliding !== undefined ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
+  ] as Array<[string, string]>;
+  body += lines.map(([t, c], i) => text(112, 30 + i * 5, t, { fill: c, 'font-weight': c === RED ? 'bold' : undefined, 'font-size': 2.3 })).join('');
+  body += legendItem({ x: 112, y: 20 }, PATH, 'path of the resultant') + legendItem({ x: 112, y: 24.5 }, THIRD, 'middle third of each section');
+  body += scaleBar(frame.scale, { x: 10, y: 132 }, 35);
+  return markFigure(svgDocument(WIDTH, 140, 'Support in elevation with the path of the resultant and the middle third', body));
+}
