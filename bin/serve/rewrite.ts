@@ -151,7 +151,7 @@ export function rewriteGivenValues(source: string, changes: Record<string, strin
     }
   }
   const text = lines.map((l) => l.body + l.eol).join('');
-  verify(source, text, targets.map((t) => [t.cell.name!, t.value]));
+  if (targets.length) verify(doc.graph.cells, text, targets.map((t) => [t.cell.name!, t.value]));
   return { text, changed: targets.map((t) => t.cell.name!).reverse(), notes };
 }
 
@@ -160,8 +160,7 @@ export function rewriteGivenValues(source: string, changes: Record<string, strin
  * unchanged except the rewritten inputs, which must read exactly the new value.
  * A failure here is a bug in the rewrite, so nothing is written.
  */
-function verify(before: string, after: string, changed: Array<[string, string]>): void {
-  const a = compile(before).graph.cells;
+function verify(a: Cell[], after: string, changed: Array<[string, string]>): void {
   const b = compile(after).graph.cells;
   const want = new Map(changed);
   const same = a.length === b.length && a.every((c, i) => {
