@@ -24,6 +24,9 @@ const PREFERRED: Array<[string, (v: number) => string]> = [
 const PREFERRED_UNITS = PREFERRED.map(([si, pick]) => [math.unit(1, si), pick] as const);
 const IMPERIAL = new Set(['ft', 'inch', 'in', 'yd', 'mi', 'lbf', 'lb', 'lbm', 'kip', 'kips', 'psi', 'ksi', 'psf', 'pcf', 'plf', 'klf', 'kipft']);
 
+/** Magnitudes below this are floating-point noise in any quantity a vault calc shows. */
+export const NOISE = 1e-10;
+
 export interface FormatOptions {
   /** Significant figures (default 4). */
   sigfigs?: number;
@@ -33,7 +36,8 @@ export interface FormatOptions {
 export function formatNumber(x: number, sigfigs = 4): string {
   if (Number.isNaN(x)) return 'NaN';
   if (!Number.isFinite(x)) return x > 0 ? '∞' : '−∞';
-  if (x === 0) return '0';
+  // Round-off from the kernel (a hinge at the crown at 1e-14 deg) is shown as the zero it is.
+  if (Math.abs(x) < NOISE) return '0';
   const text = math.format(x, { precision: sigfigs, lowerExp: -4, upperExp: 9 });
   return text.replace(/^-/, '−');
 }

@@ -4,10 +4,11 @@
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { CheckResult } from '../types.js';
-import { formatValue, formatNumber, splitQuantity, type FormatOptions } from './format.js';
+import { formatValue, formatNumber, splitQuantity, NOISE, type FormatOptions } from './format.js';
 
 /** Drops floating-point noise (51.20000000000001 → 51.2) so JSON output diffs cleanly. */
 function clean(x: number): number {
+  if (Number.isFinite(x) && Math.abs(x) < NOISE) return 0;
   return Number.isFinite(x) ? Number(x.toPrecision(12)) : x;
 }
 
