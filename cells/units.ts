@@ -86,6 +86,6 @@ export function fromSI(x: number, si: string): Unit | number {
   if (si === '' || si === '1') return x;
   const u = math.unit(x, si);
   // A kernel result is computed, not written by hand: let the display pick engineering units.
-  (u as Unit & { skipAutomaticSimplification: boolean }).skipAutomaticSimplification = false;
+  (u as unknown as { skipAutomaticSimplification: boolean }).skipAutomaticSimplification = false;
   return u;
 }
