@@ -14,6 +14,8 @@ import { symbolTex } from './names.js';
 import { readableUnit, utilizationText, valueTex } from './quantity.js';
 import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
+import { recordsHtml } from './kernel.js';
+import type { MathNode } from 'mathjs';
 
 /** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
@@ -66,12 +68,12 @@ function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
 
 const OP_TEX: Record<string, string> = { '<=': '\\le', '>=': '\\ge', '<': '<', '>': '>' };
 
-function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext): string {
+function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, records: MathNode[]): string {
   const rows: string[] = [];
-  const formula = exprTex(cell.node, ctx.scope, false);
+  const formula = exprTex(cell.node, ctx.scope, false, records);
   rows.push(formula);
   if (r && readsNames(cell.node, ctx.scope)) {
-    const filled = exprTex(cell.node, ctx.scope, true);
+    const filled = exprTex(cell.node, ctx.scope, true, records);
     if (filled !== formula) rows.push(filled);
   }
   if (r && r.op) {
@@ -96,7 +98,8 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
   const r = state.status === 'ok' ? (state.value as CheckResult) : null;
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc) : '';
   const verdict = verdictOf(state);
-  return `<div class="vb-work"><div class="vb-math">${typeset(workingTex(cell, r, ctx), true)}</div>${trouble}</div>`
+  const records: MathNode[] = [];
+  return `<div class="vb-work"><div class="vb-math">${typeset(workingTex(cell, r, ctx, records), true)}</div>${recordsHtml(records, ctx)}${trouble}</div>`
     + `<div class="vb-out">${verdictHtml(verdict, r?.utilization ?? null)}</div>`;
 }
 

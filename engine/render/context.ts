@@ -41,6 +41,8 @@ export interface RenderContext {
   fieldUses: Map<string, string[]>;
   /** Cell id → the cells that use it. */
   usersOf: Map<string, Cell[]>;
+  /** Kernel function name → the first cell that calls it at its top level (where its description is printed). */
+  firstCall: Map<string, string>;
 }
 
 type AnyNode = MathNode & { object?: AnyNode; index?: { dimensions: AnyNode[]; dotNotation?: boolean }; name?: string; value?: unknown };
@@ -81,6 +83,11 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
       fieldUses.set(name, list);
     }
   }
+  const firstCall = new Map<string, string>();
+  for (const cell of graph.cells) {
+    const n = cell.node as AnyNode & { fn?: AnyNode };
+    if (n.type === 'FunctionNode' && n.fn?.type === 'SymbolNode' && !firstCall.has(n.fn.name!)) firstCall.set(n.fn.name!, cell.id);
+  }
   const sigfigs = sigfigsOf(doc, options);
   const defined = (name: string) => graph.byId.has(name) || graph.failed.has(name);
   const scope: TexScope = {
@@ -98,7 +105,7 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
       return { value, unit: path.length === 1 ? cell.displayUnit : null };
     },
   };
-  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf };
+  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall };
 }
 
 /** The state of a cell, pending when unknown. */

@@ -11,15 +11,34 @@ import { symbolTex } from './names.js';
 import { valueHtml, valueTex } from './quantity.js';
 import { stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
-import { kernelCallOf, renderKernelCall } from './kernel.js';
+import { kernelCallOf, recordsHtml, renderKernelCall } from './kernel.js';
+import type { MathNode } from 'mathjs';
+import { math } from '../../cells/math.js';
 
-/** Rows of the working: `name = formula`, then `= substituted` when it adds something. */
-function workingTex(cell: Cell, ctx: RenderContext, substitute: boolean): string {
+/** Is the expression just a name or a chain of fields, possibly converted with `to`? */
+function isBareReference(node: MathNode): boolean {
+  const n = node as MathNode & { fn?: string; args?: MathNode[]; object?: MathNode; index?: { dotNotation?: boolean } };
+  if (n.type === 'OperatorNode' && n.fn === 'to' && n.args) return isBareReference(n.args[0]!);
+  if (n.type === 'ParenthesisNode') return isBareReference((n as unknown as { content: MathNode }).content);
+  if (n.type === 'SymbolNode') return true;
+  return n.type === 'AccessorNode' && !!n.index?.dotNotation && isBareReference(n.object!);
+}
+
+function isRecord(v: unknown): boolean {
+  return typeof v === 'object' && v !== null && !Array.isArray(v) && !math.isUnit(v) && !math.isMatrix(v);
+}
+
+/**
+ * Rows of the working: `name = formula`, then `= substituted` when it adds something.
+ * Record literals become numbered `{…}` in the formula; `records` collects them for the list below.
+ */
+function workingTex(cell: Cell, ctx: RenderContext, substitute: boolean, records: MathNode[]): string {
   const lhs = cell.name ? symbolTex(cell.name) : '';
-  const formula = exprTex(cell.node, ctx.scope, false);
+  const formula = exprTex(cell.node, ctx.scope, false, records);
   const rows = [`${lhs} &= ${formula}`];
-  if (substitute && readsNames(cell.node, ctx.scope)) {
-    const filled = exprTex(cell.node, ctx.scope, true);
+  // A bare name or field (`H = a.H_min to kN`) says nothing new when substituted: the output column shows it.
+  if (substitute && readsNames(cell.node, ctx.scope) && !isBareReference(cell.node)) {
+    const filled = exprTex(cell.node, ctx.scope, true, records);
     if (filled !== formula) rows.push(`&= ${filled}`);
   }
   return rows.length === 1 ? `${lhs} = ${formula}` : `\\begin{aligned}${rows.join('\\\\')}\\end{aligned}`;
@@ -46,11 +65,13 @@ function troubleHtml(state: CellState, ctx: RenderContext): string {
 export function renderCalcOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
   const ok = state.status === 'ok';
   const fn = kernelCallOf(cell);
-  if (fn) {
+  // A kernel call that returns a record gets the table; one that returns a quantity reads like a formula.
+  if (fn && !(ok && !isRecord(state.value))) {
     const { work, out } = renderKernelCall(cell, fn, ok ? state.value : null, ctx);
     return `<div class="vb-work vb-work--kernel">${work}${troubleHtml(state, ctx)}</div><div class="vb-out">${out}</div>`;
   }
-  const work = `<div class="vb-math">${typeset(workingTex(cell, ctx, ok), true)}</div>`;
+  const records: MathNode[] = [];
+  const work = `<div class="vb-math">${typeset(workingTex(cell, ctx, ok, records), true)}</div>${recordsHtml(records, ctx)}`;
   const out = ok ? resultHtml(cell, state.value, ctx) : '<div class="vb-result vb-none">—</div>';
   return `<div class="vb-work">${work}${troubleHtml(state, ctx)}</div><div class="vb-out">${out}</div>`;
 }

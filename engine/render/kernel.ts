@@ -23,25 +23,33 @@ export function kernelCallOf(cell: Cell): string | null {
 }
 
 /** One argument: as written, then its value when that says more. */
-function argumentTex(node: MathNode, ctx: RenderContext): string {
-  const written = exprTex(node, ctx.scope, false);
-  const shown = exprTex(node, ctx.scope, true);
+function argumentTex(node: MathNode, ctx: RenderContext, records?: MathNode[]): string {
+  const written = exprTex(node, ctx.scope, false, records);
+  const shown = exprTex(node, ctx.scope, true, records);
   return written === shown ? written : `${written} = ${shown}`;
+}
+
+function recordItems(node: AnyNode, ctx: RenderContext): string[] {
+  return Object.entries(node.properties ?? {}).map(([key, value]) => `<li><span class="vb-key">${escapeHtml(key)}</span> ${typeset(argumentTex(value, ctx))}</li>`);
+}
+
+/**
+ * The items of record literals, one list per record, numbered as the formula numbers them.
+ * @param records ObjectNodes collected by exprTex
+ */
+export function recordsHtml(records: MathNode[], ctx: RenderContext): string {
+  return records.map((r, i) => `<ul class="vb-args"><li class="vb-recno">{…}<sub>${i + 1}</sub></li>${recordItems(r as AnyNode, ctx).join('')}</ul>`).join('');
 }
 
 /** The arguments of the call, options records spread out one per item. */
 function argumentsHtml(cell: Cell, ctx: RenderContext): string {
   const items: string[] = [];
+  const nested: MathNode[] = [];
   for (const arg of (cell.node as AnyNode).args ?? []) {
-    if (arg.type === 'ObjectNode') {
-      for (const [key, value] of Object.entries(arg.properties ?? {})) {
-        items.push(`<li><span class="vb-key">${escapeHtml(key)}</span> ${typeset(argumentTex(value, ctx))}</li>`);
-      }
-    } else {
-      items.push(`<li>${typeset(argumentTex(arg, ctx))}</li>`);
-    }
+    if (arg.type === 'ObjectNode') items.push(...recordItems(arg, ctx));
+    else items.push(`<li>${typeset(argumentTex(arg, ctx, nested))}</li>`);
   }
-  return items.length ? `<ul class="vb-args">${items.join('')}</ul>` : '';
+  return (items.length ? `<ul class="vb-args">${items.join('')}</ul>` : '') + recordsHtml(nested, ctx);
 }
 
 /** Where a kernel result goes when no field of it is read: the cells it is passed to. */
@@ -57,7 +65,8 @@ function passedToHtml(cell: Cell, ctx: RenderContext): string {
  * @param value the returned record (null when the call failed)
  */
 export function renderKernelCall(cell: Cell, fn: string, value: unknown, ctx: RenderContext): { work: string; out: string } {
-  const doc = cellFunctions.get(fn)?.doc ?? '';
+  // The function's description is printed at its first call only.
+  const doc = ctx.firstCall.get(fn) === cell.id ? cellFunctions.get(fn)?.doc ?? '' : '';
   const head = `<p class="vb-call"><code>${escapeHtml(fn)}</code> <span class="vb-call-doc">${escapeHtml(doc)}</span></p>`;
   const work = head + argumentsHtml(cell, ctx);
   if (value === null) return { work, out: '' };

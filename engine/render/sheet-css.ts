@@ -133,6 +133,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-call code { font-weight: bold; color: var(--vb-accent); }
 .vb-call-doc { color: var(--vb-muted); }
 .vb-args { margin: 0.5mm 0 0; padding: 0; list-style: none; display: flex; flex-wrap: wrap; gap: 0.5mm 5mm; font-size: 9pt; }
+.vb-recno { font-weight: bold; color: var(--vb-muted); }
 .vb-key { color: var(--vb-muted); font-size: 8pt; }
 .vb-kernel-notes { margin: 1mm 0 0; padding-left: 4mm; font-size: 8.5pt; color: var(--vb-near); }
 .vb-fields caption { text-align: left; font-size: 7pt; text-transform: uppercase; letter-spacing: .08em; color: var(--vb-muted); }

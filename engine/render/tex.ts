@@ -42,6 +42,8 @@ interface Piece {
 interface Walk {
   scope: TexScope;
   substitute: boolean;
+  /** When set, records `{…}` are typeset as numbered placeholders and collected here (to be listed below the formula). */
+  records?: MathNode[];
   /** Inside an exponent or a fraction: further fractions are written a/b. */
   exponent: boolean;
 }
@@ -236,6 +238,11 @@ function walk(n: AnyNode, w: Walk): Piece {
         if (sub) return sub;
         return atom(`${path.slice(0, -1).map(symbolTex).join('{.}')}{.}${fieldTex(path[path.length - 1]!)}`);
       }
+      const key = n.index!.dimensions[0];
+      if (n.index!.dotNotation && key?.type === 'ConstantNode' && typeof key.value === 'string') {
+        const obj = walk(n.object!, w);
+        return atom(`${obj.prec < Prec.Atom ? wrap(obj) : obj.tex}{.}${fieldTex(key.value)}`);
+      }
       const dims = n.index!.dimensions.map((d) => walk(bare(d), w).tex).join(',');
       return atom(`${walk(n.object!, w).tex}\\left[${dims}\\right]`);
     }
@@ -247,6 +254,11 @@ function walk(n: AnyNode, w: Walk): Piece {
     case 'FunctionNode': return functionTex(n, w);
     case 'OperatorNode': return operatorTex(n, w);
     case 'ObjectNode': {
+      if (w.records) {
+        let i = w.records.indexOf(n);
+        if (i < 0) i = w.records.push(n) - 1;
+        return atom(`\\left\\{\\ldots\\right\\}_{\\text{\\tiny ${i + 1}}}`);
+      }
       const entries = Object.entries(n.properties ?? {}).map(([k, v]) => `\\text{${texText(k)}}{:}\\ ${walk(bare(v), w).tex}`);
       return atom(`\\left\\{${entries.join(',\\ ')}\\right\\}`);
     }
@@ -275,8 +287,15 @@ function walk(n: AnyNode, w: Walk): Piece {
  * @returns TeX for KaTeX
  * @example exprTex(parse('w*L^2/(8 f)'), scope, false) // "\\frac{w\\,{L}^{2}}{8\\,f}"
  */
-export function exprTex(node: MathNode, scope: TexScope, substitute = false): string {
-  return walk(node as AnyNode, { scope, substitute, exponent: false }).tex;
+export function exprTex(node: MathNode, scope: TexScope, substitute = false, records?: MathNode[]): string {
+  return walk(node as AnyNode, { scope, substitute, exponent: false, ...(records ? { records } : {}) }).tex;
+}
+
+/** Does an expression contain a record literal `{…}`? */
+export function hasRecords(node: MathNode): boolean {
+  let found = false;
+  (node as AnyNode).traverse((c) => { if (c.type === 'ObjectNode') found = true; });
+  return found;
 }
 
 /** Does an expression read any document name (so that a substituted line says something new)? */
