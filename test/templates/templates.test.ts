@@ -1,0 +1,286 @@
+/**
+ * The four design-calc templates: each passes `check`, renders, and its key
+ * numbers are pinned — against hand calculations where one exists (source
+ * named beside it), else as regression values labelled with the date they
+ * were taken, so a kernel change that moves them is noticed.
+ */
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { readFile, mkdtemp, rm, readdir } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { evaluateDocument, type Summary } from '../../engine/index.js';
+import { checkCommand } from '../../bin/commands/check.js';
+import { renderCommand } from '../../bin/commands/render.js';
+import { listTemplates, newCommand, TEMPLATE_DIR } from '../../bin/commands/new.js';
+import { expectClose } from '../helpers/close.js';
+
+const NAMES = ['arch-ring', 'barrel-vault', 'buttress', 'cross-vault'] as const;
+type Name = (typeof NAMES)[number];
+
+const summaries = {} as Record<Name, Summary>;
+const sources = {} as Record<Name, string>;
+
+/** A number from the summary, in the value's display unit; `a.b` reaches into a kernel result. */
+function num(s: Summary, path: string): number {
+  const [head, ...rest] = path.split('.');
+  let entry = s.values[head!] as { value: unknown } | undefined;
+  for (const k of rest) entry = (entry?.value as Record<string, { value: unknown }> | undefined)?.[k];
+  if (typeof entry?.value !== 'number') throw new Error(`${path} is not a number: ${JSON.stringify(entry)}`);
+  return entry.value;
+}
+function unitOf(s: Summary, path: string): string | null {
+  const [head, ...rest] = path.split('.');
+  let entry = s.values[head!] as { value: unknown; unit: string | null } | undefined;
+  for (const k of rest) entry = (entry?.value as Record<string, { value: unknown; unit: string | null }> | undefined)?.[k];
+  return entry?.unit ?? null;
+}
+
+beforeAll(async () => {
+  for (const name of NAMES) {
+    sources[name] = await readFile(join(TEMPLATE_DIR, `${name}.md`), 'utf8');
+    summaries[name] = (await evaluateDocument(sources[name], { file: `${name}.md` })).summary;
+  }
+}, 120_000);
+
+describe('templates: check, render, new', () => {
+  let dir: string;
+  beforeAll(async () => { dir = await mkdtemp(join(tmpdir(), 'vaultbook-templates-')); });
+  afterAll(() => rm(dir, { recursive: true, force: true }));
+
+  it('templates/ holds exactly the four design calcs', async () => {
+    expect((await readdir(TEMPLATE_DIR)).filter((f) => f.endsWith('.md')).sort()).toEqual(NAMES.map((n) => `${n}.md`));
+  });
+
+  it.each(NAMES)('check templates/%s.md exits 0: every check holds, no error, no warning', async (name) => {
+    const out: string[] = [];
+    expect(await checkCommand([join(TEMPLATE_DIR, `${name}.md`)], (s) => out.push(s))).toBe(0);
+    const s = summaries[name];
+    expect(s.diagnostics).toEqual([]);
+    expect(s.checks.length).toBeGreaterThanOrEqual(2);
+    for (const c of s.checks) expect(c.pass, `${name}: ${c.source}`).toBe(true);
+  });
+
+  it.each(NAMES)('templates/%s.md has a full title block and says it is fictional', (name) => {
+    const meta = summaries[name].meta;
+    for (const key of ['title', 'project', 'job', 'calc_ref', 'revision', 'date', 'prepared', 'checked', 'basis']) expect(meta[key], key).toBeTruthy();
+    expect(String(meta.project)).toContain('(fictional)');
+    expect(sources[name]).toContain('**Fictional example.**');
+  });
+
+  it.each(NAMES)('templates/%s.md gives a source or "from memory" for every material and load value', (name) => {
+    // Every given line that carries a unit-bearing value or a factor needs its source in the comment.
+    const givens = [...sources[name].matchAll(/```given\n([\s\S]*?)```/g)].flatMap((m) => m[1]!.split('\n').filter((l) => l.trim()));
+    const material = /^(gamma|f_b|f_m|f_y|q_k|s_k|mu|g_|Q_axle|phi_dyn|lambda_req|q_bearing)/;
+    for (const line of givens.filter((l) => material.test(l.trim()))) {
+      expect(line, `${name}: ${line}`).toMatch(/EN \d|NTC|handbook|memory|fictional|common practice|assumed|survey|V02/);
+    }
+  });
+
+  it.each(NAMES)('render templates/%s.md writes a sheet with its figures', async (name) => {
+    const target = join(dir, `${name}.html`);
+    const out: string[] = [];
+    expect(await renderCommand([join(TEMPLATE_DIR, `${name}.md`), '-o', target], (s) => out.push(s))).toBe(0);
+    const html = await readFile(target, 'utf8');
+    const figures = (sources[name].match(/```figure\n([\s\S]*?)```/g) ?? []).join('\n').split('\n').filter((l) => /\(/.test(l)).length;
+    expect((html.match(/<svg/g) ?? []).length).toBeGreaterThanOrEqual(figures);
+    expect(html).toContain(String(summaries[name].meta.title));
+  });
+
+  it('new lists the four templates with their titles', async () => {
+    const list = await listTemplates();
+    expect(list.map((t) => t.name)).toEqual([...NAMES]);
+    for (const t of list) expect(t.title).toBe(summaries[t.name as Name].meta.title);
+  });
+
+  it('new barrel-vault FILE copies the template; a second time it refuses (exit 2)', async () => {
+    const target = join(dir, 'long-room.md');
+    const quiet = () => {};
+    expect(await newCommand(['barrel-vault', target], quiet, quiet)).toBe(0);
+    expect(await readFile(target, 'utf8')).toBe(sources['barrel-vault']);
+    expect(await newCommand(['cross-vault', target], quiet, quiet)).toBe(2);
+    expect(await readFile(target, 'utf8')).toBe(sources['barrel-vault']);
+  });
+});
+
+describe('templates/barrel-vault.md — key numbers', () => {
+  const s = () => summaries['barrel-vault'];
+
+  it('roof build-up and equivalent unit weight (EN 1991-1-1 densities as cited in the calc)', () => {
+    // 0.10 membrane + 21 kN/m³ × 0.040 m screed + 1.2 planted layer
+    expectClose(num(s(), 'g_roof'), 0.10 + 21 * 0.040 + 1.2, 1e-12);
+    expectClose(num(s(), 'gamma_eq'), 18 + 2.14 / 0.215, 1e-9);
+  });
+
+  it('f_k and f_d by EN 1996-1-1 eq. (3.1): f_k = 0.55·f_b^0.7·f_m^0.3, f_d = f_k/2.5', () => {
+    const fk = 0.55 * 20 ** 0.7 * 5 ** 0.3;
+    expectClose(num(s(), 'f_k'), fk, 1e-9);
+    expectClose(num(s(), 'f_d'), fk / 2.5, 1e-9);
+  });
+
+  it('hoop force at the crown: N_φ = −p_r·R for a cylinder (radial equilibrium, membrane theory), R = a + t/2 of the catenary', () => {
+    // Intrados y = a(cosh(x/a) − 1) through span 5.4 m and rise 1.8 m: solve for a by bisection.
+    let lo = 0.1, hi = 100;
+    for (let i = 0; i < 200; i++) {
+      const a = (lo + hi) / 2;
+      if (a * (Math.cosh(2.7 / a) - 1) > 1.8) lo = a; else hi = a;
+    }
+    const R = (lo + hi) / 2 + 0.215 / 2;
+    const pr = 1.35 * (18 + 2.14 / 0.215) * 0.215 + 1.5 * 0.8 * 0.6; // kN/m², at the crown all load is radial
+    expect(unitOf(s(), 'N_crown')).toBe('kN/m');
+    expectClose(num(s(), 'N_crown'), -pr * R, 1e-4);
+  });
+
+  it('the catenary\'s centreline thrust γ·t·(a + t/2) lies within the ring\'s thrust range (safe theorem)', () => {
+    let lo = 0.1, hi = 100;
+    for (let i = 0; i < 200; i++) {
+      const a = (lo + hi) / 2;
+      if (a * (Math.cosh(2.7 / a) - 1) > 1.8) lo = a; else hi = a;
+    }
+    const H = (18 + 2.14 / 0.215) * 0.215 * ((lo + hi) / 2 + 0.215 / 2); // kN per metre strip
+    expect(num(s(), 'H_min_G')).toBeLessThan(H);
+    expect(num(s(), 'H_max_G')).toBeGreaterThan(H);
+  });
+
+  it('profile choice, ring and wall results', () => {
+    expectClose(num(s(), 'share'), 0.035628, 1e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'share_circ'), 0.70813, 1e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'gsf_circ'), 1.9883, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'H_min_G'), 12.077, 1e-3); // regression value, from this kernel on 2026-12-02 (kN per metre strip)
+    expectClose(num(s(), 'H_max_G'), 16.710, 1e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'gsf'), 2.4199, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'lambda_Q'), 8.1287, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'b_third'), 1.4036, 1e-3); // regression value, from this kernel on 2026-12-02
+  });
+
+  it('the tie: area T·γ_M0/f_y (EN 1993-1-1 6.2.3, from memory), smallest bar of the series', () => {
+    const T = 3 * (1.35 * num(s(), 'H_G') + 1.5 * num(s(), 'H_S')); // kN, ties at 3 m
+    expectClose(num(s(), 'T_tie'), T, 1e-9);
+    const area = (T * 1e3) / 235e6;
+    expect(num(s(), 'd_bar')).toBe(20); // 16 mm = 201 mm² < area < 20 mm = 314 mm²
+    expectClose(num(s(), 'tie_bar.utilization'), area / (Math.PI * 0.02 ** 2 / 4), 1e-9);
+  });
+});
+
+describe('templates/cross-vault.md — key numbers', () => {
+  const s = () => summaries['cross-vault'];
+  const r = (3.6 + 0.1025) / 2; // middle-surface radius of each barrel (m)
+
+  it('web area 4r²(π − 2): the groin vault is the upper envelope of two barrels; each barrel shows over the triangles |x| > |y| (integral of R/√(R² − y²))', () => {
+    expectClose(num(s(), 'A_webs'), 4 * r * r * (Math.PI - 2), 1e-6);
+  });
+
+  it('without pocket fill, W = γ·t·A + (g + q)·(2r)² and V_corner = W/4 (statics)', async () => {
+    const { summary } = await evaluateDocument(sources['cross-vault'], { file: 'cross-vault.md', overrides: { z_fill: '0 m' } });
+    const W = 18 * 0.1025 * 4 * r * r * (Math.PI - 2) + (2.0 + 5) * (2 * r) ** 2;
+    expectClose(num(summary, 'W_k'), W, 1e-6);
+    expectClose(num(summary, 'V_corner'), W / 4, 1e-6);
+    expectClose(num(s(), 'W_k'), 125.41, 1e-3); // with pocket fill: regression value, from this kernel on 2026-12-02
+  });
+
+  it('corner thrust H = |N_crown|·r with N_crown = −(γt + g + q)·r (membrane hoop force; half vault on two corners)', () => {
+    const q = 18 * 0.1025 + 2.0 + 5;
+    expectClose(num(s(), 'N_crown'), -q * r, 1e-6);
+    expectClose(num(s(), 'H_corner'), q * r * r, 1e-6);
+    expectClose(num(s(), 'H_int'), 2 * q * r * r, 1e-6); // two corners, transverse thrusts add
+    const qG = 18 * 0.1025 + 2.0;
+    expectClose(num(s(), 'sigma_crown'), (1.35 * qG * r + 1.5 * 5 * r) / 0.1025 / 1000, 1e-6);
+  });
+
+  it('end buttress by hand: stepped blocks, moments about the outer toe (rigid-block statics)', () => {
+    const T = num(s(), 'T_k'), zT = 2.8 + num(s(), 'z_thrust'), V = num(s(), 'V_end_G') + num(s(), 'V_end_Q');
+    const k = 18 * 1.2; // kN/m² over the buttress width
+    const blocks = [{ h: 1.8, b: 2.6 }, { h: 2.0, b: 1.4 }];
+    const W = blocks.reduce((a, bl) => a + k * bl.h * bl.b, 0);
+    const mInner = blocks.reduce((a, bl) => a + k * bl.h * bl.b * bl.b / 2, 0) + V * 0.2 + T * zT;
+    const xR = 2.6 - mInner / (W + V);
+    expectClose(num(s(), 'but_k.x_R'), xR, 1e-9);
+    expectClose(num(s(), 'but_k.e'), 1.3 - xR, 1e-9);
+  });
+
+  it('thrust level, pocket fill and arcade arch', () => {
+    expectClose(num(s(), 'z_thrust'), 0.91198, 1e-3); // regression value, from this kernel on 2026-12-02
+    expect(num(s(), 'z_thrust')).toBeLessThan(1.0); // the pocket fill level chosen
+    expectClose(num(s(), 'gsf_arcade'), 2.1610, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'L_third'), 2.1968, 1e-3); // regression value, from this kernel on 2026-12-02
+  });
+});
+
+describe('templates/arch-ring.md — key numbers', () => {
+  const s = () => summaries['arch-ring'];
+  const Ri = (3 ** 2 + 1.5 ** 2) / (2 * 1.5); // intrados radius of the segment (m)
+  const theta = Math.asin(3 / Ri);
+
+  it('design axle per metre strip: γ_Q·φ·Q/b_eff with b_eff = track + spread to the crown', () => {
+    expectClose(num(s(), 'b_eff'), 1.8 + 0.4 + 0.1, 1e-12);
+    expectClose(num(s(), 'P_d'), (1.5 * 1.3 * 45) / 2.3, 1e-9);
+  });
+
+  it('ring weight γ·t·2θ·(R_i + t/2) (area of an annular sector)', () => {
+    expectClose(num(s(), 'r.weight'), 18 * 0.34 * 2 * theta * (Ri + 0.17), 1e-4);
+  });
+
+  it('V_left + V_right = ring + fill columns to the fill level + surfacing over the extrados (vertical equilibrium)', () => {
+    const Re = Ri + 0.34, yc = -Ri * Math.cos(theta), xe = Re * Math.sin(theta), zf = 1.5 + 0.34 + 0.4;
+    let fill = 0;
+    const n = 20000;
+    for (let i = 0; i < n; i++) {
+      const x = -xe + ((i + 0.5) * 2 * xe) / n;
+      fill += (zf - (Math.sqrt(Re * Re - x * x) + yc)) * ((2 * xe) / n);
+    }
+    const total = 18 * 0.34 * 2 * theta * (Ri + 0.17) + 19 * fill + 2.3 * 2 * xe;
+    expectClose(2 * num(s(), 'a_G.V_left'), total, 2e-3);
+  });
+
+  it('thrust range, gsf and collapse load factors', () => {
+    expectClose(num(s(), 'H_min'), 48.310, 1e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'H_max'), 86.483, 1e-3); // regression value, from this kernel on 2026-12-02
+    expect(num(s(), 'gsf')).toBeGreaterThan(10); // the fill makes the segment nearly funicular (an independent funicular sketch gives t_min ≈ 12 mm)
+    expectClose(num(s(), 'lambda_q'), 2.2760, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'lambda_3'), 2.5883, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'lambda_c'), 6.7306, 2e-3); // regression value, from this kernel on 2026-12-02
+    expect(num(s(), 'lambda_min')).toBe(num(s(), 'lambda_q')); // the quarter point is the worst of the three
+  });
+});
+
+describe('templates/buttress.md — key numbers, all by hand (rigid-block statics, EN 1990 combinations)', () => {
+  const s = () => summaries['buttress'];
+  const k = 18 * 1.0; // γ × width across the thrust (kN/m²)
+  const blocks = [{ h: 2.2, b: 2.8 }, { h: 1.6, b: 1.4 }];
+  const zT = 3.71, xV = 0.25, B = 2.8;
+  /** Resultant from the outer toe, base pressure and safety against overturning for a load set. */
+  const statics = (gammaW: number, T: number, V: number) => {
+    const W = blocks.reduce((a, bl) => a + gammaW * k * bl.h * bl.b, 0);
+    const N = W + V;
+    const mInner = blocks.reduce((a, bl) => a + gammaW * k * bl.h * bl.b * bl.b / 2, 0) + V * xV + T * zT;
+    const restoring = blocks.reduce((a, bl) => a + gammaW * k * bl.h * bl.b * (B - bl.b / 2), 0) + V * (B - xV);
+    const xR = B - mInner / N, e = B / 2 - xR;
+    return { N, xR, e, sf: restoring / (T * zT), sigmaMax: (N / B) * (1 + (6 * Math.abs(e)) / B) };
+  };
+
+  it('characteristic: resultant and middle third', () => {
+    const c = statics(1, 26.4 + 34.3, 28.4 + 34.3 + 60);
+    expectClose(num(s(), 'x_R'), c.xR, 1e-9);
+    expectClose(num(s(), 'e'), c.e, 1e-9);
+    expect(Math.abs(c.e)).toBeLessThanOrEqual(B / 6);
+  });
+
+  it('EQU: 1.1 G_dst + 1.5 Q against 0.9 G_stb (EN 1990 Table A1.2(A), from memory)', () => {
+    const c = statics(0.9, 1.1 * 26.4 + 1.5 * 34.3, 0.9 * (28.4 + 60));
+    expectClose(num(s(), 'sf_EQU'), c.sf, 1e-9);
+    expect(c.sf).toBeGreaterThanOrEqual(1);
+  });
+
+  it('STR: sliding µ·N/T with G_inf = 1.0, bearing with 1.35 G + 1.5 Q (EN 1990 Table A1.2(B), from memory)', () => {
+    const slide = statics(1, 1.35 * 26.4 + 1.5 * 34.3, 28.4 + 60);
+    expectClose(num(s(), 'sf_slide'), (0.6 * slide.N) / (1.35 * 26.4 + 1.5 * 34.3), 1e-9);
+    const bear = statics(1.35, 1.35 * 26.4 + 1.5 * 34.3, 1.35 * (28.4 + 60) + 1.5 * 34.3);
+    expect(Math.abs(bear.e)).toBeLessThanOrEqual(B / 6); // in the kern: the trapezoidal pressure formula applies
+    expectClose(num(s(), 'sigma_max'), bear.sigmaMax, 1e-9);
+  });
+
+  it('least lengths', () => {
+    expectClose(num(s(), 'b_third'), 2.3320, 1e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'b_base'), 1.6010, 1e-3); // regression value, from this kernel on 2026-12-02
+    expect(num(s(), 'b_third')).toBeLessThanOrEqual(2.8);
+  });
+});
