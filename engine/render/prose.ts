@@ -76,10 +76,11 @@ function renderer(): Marked {
         level: 'inline',
         start: (src: string) => src.indexOf('$') >= 0 ? src.indexOf('$') : undefined,
         tokenizer(src: string): MathToken | undefined {
-          const display = /^\$\$([^$]+?)\$\$/.exec(src);
+          const display = /^\$\$([^$`]+?)\$\$/.exec(src);
           if (display) return { type: 'vbMath', raw: display[0], tex: display[1]!.trim(), display: true };
           // `$x$` but not "costs $5 and $10": no space inside the dollars, no digit right after.
-          const inline = /^\$(?![\s$])((?:\\.|[^\\$\n])+?)(?<!\s)\$(?!\d)/.exec(src);
+          // A backquote inside ends the attempt: code spans win over maths.
+          const inline = /^\$(?![\s$])((?:\\.|[^\\$\n`])+?)(?<!\s)\$(?!\d)/.exec(src);
           return inline ? { type: 'vbMath', raw: inline[0], tex: inline[1]!, display: false } : undefined;
         },
       },

@@ -54,12 +54,12 @@ type UnitToken = { kind: 'name'; text: string; power: string | null } | { kind: 
 /** Splits a unit string such as 'kN/m^3', 'kN m', 'kg / (m s^2)' into names with powers and operators. */
 function unitTokens(unit: string): UnitToken[] {
   const out: UnitToken[] = [];
-  const re = /([A-Za-z]+)(?:\s*\^\s*\(?(-?\d+(?:\.\d+)?)\)?)?|(\/|\(|\)|\*|\s+)/g;
+  const re = /([A-Za-z]+)(?:\s*\^\s*(?:\((-?\d+(?:\.\d+)?)\)|(-?\d+(?:\.\d+)?)))?|(\/|\(|\)|\*|\s+)/g;
   let m: RegExpExecArray | null;
   while ((m = re.exec(unit))) {
-    if (m[1]) out.push({ kind: 'name', text: m[1], power: m[2] ?? null });
-    else if (m[3]!.trim() === '' || m[3] === '*') out.push({ kind: 'op', text: ' ' });
-    else out.push({ kind: 'op', text: m[3]! });
+    if (m[1]) out.push({ kind: 'name', text: m[1], power: m[2] ?? m[3] ?? null });
+    else if (m[4]!.trim() === '' || m[4] === '*') out.push({ kind: 'op', text: ' ' });
+    else out.push({ kind: 'op', text: m[4]! });
   }
   // Spaces next to '/' or brackets carry no meaning.
   return out.filter((t, i) => !(t.kind === 'op' && t.text === ' ' && (i === 0 || i === out.length - 1
