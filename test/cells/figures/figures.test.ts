@@ -1,0 +1,147 @@
+import { describe, expect, it } from 'vitest';
+import { parse } from 'node-html-parser';
+import { archRing } from '../../../cells/vault/arch/arch-ring.js';
+import { archLimit } from '../../../cells/vault/arch/arch-limit.js';
+import { barrelMembrane } from '../../../cells/vault/barrel-membrane.js';
+import { groinVault } from '../../../cells/vault/groin/groin-vault.js';
+import { buttress } from '../../../cells/supports/buttress.js';
+import { section } from '../../../cells/figures/section.js';
+import { forcePolygon } from '../../../cells/figures/force-polygon.js';
+import { membranePlot } from '../../../cells/figures/membrane-plot.js';
+import { vaultPlan } from '../../../cells/figures/vault-plan.js';
+import { supportFigure } from '../../../cells/figures/support-figure.js';
+import { isFigure } from '../../../cells/figures/registry.js';
+import { expectClose } from '../../helpers/close.js';
+
+// A fictional segmental ring: 6.4 m span, 1.6 m rise, 0.34 m thick, 18 kN/m³, 60 voussoirs to keep the tests quick.
+const ring = archRing({ shape: 'circular', span: 6.4, rise: 1.6, thickness: 0.34, unit_weight: 18e3, voussoirs: 60 });
+const limit = archLimit(ring);
+const texts = (svg: string) => parse(svg).querySelectorAll('text').map((t) => t.text);
+const num = (s: string | undefined) => Number(s);
+
+describe('section(ring, limit)', () => {
+  const svg = section(ring, limit);
+
+  it('section(ring, limit) is a recorded, deterministic SVG', () => {
+    expect(isFigure(svg)).toBe(true);
+    expect(section(ring, limit)).toBe(svg);
+    expect(svg).not.toMatch(/NaN|Infinity|undefined/);
+  });
+
+  it('section draws both extreme thrust lines and one marker per hinge of the least-thrust line', () => {
+    const root = parse(svg);
+    expect(root.querySelectorAll('path').filter((p) => p.getAttribute('stroke-dasharray')).length).toBe(2);
+    const hinges = root.querySelectorAll('circle').filter((c) => c.getAttribute('fill') === '#fff' && c.getAttribute('r') === '1.1');
+    // Three hinges for the least-thrust line of a ring thicker than the least (Heyman, The Stone Skeleton, 1995, ch. 3),
+    // the kernel reports them; the legend adds one more open circle.
+    expect(limit.hinges!.length).toBe(3);
+    expect(hinges.length).toBe(limit.hinges!.length + 1);
+  });
+
+  it('section writes H_min, H_max and the geometric factor of safety from the limit analysis', () => {
+    const t = texts(svg);
+    expect(t).toContain(`line of least thrust, H_min = ${(limit.H_min! / 1000).toFixed(1)} kN`);
+    expect(t).toContain(`line of greatest thrust, H_max = ${(limit.H_max! / 1000).toFixed(1)} kN`);
+    expect(t).toContain(`geometric factor of safety ${limit.gsf.toFixed(2)}`);
+    expect(t).toContain('span 6.40 m');
+    expect(t).toContain('rise 1.60 m');
+  });
+
+  it('section refuses a limit computed with other loads than those drawn', () => {
+    const loaded = archLimit(ring, { dead: 8000 });
+    expect(() => section(ring, loaded)).toThrow(/same ring and loads/);
+    expect(() => section(ring, loaded, { dead: 8000 })).not.toThrow();
+  });
+});
+
+describe('force_polygon(ring, limit)', () => {
+  const svg = forcePolygon(ring, limit);
+  const lines = parse(svg).querySelectorAll('line');
+  const loadLine = lines.find((l) => l.getAttribute('stroke-width') === '0.7')!;
+  const thrust = lines.find((l) => l.getAttribute('stroke-dasharray') === '1.5 0.8')!;
+
+  it('force_polygon draws the load line ΣW long and the pole H from it, to one force scale', () => {
+    const W = num(loadLine.getAttribute('y2')) - num(loadLine.getAttribute('y1'));
+    const H = num(thrust.getAttribute('x2')) - num(thrust.getAttribute('x1'));
+    // Under self-weight alone ΣW is the ring's weight (arch_ring); the drawing keeps H : ΣW.
+    expectClose(H / W, limit.H_min! / ring.weight, 2e-3);
+  });
+
+  it('force_polygon puts the pole level with half the load for a symmetric ring (statics: V_left = V_right = W/2)', () => {
+    const y1 = num(loadLine.getAttribute('y1')), y2 = num(loadLine.getAttribute('y2'));
+    expectClose(num(thrust.getAttribute('y1')) - y1, (y2 - y1) / 2, 2e-3);
+    expect(texts(svg)).toContain(`ΣW = ${(ring.weight / 1000).toFixed(1)} kN`);
+  });
+
+  it('force_polygon refuses reactions that do not match the loads', () => {
+    expect(() => forcePolygon(ring, archLimit(ring, { dead: 8000 }))).toThrow(/same ring and loads/);
+  });
+});
+
+describe('membrane_plot(m)', () => {
+  // Circular barrel under self-weight g only: N_φ = −g·R·cos φ (Flügge, Stresses in Shells, ch. 3), −g·R at the crown.
+  const m = barrelMembrane({ shape: 'circular', R0: 4, halfAngle: Math.PI / 3, length: 12, g: 2160 });
+  const svg = membranePlot(m);
+
+  it('membrane_plot draws three curves along the profile and three along the generatrix, and a legend for each', () => {
+    const paths = parse(svg).querySelectorAll('path').filter((p) => p.getAttribute('stroke-linejoin') === 'round');
+    expect(paths.length).toBe(6);
+    expect(isFigure(svg)).toBe(true);
+  });
+
+  it('membrane_plot states the crown force of the kernel, −g·R for a circular barrel', () => {
+    expectClose(m.N_phi_crown, -2160 * 4, 1e-9);
+    expect(texts(svg).some((t) => t.includes('N_φ at crown −8.64 kN/m'))).toBe(true);
+  });
+});
+
+describe('vault_plan(v)', () => {
+  // Square bay, thin shell: H_corner_x = g·R² (kernel example, Heyman's cross-vault statics); the corner
+  // resultant of two equal orthogonal thrusts is √2 times either (hand calculation).
+  const v = groinVault({ span_x: 8, g: 3600 });
+  const svg = vaultPlan(v);
+
+  it('vault_plan labels the corner thrusts and their resultant', () => {
+    const t = texts(svg);
+    expect(t).toContain('H_x = 57.6 kN');
+    expect(t).toContain('H_y = 57.6 kN');
+    expect(t).toContain(`H = ${(57.6 * Math.SQRT2).toFixed(1)} kN`);
+  });
+
+  it('vault_plan draws four groins and a pier at each corner', () => {
+    const root = parse(svg);
+    expect(root.querySelectorAll('path').filter((p) => p.getAttribute('stroke-width') === '0.5').length).toBe(4);
+    expect(root.querySelectorAll('rect').filter((r) => r.getAttribute('width') === '2.6').length).toBe(4);
+    expect(svg).not.toMatch(/NaN|Infinity|undefined/);
+  });
+});
+
+describe('support_figure(b, options)', () => {
+  // 6 m × 1.5 m wall, 20 kN/m³, 10 kN at the top: W = 180 kN, x_R = 0.75 − 10·6/180 = 0.4167 m from the outer toe.
+  const o = { height: 6, width: 1.5, depth: 1, unit_weight: 2e4, T: 1e4, z_T: 6 };
+  const b = buttress(o);
+  const svg = supportFigure(b, o);
+
+  it('support_figure ends the path of the resultant where it cuts the base', () => {
+    expectClose(b.x_R, 0.75 - 60 / 180, 1e-9);
+    expect(texts(svg)).toContain('resultant at the base: 0.42 m from the outer toe,');
+    const path = parse(svg).querySelectorAll('path').find((p) => p.getAttribute('stroke') === '#a3162b' && !p.getAttribute('fill'))!;
+    const pts = path.getAttribute('d')!.slice(1).split('L').map((s) => s.split(' ').map(Number));
+    const [top, bottom] = [pts[0]!, pts[pts.length - 1]!];
+    // Top of the path at the thrust's level (the top, z_T = 6 m) in the middle of the wall: the weight above is nil there.
+    expect(bottom[1]! - top[1]!).toBeGreaterThan(0);
+  });
+
+  it('support_figure shows the middle third and says when the resultant leaves it', () => {
+    const thirds = parse(svg).querySelectorAll('line').filter((l) => l.getAttribute('stroke-dasharray') === '1.6 1');
+    expect(thirds.length).toBe(2 + 1); // two per block, one in the legend
+    // e = 0.75 − 0.4167 = 0.333 m > B/6 = 0.25 m: outside the kern; with T = 5 kN, e = 0.167 m: inside.
+    expect(texts(svg)).toContain('OUTSIDE the middle third: part of the base lifts');
+    const near = { ...o, T: 5e3 };
+    expect(texts(supportFigure(buttress(near), near))).toContain('within the middle third of the base');
+  });
+
+  it('support_figure refuses options that do not describe the support', () => {
+    expect(() => supportFigure(b, { ...o, width: 2 })).toThrow(/same options/);
+  });
+});
