@@ -109,6 +109,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-block { margin: 2mm 0 3mm; }
 .vb-ref { width: 9mm; color: var(--vb-muted); font-size: 7.5pt; font-family: var(--vb-mono); vertical-align: baseline; }
 .vb-ref a { border-bottom: none; }
+.vb-summary .vb-ref { white-space: nowrap; }
 .vb-inputs .vb-sym { width: 16mm; white-space: nowrap; }
 .vb-inputs .vb-q { width: 40mm; }
 .vb-inputs .vb-range { width: 30mm; color: var(--vb-muted); font-size: 8.5pt; white-space: nowrap; }

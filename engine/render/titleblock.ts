@@ -92,15 +92,18 @@ function short(text: string, max = 70): string {
  * @example pageStyle(readTitle({calc_ref: 'VB-014'}), 'calc.md')
  */
 export function pageStyle(info: TitleInfo, file: string): string {
-  const ref = [info.calcRef && `calc ${info.calcRef}`, info.revision && `rev ${info.revision}`].filter(Boolean).join('  ·  ');
-  const where = [info.project, info.job && `job ${info.job}`].filter(Boolean).join('  ·  ');
-  const who = [info.prepared && `prepared ${info.prepared}`, info.checked && `checked ${info.checked}`, info.date].filter(Boolean).join('  ·  ');
-  const box = 'font-family: "DejaVu Sans", "Liberation Sans", Arial, sans-serif; font-size: 7.5pt; color: #3a4652;';
+  const ref = [info.calcRef && `calc ${info.calcRef}`, info.revision && `rev ${info.revision}`, info.date].filter(Boolean).join('  ·  ');
+  const who = [info.project, info.job && `job ${info.job}`, info.prepared && `prepared ${info.prepared}`, info.checked && `checked ${info.checked}`]
+    .filter(Boolean).join('  ·  ');
+  const box = 'font-family: "Liberation Sans", "DejaVu Sans", Arial, sans-serif; font-size: 7.5pt; color: #3a4652;';
+  // Two boxes per edge (no centre box), so each may take the width its text needs.
+  const rule = (edge: 'top' | 'bottom') => (edge === 'top'
+    ? 'vertical-align: bottom; padding-bottom: 3mm; border-bottom: 0.4pt solid #8a96a3;'
+    : 'vertical-align: top; padding-top: 3mm; border-top: 0.4pt solid #8a96a3;');
   return `@page { size: A4; margin: 20mm 15mm 18mm 18mm;`
-    + ` @top-left { content: ${cssString(short(info.title || file))}; ${box} vertical-align: bottom; padding-bottom: 3mm; border-bottom: 0.4pt solid #8a96a3; }`
-    + ` @top-right { content: ${cssString(short(ref || file, 40))}; ${box} vertical-align: bottom; padding-bottom: 3mm; border-bottom: 0.4pt solid #8a96a3; font-weight: bold; }`
-    + ` @bottom-left { content: ${cssString(short(where))}; ${box} vertical-align: top; padding-top: 3mm; border-top: 0.4pt solid #8a96a3; }`
-    + ` @bottom-center { content: ${cssString(short(who, 60))}; ${box} vertical-align: top; padding-top: 3mm; border-top: 0.4pt solid #8a96a3; }`
-    + ` @bottom-right { content: "sheet " counter(page) " of " counter(pages); ${box} vertical-align: top; padding-top: 3mm; border-top: 0.4pt solid #8a96a3; font-weight: bold; }`
+    + ` @top-left { content: ${cssString(short(info.title || file, 80))}; ${box} ${rule('top')} }`
+    + ` @top-right { content: ${cssString(short(ref || file, 50))}; ${box} ${rule('top')} font-weight: bold; white-space: nowrap; }`
+    + ` @bottom-left { content: ${cssString(short(who, 120))}; ${box} ${rule('bottom')} }`
+    + ` @bottom-right { content: "sheet " counter(page) " of " counter(pages); ${box} ${rule('bottom')} font-weight: bold; white-space: nowrap; }`
     + ` }`;
 }

@@ -25,10 +25,11 @@ describe('readTitle(meta)', () => {
   });
 
   it('pageStyle puts the reference in the header and "sheet n of N" from the print engine in the footer', () => {
-    const css = pageStyle(readTitle({ title: 'Ring', calc_ref: 'VB-7', revision: 'B', project: 'P', job: 'J1' }), 'f.md');
-    expect(css).toContain('@top-right { content: "calc VB-7  ·  rev B"');
+    const css = pageStyle(readTitle({ title: 'Ring', calc_ref: 'VB-7', revision: 'B', project: 'P', job: 'J1', prepared: 'A', checked: 'C', date: '2026-01-02' }), 'f.md');
+    expect(css).toContain('@top-left { content: "Ring"');
+    expect(css).toContain('@top-right { content: "calc VB-7  ·  rev B  ·  2026-01-02"');
     expect(css).toContain('content: "sheet " counter(page) " of " counter(pages)');
-    expect(css).toContain('@bottom-left { content: "P  ·  job J1"');
+    expect(css).toContain('@bottom-left { content: "P  ·  job J1  ·  prepared A  ·  checked C"');
   });
 
   it('pageStyle cannot be escaped by a front-matter value', () => {
