@@ -26,28 +26,26 @@ export interface ExtradosPiece {
  */
 export function extradosPieces(centreline: Profile, joints: readonly Joint[], t: Metres): ExtradosPiece[][] {
   const half = Math.PI / 2;
+  // Each joint's extrados end (angles past 90° clamped: the overhang of a horseshoe carries nothing).
+  const ends = joints.map((j) => Math.min(Math.max(j.angle, -half), half));
+  const xs = ends.map((th) => ringPoint(centreline, th, t / 2).x);
   const out: ExtradosPiece[][] = [];
   for (let i = 0; i + 1 < joints.length; i++) {
-    const a = Math.max(joints[i]!.angle, -half);
-    const b = Math.min(joints[i + 1]!.angle, half);
+    const [a, b] = [ends[i]!, ends[i + 1]!];
     if (a < 0 && b > 0 && centreline.phiCrown > 0) {
       const Er = ringPoint(centreline, b, t / 2);
       const T = { x: 0, y: Er.y + Er.x * Math.tan(b) };
       out.push([new LinePiece({ x: -Er.x, y: Er.y }, T), new LinePiece(T, Er)]);
     } else {
-      out.push(a < b ? [new CurvePiece(centreline, t, a, b)] : []);
+      out.push(a < b ? [new CurvePiece(centreline, t, a, b, xs[i]!, xs[i + 1]!)] : []);
     }
   }
   return out;
 }
 
 class CurvePiece implements ExtradosPiece {
-  readonly xa: Metres;
-  readonly xb: Metres;
-  constructor(readonly c: Profile, readonly t: Metres, readonly from: Radians, readonly to: Radians) {
-    this.xa = ringPoint(c, from, t / 2).x;
-    this.xb = ringPoint(c, to, t / 2).x;
-  }
+  constructor(readonly c: Profile, readonly t: Metres, readonly from: Radians, readonly to: Radians,
+    readonly xa: Metres, readonly xb: Metres) {}
   at(th: Radians) {
     const p = ringPoint(this.c, th, this.t / 2);
     return { x: p.x, y: p.y, dx: (this.c.radius(Math.abs(th)) + this.t / 2) * Math.cos(th) };

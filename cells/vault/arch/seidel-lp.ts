@@ -1,4 +1,4 @@
-import { EPS, seidelCore, seidelWorkspace } from './seidel-core.js';
+import { EPS as TOLERANCE, seidelCore, seidelWorkspace } from './seidel-core.js';
 import { randomOrder } from './random-order.js';
 
 /** max c·x subject to a_i·x ≤ b_i (rows of `a`, row-major) and lo ≤ x ≤ hi (finite). */
@@ -35,6 +35,7 @@ export type LpSolver = (lp: LinearProgram) => LpOutcome;
 export function seidelLP(lp: LinearProgram): LpOutcome {
   const d = lp.c.length;
   const m = lp.b.length;
+  const EPS = TOLERANCE;
   const A = new Float64Array(m * d);
   const B = new Float64Array(m);
   for (let i = 0; i < m; i++) {

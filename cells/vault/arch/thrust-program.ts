@@ -67,9 +67,15 @@ export function thrustProgram(ring: ArchRing, t: Metres, loads: ArchLoads): Thru
     }
     const s = Math.sin(jt.angle);
     const xm = jt.mid.x / L;
-    nA.set([Math.cos(jt.angle), -s, 0, l * s], j * 4);
+    const k = 4 * j;
+    nA[k] = Math.cos(jt.angle);
+    nA[k + 1] = -s;
+    nA[k + 3] = l * s;
     nB[j] = w * s;
-    mA.set([-(m0.y - jt.mid.y) / L, (m0.x - jt.mid.x) / L, 1, l * xm - ql], j * 4);
+    mA[k] = -(m0.y - jt.mid.y) / L;
+    mA[k + 1] = (m0.x - jt.mid.x) / L;
+    mA[k + 2] = 1;
+    mA[k + 3] = l * xm - ql;
     mB[j] = w * xm - q;
   });
   return { joints, t, W, L, live: total, nA, nB, mA, mB };

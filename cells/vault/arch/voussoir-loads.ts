@@ -29,37 +29,55 @@ export interface VoussoirLoads {
 export function voussoirLoads(ring: ArchRing, t: Metres, loads: ArchLoads): VoussoirLoads {
   const g = ring.unit_weight * ring.depth;
   const sections = voussoirSections(ring.centreline, ring.joints, t, ring.centroids === 'centreline');
-  const pieces = extradosPieces(ring.centreline, ring.joints, t);
+  // Self-weight alone needs no extrados.
+  const bare = !loads.fill_unit_weight && !loads.dead && !loads.live && !loads.P;
+  const pieces = bare ? sections.map(() => []) : extradosPieces(ring.centreline, ring.joints, t);
   const x0 = -ring.span / 2;
   const liveFrom = loads.live_from === undefined ? -Infinity : x0 + loads.live_from;
   const liveTo = loads.live_to === undefined ? Infinity : x0 + loads.live_to;
   // A point load near a springing stays on the ring when a trial thickness narrows the extrados.
-  const all = pieces.flat();
-  let pointAt = loads.P ? clamp(x0 + (loads.P_at ?? ring.span / 2), all[0]!.xa, all[all.length - 1]!.xb) : NaN;
+  let pointAt = NaN;
+  if (loads.P) {
+    const loaded = pieces.filter((p) => p.length > 0);
+    const [first, last] = [loaded[0]![0]!, loaded[loaded.length - 1]!.at(-1)!];
+    pointAt = clamp(x0 + (loads.P_at ?? ring.span / 2), first.xa, last.xb);
+  }
   const fixed: VerticalLoad[] = [];
   const live: VerticalLoad[] = [];
-  sections.forEach((s, i) => {
-    const f = new Resultant();
-    const l = new Resultant();
-    f.add(g * s.area, s.x);
-    for (const piece of pieces[i]!) {
-      if (loads.fill_unit_weight && loads.fill_level !== undefined) {
-        const [w, wx] = fillColumn(piece, loads.fill_level);
-        f.add(loads.fill_unit_weight * ring.depth * w, wx / (w || 1));
-      }
+  const fillWeight = loads.fill_unit_weight && loads.fill_level !== undefined ? loads.fill_unit_weight * ring.depth : 0;
+  for (let i = 0; i < sections.length; i++) {
+    // Resultants as sums of forces (W) and of their moments about x = 0 (M).
+    let fW = g * sections[i]!.area;
+    let fM = fW * sections[i]!.x;
+    let lW = 0;
+    let lM = 0;
+    for (let k = 0; k < pieces[i]!.length; k++) {
+      const piece = pieces[i]![k]!;
       const { xa, xb } = piece;
-      if (loads.dead) f.add(loads.dead * ring.depth * (xb - xa), (xa + xb) / 2);
+      if (fillWeight) {
+        const column = fillColumn(piece, loads.fill_level!);
+        fW += fillWeight * column.area;
+        fM += fillWeight * column.moment;
+      }
+      if (loads.dead) {
+        fW += loads.dead * ring.depth * (xb - xa);
+        fM += (loads.dead * ring.depth * (xb - xa) * (xa + xb)) / 2;
+      }
       const la = Math.max(xa, liveFrom);
       const lb = Math.min(xb, liveTo);
-      if (loads.live && lb > la) l.add(loads.live * ring.depth * (lb - la), (la + lb) / 2);
+      if (loads.live && lb > la) {
+        lW += loads.live * ring.depth * (lb - la);
+        lM += (loads.live * ring.depth * (lb - la) * (la + lb)) / 2;
+      }
       if (pointAt >= xa && pointAt <= xb) {
-        l.add(loads.P!, pointAt);
+        lW += loads.P!;
+        lM += loads.P! * pointAt;
         pointAt = NaN;
       }
     }
-    fixed.push(f.load());
-    live.push(l.load());
-  });
+    fixed.push({ W: fW, x: fW === 0 ? 0 : fM / fW });
+    live.push({ W: lW, x: lW === 0 ? 0 : lM / lW });
+  }
   return { fixed, live };
 }
 
@@ -67,24 +85,11 @@ function clamp(x: number, lo: number, hi: number): number {
   return Math.min(Math.max(x, lo), hi);
 }
 
-/** Sum of parallel vertical forces and their moment about x = 0. */
-class Resultant {
-  W = 0;
-  Wx = 0;
-  add(W: number, x: number): void {
-    this.W += W;
-    this.Wx += W * x;
-  }
-  load(): VerticalLoad {
-    return { W: this.W, x: this.W === 0 ? 0 : this.Wx / this.W };
-  }
-}
-
-/** ∫ (h − y) dx and ∫ x (h − y) dx over the part of the piece below the fill level h (y is monotone on a piece). */
-function fillColumn(piece: ExtradosPiece, h: Metres): [number, number] {
+/** ∫ (h − y) dx and ∫ x·(h − y) dx over the part of the piece below the fill level h (y is monotone on a piece). */
+function fillColumn(piece: ExtradosPiece, h: Metres): { area: number; moment: number } {
   let { from: a, to: b } = piece;
   const below = (tau: number) => piece.at(tau).y <= h;
-  if (!below(a) && !below(b)) return [0, 0];
+  if (!below(a) && !below(b)) return { area: 0, moment: 0 };
   if (below(a) !== below(b)) {
     let lo = a;
     let hi = b;
@@ -96,12 +101,11 @@ function fillColumn(piece: ExtradosPiece, h: Metres): [number, number] {
     if (below(a)) b = lo;
     else a = hi;
   }
-  let w = 0;
-  let wx = 0;
+  const column = { area: 0, moment: 0 };
   gaussLegendre(a, b, (s, g) => {
     const p = piece.at(s);
-    w += g * (h - p.y) * p.dx;
-    wx += g * p.x * (h - p.y) * p.dx;
+    column.area += g * (h - p.y) * p.dx;
+    column.moment += g * p.x * (h - p.y) * p.dx;
   });
-  return [w, wx];
+  return column;
 }

@@ -3,6 +3,10 @@ import { expectClose } from '../../../helpers/close.js';
 import { archRing, type ArchRingOptions } from '../../../../cells/vault/arch/arch-ring.js';
 import { archLimit } from '../../../../cells/vault/arch/arch-limit.js';
 import type { ArchLoads } from '../../../../cells/vault/arch/types.js';
+import { minimumThickness } from '../../../../cells/vault/arch/minimum-thickness.js';
+import { admissibleProgram } from '../../../../cells/vault/arch/admissible-program.js';
+import { thrustProgram } from '../../../../cells/vault/arch/thrust-program.js';
+import { seidelLP } from '../../../../cells/vault/arch/seidel-lp.js';
 import { simplexLP } from './lp-solver-adapter.js';
 
 /** Small deterministic generator for test data. */
@@ -31,7 +35,7 @@ function randomCase(rand: () => number): [ArchRingOptions, ArchLoads] {
 }
 
 describe('archLimit with seidelLP agrees with the same programmes solved by javascript-lp-solver', () => {
-  it('archLimit(random rings and loads): H_min, H_max, load_factor to 1e-6, t_min (same bisection) to 1e-6, same verdicts', () => {
+  it('archLimit(random rings and loads): H_min, H_max, load_factor to 1e-6, t_min (same root finder) to 1e-6, same verdicts', () => {
     const rand = lcg(31415);
     let compared = 0;
     for (let k = 0; k < 16; k++) {
@@ -51,5 +55,30 @@ describe('archLimit with seidelLP agrees with the same programmes solved by java
     }
     // The random cases exercise every quantity many times over.
     expect(compared).toBeGreaterThan(35);
+  });
+});
+
+describe('minimumThickness against plain bisection on the feasibility LP', () => {
+  it('minimumThickness(random rings and loads) is where a thrust line stops fitting, as bisection finds it to 1e-7', () => {
+    const rand = lcg(2718);
+    let compared = 0;
+    for (let k = 0; k < 10; k++) {
+      const [options, loads] = randomCase(rand);
+      const ring = archRing(options);
+      const tmin = minimumThickness(ring, loads, seidelLP);
+      if (tmin === undefined) continue;
+      const fits = (t: number) => seidelLP(admissibleProgram(thrustProgram(ring, t, loads), [-1, 0, 0], false)).feasible;
+      // Bisection from a bracket that does not use the root finder's answer.
+      let [lo, hi] = [0, 2 * ring.thickness];
+      while (!fits(hi)) hi *= 1.5;
+      while (hi - lo > 1e-9 * hi) {
+        const mid = (lo + hi) / 2;
+        if (fits(mid)) hi = mid;
+        else lo = mid;
+      }
+      expectClose(tmin, hi, 1e-7);
+      compared++;
+    }
+    expect(compared).toBeGreaterThan(5);
   });
 });

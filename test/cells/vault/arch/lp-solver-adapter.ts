@@ -28,13 +28,14 @@ export function toSolverModel(lp: LinearProgram) {
 }
 
 // The package is CommonJS typed as a namespace; at run time the default import is the solver itself.
-type Engine = { Solve(model: unknown): unknown };
+type Engine = { Solve(model: unknown, precision?: number): unknown };
 const loaded = lpSolver as unknown as Engine & { default?: Engine };
 const solver: Engine = typeof loaded.Solve === 'function' ? loaded : loaded.default!;
 
 /** An LpSolver backed by javascript-lp-solver. */
 export function simplexLP(lp: LinearProgram): LpOutcome {
-  const result = solver.Solve(toSolverModel(lp)) as Record<string, number | boolean>;
+  // Its default precision (1e-9) also rounds the answer to 1e-9; ask for 1e-12 so margins near zero keep their sign.
+  const result = solver.Solve(toSolverModel(lp), 1e-12) as Record<string, number | boolean>;
   if (!result.feasible) return { feasible: false };
   return { feasible: true, x: lp.c.map((_, i) => Number(result[`x${i}`] ?? 0)) };
 }
