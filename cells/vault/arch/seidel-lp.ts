@@ -1,4 +1,5 @@
-import { EPS as TOLERANCE, seidelCore, seidelWorkspace } from './seidel-core.js';
+import { EPS as TOLERANCE, seidelCore } from './seidel-core.js';
+import { seidelWorkspace } from './seidel-workspace.js';
 import { randomOrder } from './random-order.js';
 
 /** max c·x subject to a_i·x ≤ b_i (rows of `a`, row-major) and lo ≤ x ≤ hi (finite). */

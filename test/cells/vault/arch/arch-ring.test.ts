@@ -70,4 +70,12 @@ describe('archRing: geometry of the ring', () => {
     // Area of a parallel strip: t times the centreline length (Jacobian R + d integrates to t·R).
     expectClose(ring.weight, 0.4 * 2 * s[s.length - 1]!, 1e-10);
   });
+
+  it('archRing(shape: n) takes the exponent of R = R0·cos^n φ: −3, −2 and 1 give the parabola, catenary and cycloid — radius of curvature p/cos³φ, a/cos²φ, 4r·cos φ (standard calculus)', () => {
+    const common = { span: 10, rise: 3, thickness: 0.5, unit_weight: 2e4, voussoirs: 40 };
+    for (const [n, name] of [[-3, 'parabolic'], [-2, 'catenary'], [1, 'cycloid']] as const) {
+      expectClose(archRing({ shape: n, ...common }).weight, archRing({ shape: name, ...common }).weight, 1e-12);
+    }
+    expect(archRing({ shape: 0.5, ...common }).shape).toBe('power n = 0.5');
+  });
 });
