@@ -1,4 +1,4 @@
-import { EPS as TOLERANCE, seidelCore } from './seidel-core.js';
+import { EPS, seidelCore } from './seidel-core.js';
 import { seidelWorkspace } from './seidel-workspace.js';
 import { randomOrder } from './random-order.js';
 
@@ -36,7 +36,8 @@ export type LpSolver = (lp: LinearProgram) => LpOutcome;
 export function seidelLP(lp: LinearProgram): LpOutcome {
   const d = lp.c.length;
   const m = lp.b.length;
-  const EPS = TOLERANCE;
+  // A local copy: the scans below read it for every row of every round.
+  const eps = EPS;
   const A = new Float64Array(m * d);
   const B = new Float64Array(m);
   for (let i = 0; i < m; i++) {
@@ -77,8 +78,8 @@ export function seidelLP(lp: LinearProgram): LpOutcome {
         ax += t;
         scale += Math.abs(t);
       }
-      if (inWork[i]) (ax - B[i]! >= -1e3 * EPS * scale ? tight : slack).push(i);
-      else if (ax - B[i]! > EPS * scale) worst.push([i, ax - B[i]!]);
+      if (inWork[i]) (ax - B[i]! >= -1e3 * eps * scale ? tight : slack).push(i);
+      else if (ax - B[i]! > eps * scale) worst.push([i, ax - B[i]!]);
     }
     if (worst.length === 0) return { feasible: true, x: Array.from(x) };
     // Next round: the 2d worst violators, then the rows that bind now, then the rest — an

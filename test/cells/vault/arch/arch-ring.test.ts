@@ -1,3 +1,5 @@
+// Sources: centroids of quarter circles and circular sectors from standard tables of plane areas; areas by
+// polar integration done here; radius-of-curvature laws of the profile families from standard calculus.
 import { describe, it, expect } from 'vitest';
 import { expectClose } from '../../../helpers/close.js';
 import { archRing } from '../../../../cells/vault/arch/arch-ring.js';

@@ -1,3 +1,5 @@
+// Source of the expected values: the same programmes solved by an outside general simplex code
+// (javascript-lp-solver), and t_min by plain bisection on the feasibility LP.
 import { describe, it, expect } from 'vitest';
 import { expectClose } from '../../../helpers/close.js';
 import { archRing, type ArchRingOptions } from '../../../../cells/vault/arch/arch-ring.js';

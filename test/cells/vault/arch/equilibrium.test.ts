@@ -1,3 +1,5 @@
+// Source: statics of a rigid block (any statics text) — ΣF = 0 and ΣM = 0 on every voussoir, recomputed
+// from the loads alone.
 import { describe, it, expect } from 'vitest';
 import { expectClose } from '../../../helpers/close.js';
 import { archRing, type ArchRingOptions } from '../../../../cells/vault/arch/arch-ring.js';

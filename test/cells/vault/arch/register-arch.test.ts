@@ -1,3 +1,5 @@
+// Sources: Cocchetti & Rizzi, Frattura ed Integrità Strutturale 51 (2020), eq. (4), t/R = 0.107426 (confirmed
+// in the text); the rest checks the unit boundary.
 import { describe, it, expect } from 'vitest';
 import type { Unit } from 'mathjs';
 import { math } from '../../../../cells/math.js';

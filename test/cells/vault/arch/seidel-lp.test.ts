@@ -1,3 +1,5 @@
+// Sources: a hand calculation for the small programme; an outside general simplex code (javascript-lp-solver)
+// for the random ones.
 import { describe, it, expect } from 'vitest';
 import { expectClose } from '../../../helpers/close.js';
 import { seidelLP, type LinearProgram } from '../../../../cells/vault/arch/seidel-lp.js';
