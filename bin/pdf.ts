@@ -10,8 +10,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 
-/** Where Debian installs Chromium; VAULTBOOK_CHROMIUM overrides it. */
-export const CHROMIUM_PATH = process.env.VAULTBOOK_CHROMIUM ?? '/usr/bin/chromium';
+/** Where Debian installs Chromium. */
+export const CHROMIUM_PATH = '/usr/bin/chromium';
+
+/** The Chromium to use: VAULTBOOK_CHROMIUM when set, else Debian's. */
+export function chromiumPath(): string {
+  return process.env.VAULTBOOK_CHROMIUM || CHROMIUM_PATH;
+}
 
 export const CHROMIUM_ARGS = [
   '--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
@@ -38,7 +43,7 @@ export interface Printer {
  * Starts headless Chromium with a fresh, throw-away profile.
  * @throws ChromiumMissingError when the executable is absent
  */
-export async function launchPrinter(executablePath = CHROMIUM_PATH): Promise<Printer> {
+export async function launchPrinter(executablePath = chromiumPath()): Promise<Printer> {
   if (!existsSync(executablePath)) throw new ChromiumMissingError(executablePath);
   const { chromium } = await import('playwright-core');
   const profile = await mkdtemp(join(tmpdir(), 'vaultbook-chromium-'));
