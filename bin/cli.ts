@@ -9,7 +9,7 @@ type Command = (args: string[], out: (s: string) => void) => Promise<number>;
 
 export const COMMANDS: Record<string, { run: Command; usage: string }> = {
   eval: { run: evalCommand, usage: 'eval FILE [--set NAME=EXPR ...] [--json]      evaluate a calc and list its values' },
-  check: { run: checkCommand, usage: 'check FILE... [--set NAME=EXPR ...] [--json]  evaluate and judge every check (exit 0 all hold, 1 a check fails, 2 errors)' },
+  check: { run: checkCommand, usage: 'check FILE|GLOB... [--set NAME=EXPR ...] [--json] [--jobs N]  evaluate and judge every check (exit 0 all hold, 1 a check fails, 2 errors)' },
   new: { run: (a, o) => import('./commands/new.js').then((m) => m.newCommand(a, o)), usage: 'new [TEMPLATE FILE]                          start a calc from a template (lists templates without one; never overwrites)' },
   diff: { run: (a, o) => import('./commands/diff.js').then((m) => m.diffCommand(a, o)), usage: 'diff OLD NEW | diff FILE --rev REV [--json]  what changed: inputs, results (%), checks flipped (exit 1 when a check newly fails)' },
   render: { run: (a, o) => import('./commands/render.js').then((m) => m.renderCommand(a, o)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium' },
