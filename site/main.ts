@@ -2,6 +2,7 @@
  * The live sheet: wires the document, the sheet, the input fields and the review panel.
  */
 import 'katex/dist/katex.min.css';
+import './runtime-turn.js';
 import { LiveSheet, type PatchEvent } from './preview.js';
 import { enableEditing, markEditable } from './editor.js';
 import { changeBadge, compareToDocument, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';

@@ -2,20 +2,29 @@
  * LiveSheet: one document on the page, kept in step with its session.
  *
  * The whole sheet is rendered once per document text. After that every state
- * change marks its cell; once the runtime has finished its turn the marked
- * cells are rendered again (renderCellOutput) and only the elements whose
- * HTML differs are replaced. When no cell is pending any more the page fires
- * `vaultbook:patched` on document, with the ids patched.
+ * change marks its cell. Once no cell is pending any more (still inside the
+ * runtime's turn, so the patch lands in the same frame as the computation)
+ * the marked cells in or near the viewport are rendered again
+ * (renderCellOutput) and only the elements whose HTML differs are replaced;
+ * the page then fires `vaultbook:patched`. Marked cells further away are
+ * patched in idle time right after (or at once when scrolled to, or before
+ * printing); when none is left the page fires `vaultbook:settled`.
  */
 import { compile, startSession } from '../engine/index.js';
 import type { Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
 import { makeRenderContext, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
 
 export interface PatchEvent {
-  /** Cells whose state changed in this turn (patched or not). */
+  /** Cells whose state changed and were handled in this patch (replaced, or the same HTML). */
   changed: string[];
-  /** Cells whose element was replaced. */
+  /** Elements replaced (cell ids; `@part` for the summary parts). */
   patched: string[];
+  /** Changed cells out of view, left for idle time (0 in `vaultbook:settled`). */
+  deferred: number;
+  /** performance.now() when the runtime began computing this turn (its first pending cell). */
+  computeStart: number;
+  /** performance.now() when the last cell settled and rendering began. */
+  renderStart: number;
   /** performance.now() when the patch finished. */
   at: number;
 }
@@ -25,17 +34,21 @@ export interface LoadResult {
   dropped: Array<{ name: string; reason: string }>;
 }
 
-/** Posts a task after the current one, sooner than setTimeout(0) (which may be clamped to 4 ms). */
-function nextTask(): (fn: () => void) => void {
-  const channel = new MessageChannel();
-  let queued: (() => void) | null = null;
-  channel.port1.onmessage = () => { const f = queued; queued = null; f?.(); };
-  return (fn) => {
-    if (queued) return;
-    queued = fn;
-    channel.port2.postMessage(null);
-  };
+/**
+ * Replaces an element's content with parsed HTML. Parsing into a detached
+ * fragment first is cheaper than innerHTML on a styled, attached element.
+ */
+function replaceInner(el: HTMLElement, html: string): void {
+  const range = document.createRange();
+  range.selectNodeContents(el);
+  el.replaceChildren(range.createContextualFragment(html));
 }
+
+type Idle = (fn: (deadline?: IdleDeadline) => void) => void;
+const idle: Idle = (fn) => (typeof requestIdleCallback === 'function' ? requestIdleCallback(fn, { timeout: 100 }) : setTimeout(fn, 0));
+
+/** Milliseconds of deferred patching per idle slice. */
+const SLICE_MS = 8;
 
 export class LiveSheet {
   doc!: CompiledDocument;
@@ -47,19 +60,34 @@ export class LiveSheet {
   private ctx!: RenderContext;
   private cells = new Map<string, HTMLElement>();
   private parts = new Map<string, HTMLElement>();
+  /** The HTML each element shows, as rendered (not as the DOM serialises it). */
   private lastHtml = new Map<string, string>();
-  private shown = new Map<string, CellState>();
   private dirty = new Set<string>();
+  /** Cells whose field is open: patched when it closes. */
   private held = new Set<string>();
-  private turnChanged = new Set<string>();
-  private turnPatched: string[] = [];
+  /** Changed cells out of view, patched in idle time. */
+  private deferred = new Set<string>();
+  private deferring = false;
+  /** Cells in or near the viewport. */
+  private visible = new Set<string>();
+  private observer: IntersectionObserver | null = null;
+  /** Cells the runtime is computing now; the patch waits until this is empty. */
+  private pending = new Set<string>();
+  private flushQueued = false;
+  private turnStart = 0;
+  private settledChanged = new Set<string>();
+  private settledPatched: string[] = [];
+  /** Set by the first state change after a load. */
+  private touched = false;
   private unsubscribe: (() => void) | null = null;
-  private schedule = nextTask();
   private listeners = new Set<(e: PatchEvent) => void>();
 
-  constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false) {}
+  constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false) {
+    // A printout must show every value: finish deferred patches first.
+    window.addEventListener('beforeprint', () => this.patchDeferred(Infinity));
+  }
 
-  /** Called after each patch turn (before the DOM event). */
+  /** Called after each patch (visible cells, then each idle slice), before the DOM events. */
   onPatch(listener: (e: PatchEvent) => void): () => void {
     this.listeners.add(listener);
     return () => this.listeners.delete(listener);
@@ -102,15 +130,62 @@ export class LiveSheet {
   }
 
   private index(): void {
+    for (const set of [this.dirty, this.held, this.deferred, this.visible, this.pending, this.settledChanged]) set.clear();
     this.cells.clear();
     this.parts.clear();
     this.lastHtml.clear();
-    this.shown = new Map(this.session.states);
-    this.dirty.clear();
-    this.held.clear();
-    for (const el of this.root.querySelectorAll<HTMLElement>('[data-cell]')) this.cells.set(el.dataset.cell!, el);
+    this.settledPatched = [];
+    this.touched = false;
+    this.observer?.disconnect();
+    this.observer = typeof IntersectionObserver === 'function'
+      ? new IntersectionObserver((entries) => this.seen(entries), { rootMargin: '50% 0px 50% 0px' })
+      : null;
+    for (const el of this.root.querySelectorAll<HTMLElement>('[data-cell]')) {
+      this.cells.set(el.dataset.cell!, el);
+      this.observer?.observe(el);
+    }
     for (const el of this.root.querySelectorAll<HTMLElement>('[data-part]')) this.parts.set(el.dataset.part!, el);
-    for (const [part, render] of this.partRenderers()) this.lastHtml.set(`@${part}`, render());
+    for (const [part, render] of this.partRenderers()) {
+      this.lastHtml.set(`@${part}`, render());
+      const el = this.parts.get(part);
+      if (el) this.observer?.observe(el);
+    }
+    this.learnShownHtml();
+  }
+
+  private seen(entries: IntersectionObserverEntry[]): void {
+    let wanted = false;
+    for (const e of entries) {
+      const el = e.target as HTMLElement;
+      const id = el.dataset.cell ?? `@${el.dataset.part}`;
+      if (!e.isIntersecting) this.visible.delete(id);
+      else {
+        this.visible.add(id);
+        wanted ||= this.deferred.has(id);
+      }
+    }
+    // Scrolled to a cell still waiting for its patch: patch what is waiting now.
+    if (wanted) this.patchDeferred(Infinity);
+  }
+
+  /**
+   * In idle time after a load, renders each cell once more to learn the HTML it shows,
+   * so the first edit compares against it instead of replacing every changed element.
+   */
+  private learnShownHtml(): void {
+    const doc = this.doc;
+    const states = new Map(this.session.states);
+    const ids = [...this.cells.keys()];
+    const step = (deadline?: IdleDeadline) => {
+      // Only while the page is as loaded: a render reads the current states, which an edit changes.
+      while (ids.length && this.doc === doc && !this.touched && (!deadline || deadline.timeRemaining() > 2)) {
+        const id = ids.pop()!;
+        const state = states.get(id);
+        if (!this.lastHtml.has(id) && state && state.status !== 'pending') this.lastHtml.set(id, this.render(id, state));
+      }
+      if (ids.length && this.doc === doc && !this.touched) idle(step);
+    };
+    idle(step);
   }
 
   /** The sheet's parts that depend on every cell: status banner, checks summary, diagnostics list. */
@@ -132,9 +207,14 @@ export class LiveSheet {
     return this.doc.graph.byId.get(id);
   }
 
+  /** Is every change on the page (no cell computing, none waiting for its patch)? */
+  get settled(): boolean {
+    return this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0;
+  }
+
   /** The value text an input has now (the override, else the document's). */
   sourceOf(name: string): string {
-    return this.overrides.get(name) ?? this.doc.graph.byId.get(name)?.originalSource ?? this.doc.graph.byId.get(name)?.source ?? '';
+    return this.overrides.get(name) ?? this.documentSourceOf(name);
   }
 
   /** The document's own value text of an input. */
@@ -170,16 +250,33 @@ export class LiveSheet {
   }
 
   private mark(id: string, state: CellState): void {
-    if (state.status === 'pending') return;
+    this.touched = true;
+    if (state.status === 'pending') {
+      if (this.turnStart === 0) this.turnStart = performance.now();
+      this.pending.add(id);
+      return;
+    }
+    this.pending.delete(id);
     this.dirty.add(id);
-    this.schedule(() => this.flush());
+    this.schedule();
+  }
+
+  /** Flushes at the end of the current microtask run, once nothing is pending. */
+  private schedule(): void {
+    if (this.flushQueued) return;
+    this.flushQueued = true;
+    queueMicrotask(() => {
+      this.flushQueued = false;
+      if (this.pending.size === 0) this.flush();
+    });
   }
 
   /** Re-renders cells that were held back (an input being edited) once they are free. */
   release(): void {
+    if (this.held.size === 0) return;
     for (const id of this.held) this.dirty.add(id);
     this.held.clear();
-    this.schedule(() => this.flush());
+    this.schedule();
   }
 
   private render(id: string, state: CellState): string {
@@ -187,44 +284,106 @@ export class LiveSheet {
     return cell ? renderCellOutput(cell, state, this.ctx) : '';
   }
 
-  private flush(): void {
-    const states = this.session.states;
-    for (const id of this.dirty) {
-      const state = states.get(id);
-      const el = this.cells.get(id);
-      if (!state || state.status === 'pending') continue;
-      this.turnChanged.add(id);
-      if (!el) continue;
-      if (this.isHeld(el)) {
-        this.held.add(id);
-        continue;
-      }
-      const before = this.lastHtml.get(id) ?? this.render(id, this.shown.get(id) ?? { status: 'pending' });
-      const html = this.render(id, state);
-      if (html !== before) {
-        el.innerHTML = html;
-        this.turnPatched.push(id);
-      }
-      this.lastHtml.set(id, html);
-      this.shown.set(id, state);
-    }
-    this.dirty.clear();
-    for (const [part, render] of this.partRenderers()) this.patchPart(part, render);
-    for (const s of states.values()) if (s.status === 'pending') return;
-    const event: PatchEvent = { changed: [...this.turnChanged], patched: this.turnPatched, at: performance.now() };
-    this.turnChanged = new Set();
-    this.turnPatched = [];
-    for (const l of this.listeners) l(event);
-    document.dispatchEvent(new CustomEvent('vaultbook:patched', { detail: event }));
+  /** Renders one cell with its current state; true when its element was replaced. */
+  private patchCell(id: string): boolean {
+    const el = this.cells.get(id)!;
+    const state = this.session.states.get(id)!;
+    // Unknown HTML (not learned yet) is replaced: rendering the old state now would mix in new input values.
+    const html = this.render(id, state);
+    if (html === this.lastHtml.get(id)) return false;
+    replaceInner(el, html);
+    this.lastHtml.set(id, html);
+    return true;
   }
 
-  private patchPart(part: string, render: () => string): void {
+  private flush(): void {
+    if (this.dirty.size === 0) return;
+    const renderStart = performance.now();
+    const changed: string[] = [];
+    const patched: string[] = [];
+    for (const id of this.dirty) {
+      const state = this.session.states.get(id);
+      if (!state || state.status === 'pending') continue;
+      const el = this.cells.get(id);
+      if (el && this.observer && !this.visible.has(id) && !this.isHeld(el)) {
+        this.deferred.add(id); // reported when its slice patches it
+        continue;
+      }
+      changed.push(id);
+      if (!el) continue;
+      if (this.isHeld(el)) this.held.add(id);
+      else {
+        this.deferred.delete(id);
+        if (this.patchCell(id)) patched.push(id);
+      }
+    }
+    this.dirty.clear();
+    // The summary parts change with the cells: patched now when in view, else with the deferred cells.
+    for (const [part, render] of this.partRenderers()) {
+      if (this.observer && !this.visible.has(`@${part}`)) this.deferred.add(`@${part}`);
+      else if (this.patchPart(part, render)) patched.push(`@${part}`);
+    }
+    this.emit('vaultbook:patched', changed, patched, this.turnStart || renderStart, renderStart);
+    this.turnStart = 0;
+    if (this.deferred.size && !this.deferring) {
+      this.deferring = true;
+      idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
+    } else if (!this.deferred.size) this.emitSettled();
+  }
+
+  /** Patches waiting cells for up to `budget` ms; schedules the rest. */
+  private patchDeferred(budget: number): void {
+    this.deferring = false;
+    if (!this.deferred.size) return;
+    const start = performance.now();
+    const patched: string[] = [];
+    const done: string[] = [];
+    const parts = new Map(this.partRenderers());
+    for (const id of this.deferred) {
+      if (performance.now() - start > budget) break;
+      done.push(id);
+      if (id.startsWith('@')) {
+        if (this.patchPart(id.slice(1), parts.get(id.slice(1))!)) patched.push(id);
+        continue;
+      }
+      const state = this.session.states.get(id);
+      // A cell computing again is marked anew when it settles.
+      if (!state || state.status === 'pending') continue;
+      if (this.patchCell(id)) patched.push(id);
+    }
+    for (const id of done) this.deferred.delete(id);
+    this.emit(null, done.filter((id) => !id.startsWith('@')), patched, start, start);
+    if (this.deferred.size) {
+      this.deferring = true;
+      idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
+    } else if (this.pending.size === 0 && this.dirty.size === 0) this.emitSettled();
+  }
+
+  private emit(name: string | null, changed: string[], patched: string[], computeStart: number, renderStart: number): void {
+    const event: PatchEvent = { changed, patched, deferred: this.deferred.size, computeStart, renderStart, at: 0 };
+    for (const id of changed) this.settledChanged.add(id);
+    this.settledPatched.push(...patched);
+    // The review badges and panel are part of the patch: time it after them.
+    for (const l of this.listeners) l(event);
+    event.at = performance.now();
+    if (name) document.dispatchEvent(new CustomEvent(name, { detail: event }));
+  }
+
+  private emitSettled(): void {
+    const at = performance.now();
+    const event: PatchEvent = { changed: [...this.settledChanged], patched: this.settledPatched, deferred: 0, computeStart: at, renderStart: at, at };
+    this.settledChanged = new Set();
+    this.settledPatched = [];
+    document.dispatchEvent(new CustomEvent('vaultbook:settled', { detail: event }));
+  }
+
+  private patchPart(part: string, render: () => string): boolean {
     const el = this.parts.get(part);
-    if (!el) return;
+    if (!el) return false;
     const html = render();
-    if (html === this.lastHtml.get(`@${part}`)) return;
-    el.innerHTML = html;
-    this.turnPatched.push(`@${part}`);
+    if (html === this.lastHtml.get(`@${part}`)) return false;
+    replaceInner(el, html);
     this.lastHtml.set(`@${part}`, html);
+    return true;
   }
 }

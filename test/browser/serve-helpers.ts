@@ -71,7 +71,7 @@ export async function openLive(browser: Browser, fixture: string, options: { tra
 }
 
 /** Runs `action` and resolves with the next `vaultbook:<event>` detail the page fires. */
-export async function nextEvent<T = unknown>(page: Page, event: 'patched' | 'loaded' | 'written', action: () => Promise<unknown>, timeout = 20_000): Promise<T> {
+export async function nextEvent<T = unknown>(page: Page, event: 'patched' | 'settled' | 'loaded' | 'written', action: () => Promise<unknown>, timeout = 20_000): Promise<T> {
   await page.evaluate((name) => {
     const w = window as unknown as { __next?: Record<string, Promise<unknown>> };
     w.__next ??= {};
@@ -84,16 +84,16 @@ export async function nextEvent<T = unknown>(page: Page, event: 'patched' | 'loa
   }, { name: event, timeout }) as Promise<T>;
 }
 
-/** Opens an input's field, types a value and presses Enter; resolves once the page has patched. */
+/** Opens an input's field, types a value and presses Enter; resolves once every changed element is patched. */
 export async function editInput(page: Page, name: string, text: string): Promise<{ changed: string[]; patched: string[] }> {
-  return nextEvent(page, 'patched', async () => {
+  return nextEvent(page, 'settled', async () => {
     await page.click(`[data-input="${name}"]`);
     await page.fill(`input.lv-edit[data-edit="${name}"]`, text);
     await page.keyboard.press('Enter');
   });
 }
 
-/** The text of a cell's output region. */
-export function cellText(page: Page, id: string): Promise<string> {
-  return page.locator(`[data-cell="${id}"]`).innerText();
+/** The text of a cell's output region (textContent: off-screen parts of the sheet are not laid out). */
+export async function cellText(page: Page, id: string): Promise<string> {
+  return (await page.locator(`[data-cell="${id}"]`).textContent()) ?? '';
 }

@@ -62,7 +62,7 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       // The middle-third check flips, loudly.
       const third = page.locator('[data-cell="c_third"]');
       expect(await third.getAttribute('class')).toContain('lv-flipped-fail');
-      expect(await third.innerText()).toContain('NOW FAILS');
+      expect(await third.textContent()).toContain('NOW FAILS');
       expect(await page.locator('[data-part="check-summary"]').innerText()).toMatch(/1 of 3 checks NOT satisfied/i);
       // The review panel: the input, document → now, and the flip.
       const panel = page.locator('#lv-review');
@@ -82,9 +82,9 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       await editInput(page, 'L', '6');
       await editInput(page, 't', '0.3 m');
       expect(await page.locator('#lv-review tr[data-review-input]').count()).toBe(2);
-      await nextEvent(page, 'patched', () => page.click('#lv-review [data-action="reset-one"][data-name="t"]'));
+      await nextEvent(page, 'settled', () => page.click('#lv-review [data-action="reset-one"][data-name="t"]'));
       expect(await page.locator('#lv-review tr[data-review-input]').count()).toBe(1);
-      await nextEvent(page, 'patched', () => page.click('#lv-review [data-action="reset-all"]'));
+      await nextEvent(page, 'settled', () => page.click('#lv-review [data-action="reset-all"]'));
       expect(await page.evaluate(() => window.vaultbook.sheet.overrides.size)).toBe(0);
       expect(await page.locator('#lv-review').isHidden()).toBe(true);
       expect(await page.locator('.lv-badge').count()).toBe(0);

@@ -1,0 +1,165 @@
+/**
+ * Live edit latency: in headless Chromium, the time from typing a new input
+ * value (the field's input event) to the page having patched every changed
+ * element in or near view (the `vaultbook:patched` event), measured in the
+ * page with performance.now(). Two series of 50 edits on the largest template
+ * (or the bundled example): the input with the most dependents, and every
+ * input in turn. Target ≤ 16 ms median.
+ */
+import { copyFileSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Page } from 'playwright-core';
+import { startServer } from '../../bin/serve/server.js';
+
+const REPO = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
+const EDITS = 50;
+const WARMUP = 5;
+
+/** The largest template by size, else the example the site ships. */
+function largestDocument(): string {
+  const dir = join(REPO, 'templates');
+  let files: string[] = [];
+  try {
+    files = readdirSync(dir).filter((f) => f.endsWith('.md')).map((f) => join(dir, f));
+  } catch {
+    // no templates yet
+  }
+  files.sort((a, b) => statSync(b).size - statSync(a).size);
+  return files[0] ?? join(REPO, 'site', 'example.md');
+}
+
+function quantile(values: number[], q: number): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const i = (sorted.length - 1) * q;
+  const lo = Math.floor(i), hi = Math.ceil(i);
+  return sorted[lo]! + (sorted[hi]! - sorted[lo]!) * (i - lo);
+}
+
+interface Sample {
+  /** input event → visible patch done */
+  patched: number;
+  /** input event → next frame painted */
+  painted: number;
+  /** input event → every changed element patched */
+  settled: number;
+  wait: number;
+  evaluate: number;
+  render: number;
+  evaluations: number;
+  elements: number;
+}
+
+interface InputInfo { name: string; dependents: number; number: number }
+
+/** The given inputs with their transitive dependents and their value as a bare number in the document's unit. */
+function listInputs(page: Page): Promise<InputInfo[]> {
+  return page.evaluate(() => {
+    const { doc, baseline } = window.vaultbook.sheet;
+    const reach = (name: string) => {
+      const out = new Set([name]);
+      for (let grew = true; grew;) {
+        grew = false;
+        for (const c of doc.graph.cells) if (!out.has(c.id) && c.uses.some((u) => out.has(u))) { out.add(c.id); grew = true; }
+      }
+      return out.size - 1;
+    };
+    const numeric = (v: unknown): number | null => {
+      if (typeof v === 'number') return v;
+      const u = v as { isUnit?: boolean; toNumber: (unit: string) => number; formatUnits: () => string };
+      return u?.isUnit ? u.toNumber(u.formatUnits()) : null;
+    };
+    return doc.graph.cells.flatMap((c) => {
+      const s = baseline.get(c.id);
+      const n = c.kind === 'given' && s?.status === 'ok' ? numeric(s.value) : null;
+      return n !== null && n !== 0 && Number.isFinite(n) ? [{ name: c.name!, dependents: reach(c.name!), number: n }] : [];
+    });
+  });
+}
+
+/** One edit through the input's field, timed in the page. */
+async function timeEdit(page: Page, input: InputInfo, step: number): Promise<Sample> {
+  if (await page.locator(`input.lv-edit[data-edit="${input.name}"]`).count() === 0) {
+    await page.keyboard.press('Escape');
+    await page.click(`[data-input="${input.name}"]`);
+  }
+  return page.evaluate(async ({ name, number, step }) => {
+    const field = document.querySelector<HTMLInputElement>(`input.lv-edit[data-edit="${name}"]`)!;
+    // A bare number: the page keeps the document's unit. Alternate up and down by a few per cent.
+    const text = String(Number((number * (1 + (step % 2 ? -1 : 1) * 0.01 * (1 + (step % 7)))).toPrecision(6)));
+    type Detail = { at: number; patched: string[]; computeStart: number; renderStart: number };
+    const on = (event: string) => new Promise<Detail>((ok) => document.addEventListener(event, (e) => ok((e as CustomEvent).detail), { once: true }));
+    const patched = on('vaultbook:patched'), settled = on('vaultbook:settled');
+    const total = () => [...window.vaultbook.sheet.session.evaluations.values()].reduce((a, b) => a + b, 0);
+    const before = total();
+    const t0 = performance.now();
+    field.value = text;
+    field.dispatchEvent(new Event('input', { bubbles: true }));
+    const p = await patched;
+    // The next frame has been laid out and painted once a task queued from its rAF callback runs.
+    const painted = await new Promise<number>((ok) => requestAnimationFrame(() => setTimeout(() => ok(performance.now()), 0)));
+    const s = await settled;
+    return {
+      patched: p.at - t0, painted: painted - t0, settled: s.at - t0,
+      wait: p.computeStart - t0, evaluate: p.renderStart - p.computeStart, render: p.at - p.renderStart,
+      evaluations: total() - before, elements: s.patched.length,
+    };
+  }, { name: input.name, number: input.number, step });
+}
+
+function summary(label: string, samples: Sample[]): string[] {
+  const m = (k: keyof Sample) => quantile(samples.map((s) => s[k]), 0.5);
+  const p90 = quantile(samples.map((s) => s.patched), 0.9);
+  return [
+    `live-edit: ${label}: input event → patched page median ${m('patched').toFixed(1)} ms (p90 ${p90.toFixed(1)} ms; target ≤ 16 ms: ${m('patched') <= 16 ? 'met' : 'NOT met'})`,
+    `live-edit: ${label}: phases (medians): wait for the runtime's frame ${m('wait').toFixed(1)} ms, evaluate ${m('evaluate').toFixed(1)} ms, render + patch in view ${m('render').toFixed(1)} ms;`
+      + ` next frame painted ${m('painted').toFixed(1)} ms; whole sheet patched ${m('settled').toFixed(1)} ms; ${m('evaluations')} evaluations, ${m('elements')} elements replaced per edit`,
+  ];
+}
+
+export async function run(): Promise<string[]> {
+  const source = largestDocument();
+  const dir = mkdtempSync(join(tmpdir(), 'vaultbook-bench-live-'));
+  const file = join(dir, source.split('/').pop()!);
+  copyFileSync(source, file);
+  const profile = mkdtempSync(join(tmpdir(), 'vaultbook-chromium-'));
+  const server = await startServer({ file, port: 0, logLevel: 'error' });
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium', headless: true, viewport: { width: 1400, height: 1000 },
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+  });
+  try {
+    const page = await context.newPage();
+    // tsx keeps function names with a `__name` helper that the page does not have.
+    await page.addInitScript('window.__name = (f) => f');
+    await page.goto(server.url);
+    await page.evaluate(() => window.vaultbook.ready);
+    const cells = await page.evaluate(() => window.vaultbook.sheet.doc.graph.cells.length);
+    const inputs = await listInputs(page);
+    const worst = [...inputs].sort((a, b) => b.dependents - a.dependents)[0]!;
+    const series = async (pick: (i: number) => InputInfo) => {
+      const out: Sample[] = [];
+      for (let i = 0; i < EDITS + WARMUP; i++) {
+        const s = await timeEdit(page, pick(i), i);
+        if (i >= WARMUP) out.push(s);
+        // A pause between edits, as between keystrokes (random, so edits fall anywhere in a frame).
+        await page.waitForTimeout(30 + Math.random() * 20);
+      }
+      return out;
+    };
+    const worstSamples = await series(() => worst);
+    const everySamples = await series((i) => inputs[i % inputs.length]!);
+    const load = loadavg()[0]!.toFixed(1);
+    return [
+      `live-edit: ${source.replace(`${REPO}/`, '')} (${cells} cells, ${inputs.length} numeric inputs), ${EDITS} edits per series, headless Chromium, 1-min load average ${load}`,
+      ...summary(`"${worst.name}" (${worst.dependents} dependents, the most)`, worstSamples),
+      ...summary('every input in turn', everySamples),
+    ];
+  } finally {
+    await context.close();
+    await server.close();
+    rmSync(profile, { recursive: true, force: true });
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
