@@ -45,6 +45,11 @@ function workingTex(cell: Cell, ctx: RenderContext, substitute: boolean, records
 }
 
 function resultHtml(cell: Cell, value: unknown, ctx: RenderContext): string {
+  // A record written in the document is listed item by item in the working; here it is only named.
+  if (isRecord(value)) {
+    const keys = Object.keys(value as Record<string, unknown>);
+    return `<div class="vb-result vb-note">record of ${keys.length} item${keys.length === 1 ? '' : 's'}: ${escapeHtml(keys.join(', '))}</div>`;
+  }
   const tex = valueTex(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit });
   if (tex !== null && cell.name) return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} = ${tex}`)}</div>`;
   return `<div class="vb-result">${valueHtml(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit })}</div>`;
