@@ -3,7 +3,7 @@
  * value (the field's input event) to the page having patched every changed
  * element in or near view (the `vaultbook:patched` event), measured in the
  * page with performance.now(). Two series of 50 edits on the largest template
- * (or the bundled example): the input with the most dependents, and every
+ * (or the serve tests' fictional fixture): the input with the most dependents, and every
  * input in turn. Target ≤ 16 ms median.
  */
 import { copyFileSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
@@ -17,7 +17,7 @@ const REPO = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const EDITS = 50;
 const WARMUP = 5;
 
-/** The largest template by size, else the example the site ships. */
+/** The largest template by size, else the serve tests' fixture. */
 function largestDocument(): string {
   const dir = join(REPO, 'templates');
   let files: string[] = [];
@@ -27,7 +27,7 @@ function largestDocument(): string {
     // no templates yet
   }
   files.sort((a, b) => statSync(b).size - statSync(a).size);
-  return files[0] ?? join(REPO, 'site', 'example.md');
+  return files[0] ?? join(REPO, 'test', 'serve', 'fixtures', 'barrel.md');
 }
 
 function quantile(values: number[], q: number): number {

@@ -74,6 +74,24 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
     } finally { await live.close(); }
   });
 
+  it('figures and kernel results follow an edit (fictional arch with its line of thrust)', async () => {
+    const live = await openLive(browser, join(FIXTURES, 'arch.md'));
+    try {
+      const { page } = live;
+      const figure = page.locator('[data-cell^="figure@"]');
+      expect(await figure.count()).toBe(1);
+      const svgBefore = await figure.locator('svg').first().evaluate((el) => el.outerHTML);
+      const hBefore = await cellText(page, 'H');
+      await editInput(page, 't', '0.1 m');
+      const svgAfter = await figure.locator('svg').first().evaluate((el) => el.outerHTML);
+      expect(svgAfter).not.toBe(svgBefore);
+      expect(await cellText(page, 'H')).not.toBe(hBefore);
+      // A ring 0.1 m thick over 4 m has a geometric factor of safety below 2 (Heyman's safe theorem).
+      expect(await page.locator('[data-cell="c_gsf"]').getAttribute('class')).toContain('lv-flipped-fail');
+      expect(live.errors).toEqual([]);
+    } finally { await live.close(); }
+  });
+
   it('a second edit and a per-input undo, then one action puts everything back to the document', async () => {
     const live = await openLive(browser, BARREL);
     try {
