@@ -32,7 +32,12 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
   }
   // World: X from the inner (vault) face, positive outwards; z up from the base.
   const margin = Math.max(height, B) * 0.12;
-  const frame = fitFrame({ xMin: -B * 1.2 - margin, xMax: B + margin * 2, yMin: -margin * 0.6, yMax: height + margin * 0.5 }, { left: 10, top: 16, width: 100, height: 110 });
+  const world = { xMin: -B * 1.2 - margin, xMax: B + margin * 2, yMin: -margin * 0.6, yMax: height + margin * 0.5 };
+  // The drawing takes the height its proportions need, between 60 and 110 mm.
+  const drawH = Math.min(110, Math.max(60, (100 * (world.yMax - world.yMin)) / (world.xMax - world.xMin)));
+  // Room above for the vault's load arrow (up to 14 mm).
+  const top = 26;
+  const frame = fitFrame(world, { left: 10, top, width: 100, height: drawH });
   const at = (X: number, z: number): P => frame.at({ x: X, y: z });
   let body = text(10, 6, 'Support in elevation: the thrust, the path of the resultant and the middle third', { fill: INK, 'font-weight': 'bold' });
   for (const blk of blocks) {
@@ -78,6 +83,6 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
   ] as Array<[string, string]>;
   body += lines.map(([t, c], i) => text(112, 30 + i * 5, t, { fill: c, 'font-weight': c === RED ? 'bold' : undefined, 'font-size': 2.3 })).join('');
   body += legendItem({ x: 112, y: 20 }, PATH, 'path of the resultant') + legendItem({ x: 112, y: 24.5 }, THIRD, 'middle third of each section');
-  body += scaleBar(frame.scale, { x: 10, y: 132 }, 35);
-  return markFigure(svgDocument(WIDTH, 140, 'Support in elevation with the path of the resultant and the middle third', body));
+  body += scaleBar(frame.scale, { x: 10, y: top + drawH + 12 }, 35);
+  return markFigure(svgDocument(WIDTH, top + drawH + 20, 'Support in elevation with the path of the resultant and the middle third', body));
 }
