@@ -7,7 +7,7 @@ import type { BarrelMembrane } from '../vault/membrane-summary.js';
 import { el, pathData, svgDocument, text, INK, MUTED } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
 import { panel } from './axes.js';
-import { kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { dimension, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
 import { markFigure } from './registry.js';
 
 const WIDTH = 170;
@@ -39,7 +39,7 @@ export function membranePlot(m: BarrelMembrane): string {
   const right = Array.from({ length: 49 }, (_, i) => profile.point((phiS * i) / 48));
   const curve = [...right.slice(1).reverse().map((p) => ({ x: -p.x, y: p.y })), ...right];
   const b = boundsOf([curve, [{ x: 0, y: profile.point(phiS).y }]], 0.03 * 2 * right[48]!.x);
-  const frame = fitFrame(b, { left: 12, top: 10, width: 58, height: 32 });
+  const frame = fitFrame(b, { left: 12, top: 9, width: 58, height: 30 });
   let body = text(10, 5, 'Membrane forces of the barrel vault (kN/m, compression negative)', { fill: INK, 'font-weight': 'bold' });
   body += el('path', { d: pathData(curve.map((p) => frame.at(p))), stroke: INK, 'stroke-width': 0.6 });
   const spring = profile.point(phiS);
@@ -51,7 +51,8 @@ export function membranePlot(m: BarrelMembrane): string {
   body += el('line', { x1: q.x, y1: q.y, x2: q.x + n.x * 7, y2: q.y + n.y * 7, stroke: INK, 'stroke-width': 0.25 });
   body += el('line', { x1: q.x, y1: q.y, x2: q.x, y2: q.y - 7, stroke: MUTED, 'stroke-width': 0.2, 'stroke-dasharray': '0.8 0.6' });
   body += label(q.x + n.x * 7 + 1.5, q.y + n.y * 7, 'φ', 'start');
-  body += scaleBar(frame.scale, { x: 12, y: 45 }, 30);
+  body += dimension(frame.at({ x: -spring.x, y: spring.y }), frame.at({ x: spring.x, y: spring.y }), -3.5, metres(2 * spring.x));
+  body += scaleBar(frame.scale, { x: 12, y: 47 }, 30);
   // Key values from the kernel's summary.
   const facts = [
     `span of middle surface ${metres(2 * spring.x)}, length between end walls ${metres(2 * l)}`,
