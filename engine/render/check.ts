@@ -134,6 +134,9 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   const bad = tally.fail + tally.none;
   const overall = bad === 0
     ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks satisfied${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
-    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">✗</span> ${tally.fail ? `${tally.fail} of ${checks.length} checks NOT satisfied` : ''}${tally.fail && tally.none ? '; ' : ''}${tally.none ? `${tally.none} not evaluated` : ''}.</p>`;
+    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">✗</span> ${[
+      tally.fail ? `${tally.fail} of ${checks.length} checks NOT satisfied` : '',
+      tally.none ? `${tally.none} of ${checks.length} not evaluated` : '',
+    ].filter(Boolean).join('; ')}.</p>`;
   return `<h2 class="vb-h">Checks</h2>${overall}<table class="vb-summary"><thead><tr><th class="vb-ref">#</th><th>check</th><th class="vb-num">utilization</th><th></th><th>verdict</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;
 }

@@ -58,7 +58,7 @@ function placeOf(d: Diagnostic): string {
 export function renderDiagnostics(doc: CompiledDocument, states: Map<string, CellState>, warnings?: Map<string, Diagnostic>): string {
   const list = collectDiagnostics(doc, states, warnings);
   if (list.length === 0) return '';
-  const items = list.map((d) => `<li class="vb-diag-item vb-diag--${d.severity}"><span class="vb-diag-mark" aria-hidden="true">${SEVERITY_MARK[d.severity]}</span>`
+  const items = list.map((d) => `<li class="vb-diag-item vb-diag-item--${d.severity}"><span class="vb-diag-mark" aria-hidden="true">${SEVERITY_MARK[d.severity]}</span>`
     + `<span class="vb-diag-word">${SEVERITY_WORD[d.severity]}</span> ${placeOf(d)} `
     + `${escapeHtml(d.message)} <span class="vb-rule">[${escapeHtml(d.ruleId)}]</span></li>`).join('');
   return `<h2 class="vb-h">Diagnostics</h2><ul class="vb-diag-list">${items}</ul>`;

@@ -81,7 +81,8 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-diag-mark { display: inline-block; width: 4mm; font-weight: bold; }
 .vb-diag-word { font-weight: bold; font-size: 8pt; letter-spacing: .05em; }
 .vb-diag-note { display: block; color: var(--vb-muted); padding-left: 4mm; }
-.vb-diag--error .vb-diag-word, .vb-diag-item.vb-diag--error .vb-diag-mark { color: var(--vb-fail); }
+.vb-diag--error .vb-diag-word, .vb-diag-item--error .vb-diag-word, .vb-diag-item--error .vb-diag-mark { color: var(--vb-fail); }
+.vb-diag-item--warning .vb-diag-word, .vb-diag-item--warning .vb-diag-mark { color: var(--vb-near); }
 .vb-blocked { margin: 1mm 0; font-size: 9pt; color: var(--vb-muted); font-style: italic; }
 
 /* Cautions and archive */

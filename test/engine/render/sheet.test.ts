@@ -73,7 +73,7 @@ describe('renderSheet({doc, states})', () => {
     expect(stray.length).toBe(1);
     expect(stray[0]!.querySelector('.vb-source')!.text).toBe('half = (L / 2             # unclosed bracket');
     // The summary counts a check that could not be evaluated as not satisfied.
-    expect(byData(root, 'data-part', 'check-summary')[0]!.text).toContain('1 not evaluated');
+    expect(byData(root, 'data-part', 'check-summary')[0]!.text).toContain('1 of 2 not evaluated');
   });
 
   it('renderSheet marks inputs overridden with --set and names them on the first page', async () => {
