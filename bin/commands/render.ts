@@ -90,15 +90,17 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
   }
   const { html, doc, states, warnings } = await renderDocument(bytes.toString('utf8'), file, overrides, await archiveInfo(file, bytes));
   const htmlPath = values.output as string | undefined ?? (values.pdf ? null : defaultHtmlPath(file));
+  // With the sheet on stdout, messages go to stderr so the HTML stays clean.
+  const say = htmlPath === '-' ? (s: string) => { process.stderr.write(`${s}\n`); } : out;
   if (htmlPath === '-') process.stdout.write(html);
   else if (htmlPath) {
     await writeFile(htmlPath, html);
-    out(`wrote ${htmlPath} (${(Buffer.byteLength(html) / 1024).toFixed(0)} kB)`);
+    say(`wrote ${htmlPath} (${(Buffer.byteLength(html) / 1024).toFixed(0)} kB)`);
   }
   if (values.pdf) {
     try {
       await printPdf(html, values.pdf as string);
-      out(`wrote ${values.pdf}`);
+      say(`wrote ${values.pdf}`);
     } catch (e) {
       if (e instanceof ChromiumMissingError) {
         process.stderr.write(`vaultbook render: ${e.message}\n`);
@@ -111,7 +113,7 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
   const verdicts = doc.graph.cells.filter((c) => c.kind === 'check').map((c) => verdictOf(states.get(c.id) ?? { status: 'pending' }));
   const errors = collectDiagnostics(doc, states, warnings).filter((d) => d.severity === 'error').length;
   const failing = verdicts.filter((v) => v === 'fail').length;
-  out(`${verdicts.length} checks: ${verdicts.length - failing - verdicts.filter((v) => v === 'none').length} satisfied, ${failing} not satisfied`
+  say(`${verdicts.length} checks: ${verdicts.length - failing - verdicts.filter((v) => v === 'none').length} satisfied, ${failing} not satisfied`
     + `${errors ? `; ${errors} error${errors === 1 ? '' : 's'}: the sheet says so on its first page` : ''}`);
   if (errors) return 2;
   return failing ? 1 : 0;

@@ -93,11 +93,11 @@ describe('vaultbook render', () => {
     expect(await archiveInfo(file, readFileSync(file))).toMatchObject({ commit: head, dirty: true });
   });
 
-  it('node bin/vaultbook.js render runs from a cold process', () => {
-    const d = scratch();
-    const out = join(d, 'v.html');
-    const r = spawnSync(process.execPath, [join(root, 'bin/vaultbook.js'), 'render', join(fixtures, 'verdicts.md'), '-o', out], { encoding: 'utf8', cwd: root });
+  it('node bin/vaultbook.js render -o - runs from a cold process, the sheet on stdout and messages on stderr', () => {
+    const r = spawnSync(process.execPath, [join(root, 'bin/vaultbook.js'), 'render', join(fixtures, 'verdicts.md'), '-o', '-'], { encoding: 'utf8', cwd: root, maxBuffer: 8e6 });
     expect(r.status).toBe(1);
-    expect(readFileSync(out, 'utf8').startsWith('<!DOCTYPE html>')).toBe(true);
+    expect(r.stdout.startsWith('<!DOCTYPE html>')).toBe(true);
+    expect(r.stdout.trimEnd().endsWith('</html>')).toBe(true);
+    expect(r.stderr).toContain('6 checks: 4 satisfied, 2 not satisfied');
   }, 60_000);
 });
