@@ -9,6 +9,7 @@
 import type { Unit } from 'mathjs';
 import { formatNumber, formatValue, toJsonValue } from '../engine/index.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../engine/index.js';
+import { utilizationText } from '../engine/render/quantity.js';
 
 /** A given input whose value differs from the document's. */
 export interface InputChange {
@@ -125,8 +126,9 @@ function verdict(pass: boolean | null): string {
   return pass === null ? 'no verdict' : pass ? 'holds' : 'FAILS';
 }
 
+/** A utilization as the sheet prints it (two decimals, rounded up), so the badge and the sheet agree. */
 function utilText(u: number | null): string {
-  return u === null ? '—' : formatNumber(u, 3);
+  return u === null ? '—' : utilizationText(u);
 }
 
 /**

@@ -15,7 +15,7 @@ import { basename, dirname, join } from 'node:path';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createServer, type Plugin, type ViteDevServer } from 'vite';
-import { siteConfig, REPO_ROOT } from '../../vite.config.js';
+import { siteConfig, REPO_ROOT } from './site-config.js';
 import { guardRequest, ASSET_TYPES, type GuardPolicy } from './guard.js';
 import { rewriteGivenValues, RewriteError } from './rewrite.js';
 import { writeFileAtomic, removeStaleTemps } from './atomic.js';

@@ -68,7 +68,8 @@ describe('write-back under SIGKILL', { timeout: 600_000 }, () => {
         const page = await browser.context.newPage();
         let how = 'no kill';
         try {
-          await page.goto(url);
+          const response = await page.goto(url);
+          if (!response?.ok()) throw new Error(`GET ${url}: ${response?.status()} ${await response?.text()}`);
           await page.evaluate(() => window.vaultbook.ready);
           await editInput(page, 'L', value);
           if (round === 0) {

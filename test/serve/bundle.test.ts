@@ -3,7 +3,7 @@ import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { build, createLogger } from 'vite';
-import { siteConfig } from '../../vite.config.js';
+import { siteConfig } from '../../bin/serve/site-config.js';
 
 describe('the live sheet bundle', () => {
   it('vite build bundles the page with the engine, cells and renderer, and no Node module', { timeout: 180_000 }, async () => {
