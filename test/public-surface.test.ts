@@ -6,6 +6,7 @@
 import { describe, it, expect } from 'vitest';
 import * as cells from '../cells/index.js';
 import * as engine from '../engine/index.js';
+import * as render from '../engine/render/index.js';
 
 describe('public surface', () => {
   it('cells/index.ts lists exactly the functions a cell may call', () => {
@@ -24,6 +25,14 @@ describe('public surface', () => {
   it('engine/index.ts exports the stage entry points and formatters', () => {
     expect(Object.keys(engine).sort()).toEqual([
       'compile', 'evaluateDocument', 'formatDiagnostic', 'formatNumber', 'formatValue', 'startSession', 'toJsonValue',
+    ]);
+  });
+
+  // The sheet is its own entry so that eval and check do not load KaTeX and the sanitiser.
+  it('engine/render/index.ts exports the sheet renderer', () => {
+    expect(Object.keys(render).sort()).toEqual([
+      'NEAR_LIMIT', 'SHEET_CSS', 'collectDiagnostics', 'makeRenderContext', 'renderArticle', 'renderCellOutput',
+      'renderCheckSummary', 'renderDiagnostics', 'renderSheet', 'renderStatus', 'sha256Hex', 'verdictOf',
     ]);
   });
 });
