@@ -38,7 +38,7 @@ function quantile(values: number[], q: number): number {
 }
 
 interface Sample {
-  /** input event → visible patch done */
+  /** input event → every changed element in or near view patched */
   patched: number;
   /** input event → next frame painted */
   painted: number;
@@ -113,7 +113,7 @@ function summary(label: string, samples: Sample[]): string[] {
   const p90 = quantile(samples.map((s) => s.patched), 0.9);
   return [
     `live-edit: ${label}: input event → patched page median ${m('patched').toFixed(1)} ms (p90 ${p90.toFixed(1)} ms; target ≤ 16 ms: ${m('patched') <= 16 ? 'met' : 'NOT met'})`,
-    `live-edit: ${label}: phases (medians): wait for the runtime's frame ${m('wait').toFixed(1)} ms, evaluate ${m('evaluate').toFixed(1)} ms, render + patch in view ${m('render').toFixed(1)} ms;`
+    `live-edit: ${label}: phases (medians): reading the value and setting the input ${m('wait').toFixed(1)} ms, evaluate ${m('evaluate').toFixed(1)} ms, render + patch in view ${m('render').toFixed(1)} ms;`
       + ` next frame painted ${m('painted').toFixed(1)} ms; whole sheet patched ${m('settled').toFixed(1)} ms; ${m('evaluations')} evaluations, ${m('elements')} elements replaced per edit`,
   ];
 }
