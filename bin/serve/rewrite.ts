@@ -12,6 +12,7 @@
 import { compile } from '../../engine/index.js';
 import type { Cell } from '../../engine/index.js';
 import { parseExpression } from '../../cells/math.js';
+import { commentStart } from '../../engine/parse/statements.js';
 
 /** A change that cannot be written; nothing is rewritten when one is raised. */
 export class RewriteError extends Error {
@@ -40,24 +41,6 @@ function splitLines(text: string): Array<{ body: string; eol: string }> {
   }
   out.push({ body: text.slice(start), eol: '' });
   return out;
-}
-
-/**
- * Index of the `#` that starts a line's comment, or -1. Same rule as the
- * statement splitter: a `#` inside single or double quotes is not a comment.
- */
-function commentStart(line: string, quote: string | null = null): { at: number; quote: string | null } {
-  for (let i = 0; i < line.length; i++) {
-    const c = line[i]!;
-    if (quote) {
-      if (c === '\\') i++;
-      else if (c === quote) quote = null;
-      continue;
-    }
-    if (c === '"' || c === "'") quote = c;
-    else if (c === '#') return { at: i, quote: null };
-  }
-  return { at: -1, quote };
 }
 
 /** Display width in code points, so a comment column lines up after non-ASCII values. */

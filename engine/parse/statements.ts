@@ -25,9 +25,14 @@ interface LineScan {
   quote: string | null;
 }
 
-function scanLine(line: string, depth: number, quote: string | null): LineScan {
-  let i = 0;
-  for (; i < line.length; i++) {
+/**
+ * Where a line's comment starts: the first `#` outside single or double quotes (-1 if none).
+ * @param quote the quote still open from the previous line, if any
+ * @param onCode called with each character outside quotes before the comment
+ * @returns the index of the `#` and the quote still open at the end of the line
+ */
+export function commentStart(line: string, quote: string | null = null, onCode?: (c: string) => void): { at: number; quote: string | null } {
+  for (let i = 0; i < line.length; i++) {
     const c = line[i]!;
     if (quote) {
       if (c === '\\') i++;
@@ -35,11 +40,19 @@ function scanLine(line: string, depth: number, quote: string | null): LineScan {
       continue;
     }
     if (c === '"' || c === "'") quote = c;
-    else if (c === '#') break;
-    else if (c === '(' || c === '[' || c === '{') depth++;
-    else if (c === ')' || c === ']' || c === '}') depth = Math.max(0, depth - 1);
+    else if (c === '#') return { at: i, quote: null };
+    else onCode?.(c);
   }
-  return { code: line.slice(0, i), comment: line.slice(i + 1).trim(), depth, quote };
+  return { at: -1, quote };
+}
+
+function scanLine(line: string, depth: number, quote: string | null): LineScan {
+  const found = commentStart(line, quote, (c) => {
+    if (c === '(' || c === '[' || c === '{') depth++;
+    else if (c === ')' || c === ']' || c === '}') depth = Math.max(0, depth - 1);
+  });
+  const end = found.at < 0 ? line.length : found.at;
+  return { code: line.slice(0, end), comment: found.at < 0 ? '' : line.slice(end + 1).trim(), depth, quote: found.quote };
 }
 
 /** Splits a cell body into statements, keeping line numbers. */
