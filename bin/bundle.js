@@ -3,7 +3,6 @@
 // node_modules/.cache/vaultbook/<build>/ (never committed); the file `current` names the newest.
 // A build is never changed once written, so processes running side by side cannot break each
 // other; a new one is made whenever a source file is newer than the current build.
-import { build } from 'esbuild';
 import { readdirSync, statSync, existsSync, mkdirSync, writeFileSync, renameSync, rmSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -45,6 +44,8 @@ export async function buildBundle() {
   const builtAt = Date.now();
   const dir = `build-${builtAt}-${process.pid}`;
   mkdirSync(cache, { recursive: true });
+  // esbuild is loaded only when a build is needed, not on every start.
+  const { build } = await import('esbuild');
   await build({
     entryPoints: { cli: join(root, 'bin', 'cli.ts') },
     bundle: true, splitting: true, format: 'esm', platform: 'node', target: 'node20',
