@@ -1,3 +1,7 @@
+/**
+ * Sources: linear interpolation between bracketing table rows, and refusing to extrapolate a code
+ * table, are common practice in reading design tables; the expected values are hand arithmetic.
+ */
 import { describe, it, expect } from 'vitest';
 import { math } from '../../cells/math.js';
 import { interp, clamp } from '../../cells/index.js';

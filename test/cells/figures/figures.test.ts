@@ -1,3 +1,10 @@
+/**
+ * Sources: each figure is checked against statics it must show. Force polygon: the pole distance is H
+ * and the load line sums the voussoir weights, so H : ΣW = H_min : W (graphic statics, any statics text).
+ * A symmetric ring has V = W/2 at each springing (equilibrium). Circular barrel under self-weight:
+ * N_φ = −g·R at the crown (membrane theory of cylindrical shells, Flügge ch. 3 — from memory, as in
+ * ../shared/REFERENCES.md). Buttress: where the resultant cuts the base (rigid-block statics).
+ */
 import { describe, expect, it } from 'vitest';
 import { parse } from 'node-html-parser';
 import { archRing } from '../../../cells/vault/arch/arch-ring.js';

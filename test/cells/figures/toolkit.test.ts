@@ -1,3 +1,7 @@
+/**
+ * Sources: none needed — these tests check the SVG plumbing (escaping, finite numbers, frames, scale
+ * bars), not engineering values. The engineering shown in figures is checked in figures.test.ts.
+ */
 import { describe, expect, it } from 'vitest';
 import { el, esc, num, pathData, svgDocument } from '../../../cells/figures/svg.js';
 import { boundsOf, fitFrame, niceStep } from '../../../cells/figures/frame.js';

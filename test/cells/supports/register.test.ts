@@ -1,3 +1,9 @@
+/**
+ * Sources: the registered functions are compared with their kernels (same numbers, units converted).
+ * The tie area A = T·γ_M/f_y is the plastic tension resistance of a bar, EN 1993-1-1 6.2.3 (from memory);
+ * the nominal bar series 8–50 mm is EN 10080 (from memory). Rigid-block statics of the buttress are
+ * checked against closed forms in buttress.test.ts (any statics text).
+ */
 import { describe, it, expect } from 'vitest';
 import { math } from '../../../cells/math.js';
 import { buttress, tie } from '../../../cells/supports/register.js';

@@ -1,3 +1,9 @@
+/**
+ * Sources: the registered functions are compared with their kernels. The closed forms used beside them —
+ * crown hoop force g·R and one web's area (π − 2)·R² for a square semicircular cross vault — are
+ * Heyman, "Equilibrium of Shell Structures" (1977), from memory, verified by our own integration in
+ * groin-vault.test.ts; N_φ = −g·R·cos φ is membrane theory of cylindrical shells (Flügge ch. 3, from memory).
+ */
 import { describe, it, expect } from 'vitest';
 import { math } from '../../../../cells/math.js';
 import { groin_vault, web_membrane_at, vault_bays } from '../../../../cells/vault/register-groin.js';

@@ -1,3 +1,9 @@
+/**
+ * Sources: standard calculus. For a curve parametrised by the normal's inclination φ, |dP/dφ| is the
+ * radius of curvature and the tangent makes the angle φ with the horizontal; arc length is the limit of
+ * chord lengths. Radii of the named curves (catenary a/cos²φ, parabola p/cos³φ, cycloid 4r·cos φ) as
+ * listed in ../shared/REFERENCES.md ("Profile geometry", standard calculus).
+ */
 import { describe, it, expect } from 'vitest';
 import { expectClose } from '../../../helpers/close.js';
 import { offsetProfile, type Profile } from '../../../../cells/vault/profile.js';
