@@ -50,8 +50,10 @@ export async function archiveInfo(file: string, bytes: Buffer): Promise<ArchiveI
   const cwd = dirname(file);
   try {
     const opts = { cwd, timeout: 5000 };
-    const { stdout: head } = await run('git', ['rev-parse', 'HEAD'], opts);
-    const { stdout: status } = await run('git', ['status', '--porcelain', '--', basename(file)], opts);
+    const [{ stdout: head }, { stdout: status }] = await Promise.all([
+      run('git', ['rev-parse', 'HEAD'], opts),
+      run('git', ['status', '--porcelain', '--', basename(file)], opts),
+    ]);
     return { hash, commit: head.trim(), dirty: status.trim() !== '' };
   } catch {
     return { hash };
@@ -65,12 +67,14 @@ export function defaultHtmlPath(file: string): string {
 }
 
 /** The sheet for a document text: compile, evaluate, render (standalone). */
-export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archive?: ArchiveInfo): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic> }> {
+export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic> }> {
   const doc = compile(source, { file, overrides });
   const session = startSession(doc);
   const states = await session.settle();
   const warnings = new Map(session.warnings);
   session.dispose();
+  // The git look-up runs while the document evaluates; it is needed only for the footer.
+  const archive = await archiveLookup;
   const html = renderSheet({ doc, states, warnings, options: { standalone: true, katexCss: loadKatexCss(), ...(archive ? { archive } : {}) } });
   return { html, doc, states, warnings };
 }
@@ -88,7 +92,7 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
     process.stderr.write(`vaultbook render: cannot read ${file}: ${reason}\n`);
     return 2;
   }
-  const { html, doc, states, warnings } = await renderDocument(bytes.toString('utf8'), file, overrides, await archiveInfo(file, bytes));
+  const { html, doc, states, warnings } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes));
   const htmlPath = values.output as string | undefined ?? (values.pdf ? null : defaultHtmlPath(file));
   // With the sheet on stdout, messages go to stderr so the HTML stays clean.
   const say = htmlPath === '-' ? (s: string) => { process.stderr.write(`${s}\n`); } : out;
