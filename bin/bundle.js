@@ -13,6 +13,22 @@ const pointer = join(cache, 'current');
 const SOURCES = ['engine', 'cells', 'bin'];
 const KEEP_OLD_MS = 10 * 60 * 1000;
 
+// mathjs's main entry builds a complete default instance when it is imported (~0.4 s), and
+// cells/math.ts then builds its own. The engine needs only `create` and the factory list `all`,
+// so the bundle takes those two from mathjs's own files and skips the default instance.
+const MATHJS_CORE = join(root, 'node_modules', 'mathjs', 'lib', 'esm');
+const mathjsCore = {
+  name: 'mathjs-core',
+  setup(b) {
+    b.onResolve({ filter: /^mathjs$/ }, () => ({ path: 'mathjs-core', namespace: 'vaultbook' }));
+    b.onLoad({ filter: /^mathjs-core$/, namespace: 'vaultbook' }, () => ({
+      contents: `export { create } from ${JSON.stringify(join(MATHJS_CORE, 'core', 'create.js'))};\n`
+        + `export { all } from ${JSON.stringify(join(MATHJS_CORE, 'entry', 'allFactoriesAny.js'))};\n`,
+      resolveDir: MATHJS_CORE,
+    }));
+  },
+};
+
 /** Newest modification time of the sources and the package files (ms). */
 function newestSource() {
   let newest = 0;
@@ -54,6 +70,7 @@ export async function buildBundle() {
     minifyWhitespace: true, minifySyntax: true,
     // Packages that load their own files or binaries at run time stay in node_modules.
     external: ['vite', 'playwright-core', 'esbuild', 'tsx', 'fsevents', 'lightningcss'],
+    plugins: existsSync(join(MATHJS_CORE, 'core', 'create.js')) ? [mathjsCore] : [],
     banner: { js: "import { createRequire as __vbRequire } from 'node:module'; const require = __vbRequire(import.meta.url);" },
   });
   const tmp = `${pointer}.${process.pid}`;
