@@ -12,8 +12,7 @@ import { parseCells, type FailedStatement } from './parse/cell.js';
 import { buildGraph } from './graph/build.js';
 import { bindGraph, type Session } from './runtime/bind.js';
 import { registerLibrary } from './library.js';
-import { parseExpression } from '../cells/math.js';
-import { collectSymbols } from './graph/symbols.js';
+import { readOverride } from './parse/override.js';
 import { summarise, type Summary } from './summary.js';
 
 export interface CompileOptions {
@@ -24,31 +23,25 @@ export interface CompileOptions {
 }
 
 function applyOverrides(cells: Cell[], overrides: Record<string, string>, ctx: StageContext): void {
+  const names = new Set(cells.map((c) => c.name));
   for (const [name, text] of Object.entries(overrides)) {
     const cell = cells.find((c) => c.name === name);
-    const fail = (message: string, ruleId: Diagnostic['ruleId']) => ctx.diagnostics.push({
-      message, file: ctx.file, line: cell?.span.start.line ?? 1, column: 1, endLine: cell?.span.end.line ?? 1, endColumn: 1,
-      cellId: name, ruleId, severity: 'error',
-    });
-    if (!cell || cell.kind !== 'given') {
+    const reading = readOverride(cell, name, text, (n) => names.has(n));
+    if (!reading.ok) {
       const inputs = cells.filter((c) => c.kind === 'given').map((c) => c.name).join(', ');
-      fail(`--set ${name}: "${name}" is not a given input of this document${inputs ? ` (inputs: ${inputs})` : ''}`, 'set/unknown-input');
+      const list = reading.ruleId === 'set/unknown-input' && inputs ? ` (inputs: ${inputs})` : '';
+      ctx.diagnostics.push({
+        message: `--set ${name}: ${reading.message}${list}`, file: ctx.file, line: cell?.span.start.line ?? 1, column: 1,
+        endLine: cell?.span.end.line ?? 1, endColumn: 1, cellId: name, ruleId: reading.ruleId, severity: 'error',
+      });
       continue;
     }
-    try {
-      const node = parseExpression(text);
-      if (collectSymbols(node).some((u) => u.role !== 'unit' && cells.some((c) => c.name === u.name))) {
-        fail(`--set ${name}: the value must not refer to other cells; give a value such as 7.2 m`, 'set/syntax');
-        continue;
-      }
-      cell.originalSource = cell.source;
-      cell.node = node;
-      cell.source = text;
-      cell.displayUnit = null;
-      cell.overridden = true;
-    } catch (e) {
-      fail(`--set ${name}: cannot read "${text}": ${(e as Error).message}`, 'set/syntax');
-    }
+    const given = reading.cell;
+    given.originalSource = given.source;
+    given.node = reading.node;
+    given.source = text;
+    given.displayUnit = null;
+    given.overridden = true;
   }
 }
 

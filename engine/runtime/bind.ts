@@ -8,8 +8,7 @@
 import { Runtime, type Variable } from '@observablehq/runtime';
 import type { Cell, CellGraph, CellState } from '../types.js';
 import type { Diagnostic, StageContext } from '../diagnostic.js';
-import { parseExpression } from '../../cells/math.js';
-import { collectSymbols } from '../graph/symbols.js';
+import { readOverride } from '../parse/override.js';
 import { CellFailure } from './failure.js';
 import { evaluateCell, checkRange } from './evaluate.js';
 import { observeCell } from './observe.js';
@@ -92,25 +91,20 @@ export function bindGraph(graph: CellGraph, ctx: StageContext): Session {
 
   const setInput = (name: string, source: string): Diagnostic | null => {
     const cell = graph.byId.get(name);
-    const where = (message: string, ruleId: Diagnostic['ruleId']): Diagnostic => ({
-      message, file: ctx.file, line: cell?.span.start.line ?? 1, column: 1, endLine: cell?.span.end.line ?? 1, endColumn: 1,
-      cellId: name, ruleId, severity: 'error',
-    });
-    if (!cell || cell.kind !== 'given') return where(`"${name}" is not a given input of this document`, 'set/unknown-input');
-    let node;
-    try {
-      node = parseExpression(source);
-    } catch (e) {
-      return where(`cannot read the value "${source}": ${(e as Error).message}`, 'set/syntax');
+    const reading = readOverride(cell, name, source, (n) => graph.byId.has(n));
+    if (!reading.ok) {
+      return {
+        message: reading.message, file: ctx.file, line: cell?.span.start.line ?? 1, column: 1, endLine: cell?.span.end.line ?? 1,
+        endColumn: 1, cellId: name, ruleId: reading.ruleId, severity: 'error',
+      };
     }
-    const names = collectSymbols(node).filter((u) => u.role !== 'unit' && graph.byId.has(u.name));
-    if (names.length) return where(`an input value must not refer to other cells (${names[0]!.name}); give a value such as 7.2 m`, 'set/syntax');
-    if (!originals.has(name)) originals.set(name, { node: cell.node, source: cell.source });
-    cell.node = node;
-    cell.source = source;
-    cell.overridden = true;
-    cell.originalSource = originals.get(name)!.source;
-    defineCell(cell);
+    const { node, cell: given } = reading;
+    if (!originals.has(name)) originals.set(name, { node: given.node, source: given.source });
+    given.node = node;
+    given.source = source;
+    given.overridden = true;
+    given.originalSource = originals.get(name)!.source;
+    defineCell(given);
     return null;
   };
 

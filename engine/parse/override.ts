@@ -1,0 +1,32 @@
+/**
+ * readOverride: the text a reviewer puts in place of a `given` input (`--set`, or an
+ * edit in the live sheet), checked the same way wherever it comes from.
+ */
+import type { MathNode } from 'mathjs';
+import { parseExpression } from '../../cells/math.js';
+import { collectSymbols } from '../graph/symbols.js';
+import type { Cell } from '../types.js';
+import type { RuleId } from '../diagnostic.js';
+
+export type OverrideReading =
+  | { ok: true; node: MathNode; cell: Cell }
+  | { ok: false; message: string; ruleId: Extract<RuleId, 'set/unknown-input' | 'set/syntax'> };
+
+/**
+ * Parses an override and refuses what cannot stand in for an input.
+ * @param cell the cell named by the override (undefined when no cell has that name)
+ * @param isCellName whether a name is defined by the document (an override must be a value, not a formula over other cells)
+ * @example readOverride(cellL, 'L', '7.2 m', (n) => names.has(n)) // {ok: true, node, cell}
+ */
+export function readOverride(cell: Cell | undefined, name: string, text: string, isCellName: (n: string) => boolean): OverrideReading {
+  if (!cell || cell.kind !== 'given') return { ok: false, ruleId: 'set/unknown-input', message: `"${name}" is not a given input of this document` };
+  let node: MathNode;
+  try {
+    node = parseExpression(text);
+  } catch (e) {
+    return { ok: false, ruleId: 'set/syntax', message: `cannot read the value "${text}": ${(e as Error).message}` };
+  }
+  const ref = collectSymbols(node).find((u) => u.role !== 'unit' && isCellName(u.name));
+  if (ref) return { ok: false, ruleId: 'set/syntax', message: `an input value must not refer to other cells (${ref.name}); give a value such as 7.2 m` };
+  return { ok: true, node, cell };
+}
