@@ -15,12 +15,15 @@ import { toSI, fromSI, UnitMismatchError } from './units.js';
  * - 'text', 'boolean', 'count' (a whole number ≥ 0), 'any'
  * - `{object: {...}}` a record of named fields; `{list: T}` a list of T
  * - `{ref: 'arch_ring'}` a value returned earlier by that cell function
+ * - `{refWithArgs: 'arch_limit'}` the same, handed over as {value, args}: the raw result and the SI
+ *   arguments of the call that made it (a figure draws a result with the loads it was computed for)
  */
 export type FieldType =
   | string
   | { object: Record<string, FieldType> }
   | { list: FieldType }
-  | { ref: string };
+  | { ref: string }
+  | { refWithArgs: string };
 
 export interface ParamSpec {
   name: string;
@@ -61,6 +64,7 @@ export class CellArgumentError extends Error {
 /** Hidden keys on returned objects: not reachable from an expression. */
 export const KERNEL_VALUE = Symbol('vaultbook.kernelValue');
 export const KERNEL_SOURCE = Symbol('vaultbook.kernelSource');
+export const KERNEL_ARGS = Symbol('vaultbook.kernelArgs');
 
 const KEYWORDS = new Set(['text', 'boolean', 'count', 'any']);
 
@@ -72,6 +76,7 @@ export function isKernelResult(value: unknown): value is Record<string | symbol,
 function describeType(type: FieldType): string {
   if (typeof type === 'string') return KEYWORDS.has(type) ? type : `a quantity in ${type}`;
   if ('ref' in type) return `the result of ${type.ref}(…)`;
+  if ('refWithArgs' in type) return `the result of ${type.refWithArgs}(…)`;
   if ('list' in type) return 'a list';
   return 'a record {…}';
 }
@@ -101,6 +106,12 @@ function toKernel(value: unknown, type: FieldType, what: string): unknown {
       throw new CellArgumentError(`${what} must be ${describeType(type)}`);
     }
     return value[KERNEL_VALUE];
+  }
+  if ('refWithArgs' in type) {
+    if (!isKernelResult(value) || value[KERNEL_SOURCE] !== type.refWithArgs) {
+      throw new CellArgumentError(`${what} must be ${describeType(type)}`);
+    }
+    return { value: value[KERNEL_VALUE], args: value[KERNEL_ARGS] };
   }
   if ('list' in type) {
     const items = math.isMatrix(value) ? (value as { toArray(): unknown[] }).toArray() : value;
@@ -132,7 +143,7 @@ function fromKernel(value: unknown, type: FieldType | undefined): unknown {
     if (typeof value !== 'number') return value;
     return fromSI(value, type);
   }
-  if ('ref' in type) return value;
+  if ('ref' in type || 'refWithArgs' in type) return value;
   if ('list' in type) {
     return Array.isArray(value) ? value.map((v) => fromKernel(v, type.list)) : value;
   }
@@ -173,6 +184,7 @@ export function defineCellFunction<K>(spec: CellFunctionSpec<K>): CellFunction {
     if (typeof shown === 'object' && shown !== null && !Array.isArray(shown) && !math.isUnit(shown)) {
       Object.defineProperty(shown, KERNEL_VALUE, { value: raw, enumerable: false });
       Object.defineProperty(shown, KERNEL_SOURCE, { value: spec.name, enumerable: false });
+      Object.defineProperty(shown, KERNEL_ARGS, { value: kernelArgs, enumerable: false });
     }
     return shown;
   };

@@ -1,5 +1,12 @@
 /** Figure functions, registered for ```figure cells: each returns an SVG string recorded as a figure. */
 import { defineCellFunction, type FieldType } from '../define.js';
+import type { ArchLimit, ArchLoads } from '../vault/arch/types.js';
+
+/** A result handed over with the arguments of the call that made it ({refWithArgs}). */
+interface WithArgs<T> {
+  value: T;
+  args: unknown[];
+}
 import { section as sectionFigure } from './section.js';
 import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
@@ -13,20 +20,25 @@ const ARCH_LOADS: FieldType = {
   },
 };
 
+/** The loads arch_limit was called with (its second argument), or none. */
+function loadsOf(limit: WithArgs<ArchLimit>): ArchLoads {
+  return (limit.args[1] as ArchLoads | undefined) ?? {};
+}
+
 export const section = defineCellFunction({
   name: 'section',
-  doc: 'Figure: the ring to scale with intrados, extrados, the lines of least and greatest thrust and the hinges: section(r, a[, loads]) with the loads given to arch_limit.',
-  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { ref: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
+  doc: 'Figure: the ring to scale with intrados, extrados, the lines of least and greatest thrust and the hinges: section(r, a), drawn with the loads a was computed for (or section(r, a, loads)).',
+  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
   returns: 'text',
-  fn: (ring, limit, loads) => sectionFigure(ring, limit, loads ?? {}),
+  fn: (ring, limit: WithArgs<ArchLimit>, loads?: ArchLoads) => sectionFigure(ring, limit.value, loads ?? loadsOf(limit)),
 });
 
 export const force_polygon = defineCellFunction({
   name: 'force_polygon',
-  doc: 'Figure: the force polygon of the line of least thrust — load line, pole at H, rays and springing reactions: force_polygon(r, a[, loads]).',
-  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { ref: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
+  doc: 'Figure: the force polygon of the line of least thrust — load line, pole at H, rays and springing reactions: force_polygon(r, a), for the loads a was computed for.',
+  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
   returns: 'text',
-  fn: (ring, limit, loads) => forcePolygon(ring, limit, loads ?? {}),
+  fn: (ring, limit: WithArgs<ArchLimit>, loads?: ArchLoads) => forcePolygon(ring, limit.value, loads ?? loadsOf(limit)),
 });
 
 export const membrane_plot = defineCellFunction({
@@ -55,8 +67,9 @@ const SUPPORT_OPTIONS: FieldType = {
 
 export const support_figure = defineCellFunction({
   name: 'support_figure',
-  doc: 'Figure: a wall or buttress in elevation with the thrust, the path of the resultant and the middle third: support_figure(b, options) with the options given to buttress.',
-  params: [{ name: 'support', type: { ref: 'buttress' } }, { name: 'options', type: SUPPORT_OPTIONS }],
+  doc: 'Figure: a wall or buttress in elevation with the thrust, the path of the resultant and the middle third: support_figure(b) with b from buttress.',
+  params: [{ name: 'support', type: { refWithArgs: 'buttress' } }, { name: 'options', type: SUPPORT_OPTIONS, optional: true }],
   returns: 'text',
-  fn: supportFigure,
+  fn: (support: WithArgs<Parameters<typeof supportFigure>[0]>, options?: Parameters<typeof supportFigure>[1]) =>
+    supportFigure(support.value, options ?? (support.args[0] as Parameters<typeof supportFigure>[1])),
 });
