@@ -48,6 +48,19 @@ export function principalForces(f: MembraneForces): [number, number] {
 }
 
 /**
+ * The membrane forces at x = 0 and x = l for one φ, where N_x = G·(l² − x²) and N_xφ = F·x: along
+ * a generatrix the principal forces are largest or smallest at one of these two. With u = x²,
+ * N1,2 = (N_x + N_φ)/2 ± √Q, Q = (N_x − N_φ)²/4 + F²·u; dN1,2/du = 0 needs
+ * (F² − G·(N_x − N_φ)/2)² = G²·Q, which reduces to F² − G²l² + G·N_φ = 0, free of u. So neither
+ * has a stationary point inside (0, l²) unless its slope is zero wherever that holds: each is
+ * monotone in u, and its extremes are at the ends.
+ * @example endExtremes(-20e3, 1e3, -500, 6) // [{N_phi: -20e3, N_x: -18e3, N_xphi: 0}, {N_phi: -20e3, N_x: 0, N_xphi: 6e3}]
+ */
+export function endExtremes(N_phi: number, F: number, G: number, l: Metres): [MembraneForces, MembraneForces] {
+  return [{ N_phi, N_x: G * l * l, N_xphi: 0 }, { N_phi, N_x: 0, N_xphi: F * l }];
+}
+
+/**
  * Summary of the membrane state (membraneField) of a barrel vault.
  * Edge reactions, from the shell's edge tractions: on a lateral wall (φ = ±φs)
  * Nφ acts along the tangent, inclined φs to the horizontal, so per unit length
@@ -72,10 +85,11 @@ export function membraneSummary(
   const NphiS = field.Nphi(phiS);
   const Fmax = largest((phi) => Math.abs(field.F(phi)), 0, phiS).value;
   const Gmax = largest((phi) => field.G(phi), 0, phiS).value, Gmin = -largest((phi) => -field.G(phi), 0, phiS).value;
-  // Principal forces depend on x through x² and on φ through Nxφ², so one quarter of the vault suffices.
+  // Principal forces depend on x through x² and on φ through Nxφ², so one quarter of the vault
+  // suffices; and along x their extremes lie at x = 0 or x = l (endExtremes).
   const worst = (pick: (f: MembraneForces) => number) => largest((phi) => {
     const N_phi = field.Nphi(phi), F = field.F(phi), G = field.G(phi);
-    return largest((x) => pick({ N_phi, N_x: G * (l * l - x * x), N_xphi: F * x }), 0, l, 24).value;
+    return Math.max(...endExtremes(N_phi, F, G, l).map(pick));
   }, 0, phiS, 120).value;
   const N1 = worst((f) => principalForces(f)[0]), N2 = -worst((f) => -principalForces(f)[1]);
   const scale = Math.max(Math.abs(field.Nphi(0)), Math.abs(NphiS), Fmax * l, Math.abs(Gmax) * l * l, Math.abs(Gmin) * l * l);

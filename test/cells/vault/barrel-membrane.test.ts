@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { expectClose } from '../../helpers/close.js';
 import { barrelMembrane, type BarrelMembraneOptions } from '../../../cells/vault/barrel-membrane.js';
 import { membraneAt } from '../../../cells/vault/membrane-at.js';
-import { principalForces } from '../../../cells/vault/membrane-summary.js';
+import { endExtremes, principalForces } from '../../../cells/vault/membrane-summary.js';
 
 const deg = Math.PI / 180;
 
@@ -185,5 +185,38 @@ describe('barrelMembrane over random valid-looking input (property, fast-check)'
         expect(Math.abs(2 * length * m.V_wall + 2 * m.end_shear - m.W)).toBeLessThanOrEqual(1e-9 * Math.max(m.W, 1));
       },
     ), { numRuns: 40, seed: 20240611 });
+  });
+});
+
+describe('principal membrane forces along a generatrix: extremes at x = 0 or x = l (endExtremes)', () => {
+  // The summary looks for the largest principal forces only at the crown section (x = 0) and at the
+  // end walls (x = l), on the derivation in membrane-summary.ts. Here a dense scan of x, which needs
+  // no theory, must never find anything beyond those two ends.
+  it('a scan of 2001 points along x never beats the two ends (property, fast-check)', () => {
+    const force = fc.double({ min: -1e5, max: 1e5, noNaN: true });
+    fc.assert(fc.property(force, force, fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.double({ min: 0.5, max: 40, noNaN: true }), (N_phi, F, G, l) => {
+      const ends = endExtremes(N_phi, F, G, l).map(principalForces);
+      const endMax = Math.max(ends[0]![0], ends[1]![0]), endMin = Math.min(ends[0]![1], ends[1]![1]);
+      const scale = Math.max(Math.abs(N_phi), Math.abs(F) * l, Math.abs(G) * l * l, 1);
+      let scanMax = -Infinity, scanMin = Infinity;
+      for (let i = 0; i <= 2000; i++) {
+        const x = (l * i) / 2000;
+        const [n1, n2] = principalForces({ N_phi, N_x: G * (l * l - x * x), N_xphi: F * x });
+        scanMax = Math.max(scanMax, n1);
+        scanMin = Math.min(scanMin, n2);
+      }
+      expect(scanMax).toBeLessThanOrEqual(endMax + 1e-12 * scale);
+      expect(scanMin).toBeGreaterThanOrEqual(endMin - 1e-12 * scale);
+    }), { numRuns: 300, seed: 20261202 });
+  });
+
+  it.each(['circular', 'catenary', 'parabolic'])('%s barrel: sigma_max agrees with a dense scan of the whole quarter vault (x and φ)', (shape) => {
+    const m = barrelMembrane({ shape, span: 6, rise: 2, length: 10, thickness: 0.15, g: 2700, p: 1500 });
+    const phiS = m.profile.phiSpringing;
+    let most = 0;
+    for (let i = 0; i <= 300; i++) {
+      for (let k = 0; k <= 300; k++) most = Math.max(most, -principalForces(membraneAt(m, (5 * i) / 300, (phiS * k) / 300))[1]);
+    }
+    expectClose(m.sigma_max!, most / 0.15, 1e-4);
   });
 });
