@@ -16,6 +16,8 @@ export interface ArchiveCheckOptions {
   out: (s: string) => void;
   /** Where the progress bar goes (default process.stderr; drawn only on a terminal). */
   progress?: ProgressStream;
+  /** Where a note on the worker threads goes (default process.stderr). */
+  note?: (s: string) => void;
 }
 
 /** 0 when every check holds, 1 when any fails, 2 when any file has an error or could not be read. */
@@ -41,7 +43,7 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
   const bar = progressBar(options.progress ?? process.stderr);
   const tally = { fails: 0, errors: 0 };
   const started = Date.now();
-  const { reports } = await evaluateArchive(expanded.files, {
+  const { reports, workerFailure } = await evaluateArchive(expanded.files, {
     overrides: options.overrides, jobs: options.jobs, full: options.json,
     onReport: (r, done, total) => {
       if (r.fails > 0) tally.fails++;
@@ -50,6 +52,9 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
     },
   });
   bar.finish();
+  if (workerFailure !== undefined) {
+    (options.note ?? ((s: string) => { process.stderr.write(`${s}\n`); }))(`vaultbook check: note: worker threads could not start (${workerFailure}); the files were checked on the main thread alone`);
+  }
   for (const pattern of expanded.unmatched) reports.push(failedReport(pattern, `no file matches ${pattern}`, options.json));
   if (options.json) {
     out(JSON.stringify(reports.map((r) => r.summary), null, 2));

@@ -12,6 +12,7 @@ import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { setImmediate as yieldToEvents } from 'node:timers/promises';
 import { loadAndEvaluate } from '../load.js';
+import { workerUrl } from '../worker-url.js';
 import type { Job } from './worker.js';
 import { failedReport, reportOf, type FileReport } from './report.js';
 
@@ -27,6 +28,8 @@ export interface ArchiveOptions {
   workerDelay?: number;
   /** false: evaluate on worker threads only (`jobs` of them, started at once). */
   useMainThread?: boolean;
+  /** The workers' code (default: the bundled worker, or bin/archive/worker-entry.js from the sources). */
+  workerEntry?: URL;
 }
 
 export interface ArchiveResult {
@@ -36,9 +39,11 @@ export interface ArchiveResult {
   workersStarted: number;
   /** Files evaluated on worker threads (the rest ran on the main thread). */
   byWorkers: number;
+  /** Why the first worker that failed to start did so; absent when none failed. */
+  workerFailure?: string;
 }
 
-const WORKER_ENTRY = new URL('./worker-entry.js', import.meta.url);
+const WORKER_ENTRY = workerUrl('archive-worker.cjs', new URL('./worker-entry.js', import.meta.url));
 /** Files a worker holds at once, so it never waits on the main thread for its next one. */
 const IN_FLIGHT = 2;
 
@@ -57,26 +62,33 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
   /** Live workers and the file ids each holds. */
   const workers = new Map<Worker, Set<number>>();
   let next = 0, done = 0, started = 0, byWorkers = 0, startupFailures = 0;
+  let workerFailure: string | undefined;
 
   return new Promise((resolve) => {
     let timer: NodeJS.Timeout | undefined;
     const finishIfDone = () => {
       if (done < total || workers.size > 0) return;
       clearTimeout(timer);
-      resolve({ reports, workersStarted: started, byWorkers });
+      resolve({ reports, workersStarted: started, byWorkers, ...(workerFailure === undefined ? {} : { workerFailure }) });
     };
     const record = (id: number, report: FileReport) => {
       reports[id] = report;
       done++;
       options.onReport?.(report, done, total);
     };
+    /** Workers stopped on purpose: their exit is no failure. */
+    const stopping = new WeakSet<Worker>();
+    const stopWorker = (w: Worker) => {
+      stopping.add(w);
+      void w.terminate();
+    };
     const stopIdleWorkers = () => {
       if (next < total) return;
-      for (const [w, held] of workers) if (held.size === 0) void w.terminate();
+      for (const [w, held] of workers) if (held.size === 0) stopWorker(w);
     };
 
     const spawn = () => {
-      const worker = new Worker(WORKER_ENTRY, { stdout: false, stderr: false });
+      const worker = new Worker(options.workerEntry ?? WORKER_ENTRY, { stdout: false, stderr: false });
       const held = new Set<number>();
       workers.set(worker, held);
       started++;
@@ -87,7 +99,7 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
           held.add(job.id);
           worker.postMessage(job);
         }
-        if (held.size === 0) void worker.terminate();
+        if (held.size === 0) stopWorker(worker);
       };
       worker.on('message', (msg: { ready?: true; id?: number; report?: FileReport }) => {
         if (msg.ready) { ready = true; return feed(); }
@@ -104,7 +116,10 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
         workers.delete(worker);
         // A worker that never got ready points at a broken set-up, not at a calc:
         // stop starting new ones; the main thread carries on with the queue.
-        if (!ready) startupFailures++;
+        if (!ready && !stopping.has(worker)) {
+          startupFailures++;
+          workerFailure ??= reason;
+        }
         for (const id of held) record(id, failedReport(files[id]!, `worker stopped while evaluating this file: ${reason}`, full));
         held.clear();
         if (next < total && ready && startupFailures === 0) spawn();

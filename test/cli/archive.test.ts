@@ -92,6 +92,16 @@ describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
     expect(seen).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
   });
 
+  it('a worker that cannot start: every file is still checked, on the main thread, and the reason is kept for the note', { timeout: 120_000 }, async () => {
+    const files = planted.slice(0, 6).map((p) => p.path);
+    const result = await evaluateArchive(files, { jobs: 1, useMainThread: false, workerEntry: new URL('file:///nonexistent/vaultbook-worker.js') });
+    expect(result.byWorkers).toBe(0);
+    expect(result.workerFailure).toMatch(/Cannot find module '\/nonexistent\/vaultbook-worker\.js'/);
+    expect(result.reports.map((r) => r.fails)).toEqual(planted.slice(0, 6).map((p) => p.fails));
+    // Workers stopped on purpose (nothing left for them) are no failure.
+    expect((await evaluateArchive(files, { jobs: 2, workerDelay: 0 })).workerFailure).toBeUndefined();
+  });
+
   it('check FOLDER prints one table row per file and the totals (exit 2 with a planted error)', async () => {
     const r = await run(`${dir}/archive/block-00`);
     const n = Math.min(100, COUNT);
