@@ -4,8 +4,10 @@
 // A build is never changed once written, so processes running side by side cannot break each
 // other; a new one is made whenever a source file is newer than the current build.
 import { readdirSync, statSync, existsSync, mkdirSync, writeFileSync, renameSync, rmSync, readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { basename, dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { createRequire } from 'node:module';
+import vm from 'node:vm';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const cache = join(root, 'node_modules', '.cache', 'vaultbook');
@@ -29,6 +31,9 @@ const mathjsCore = {
   },
 };
 
+// Packages that load their own files or binaries at run time stay in node_modules.
+const EXTERNAL = ['vite', 'playwright-core', 'esbuild', 'tsx', 'fsevents', 'lightningcss'];
+
 /** Newest modification time of the sources and the package files (ms). */
 function newestSource() {
   let newest = 0;
@@ -48,31 +53,63 @@ function newestSource() {
 function currentBuild() {
   try {
     const { dir, builtAt } = JSON.parse(readFileSync(pointer, 'utf8'));
-    const entry = join(cache, dir, 'cli.mjs');
+    const entry = join(cache, dir, 'cli.cjs');
     return existsSync(entry) ? { entry, builtAt } : null;
   } catch {
     return null;
   }
 }
 
+// Our own files refer to their neighbours through import.meta.url (the templates folder, katex's
+// files, the worker entry). In a bundle that URL would name the bundle, so each file gets its own
+// source URL written in at build time.
+const OWN_FILES = new RegExp(`^${root.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}[\\/](?:${SOURCES.join('|')})[\\/].*\\.[tj]s$`);
+const sourceUrls = {
+  name: 'source-urls',
+  setup(b) {
+    b.onLoad({ filter: OWN_FILES }, (a) => ({
+      contents: readFileSync(a.path, 'utf8').replaceAll('import.meta.url', JSON.stringify(pathToFileURL(a.path).href)),
+      loader: a.path.endsWith('.ts') ? 'ts' : 'js',
+    }));
+  },
+};
+
 /** Builds a new bundle, points `current` at it, and returns its entry path. */
 export async function buildBundle() {
   const builtAt = Date.now();
   const dir = `build-${builtAt}-${process.pid}`;
+  const outdir = join(cache, dir);
   mkdirSync(cache, { recursive: true });
   // esbuild is loaded only when a build is needed, not on every start.
   const { build } = await import('esbuild');
   await build({
-    entryPoints: { cli: join(root, 'bin', 'cli.ts') },
-    bundle: true, splitting: true, format: 'esm', platform: 'node', target: 'node20',
-    outdir: join(cache, dir), outExtension: { '.js': '.mjs' }, logLevel: 'error', legalComments: 'none',
+    // The command line and its worker threads, each a file of its own (bin/worker-url.ts finds
+    // them in the folder named by __VAULTBOOK_BUNDLE__).
+    entryPoints: {
+      cli: join(root, 'bin', 'cli.ts'),
+      'archive-worker': join(root, 'bin', 'archive', 'worker.ts'),
+    },
+    define: { __VAULTBOOK_BUNDLE__: JSON.stringify(outdir) },
+    // CommonJS, so that loadBundle can hand V8 a code cache (Node 20 has none for ES modules).
+    bundle: true, format: 'cjs', platform: 'node', target: 'node20',
+    outdir, outExtension: { '.js': '.cjs' }, logLevel: 'error', legalComments: 'none',
     // Smaller text parses faster at every start; names are kept for messages and stack traces.
     minifyWhitespace: true, minifySyntax: true,
-    // Packages that load their own files or binaries at run time stay in node_modules.
-    external: ['vite', 'playwright-core', 'esbuild', 'tsx', 'fsevents', 'lightningcss'],
-    plugins: existsSync(join(MATHJS_CORE, 'core', 'create.js')) ? [mathjsCore] : [],
-    banner: { js: "import { createRequire as __vbRequire } from 'node:module'; const require = __vbRequire(import.meta.url);" },
+    // Our code imports the packages left outside with import(), which the bundle keeps.
+    external: EXTERNAL,
+    plugins: [sourceUrls, ...(existsSync(join(MATHJS_CORE, 'core', 'create.js')) ? [mathjsCore] : [])],
   });
+  // esbuild escapes non-ASCII text except inside regular expressions; a handful there would make
+  // Node read the whole bundle as UTF-8 into a two-byte string, slower at every start. \uXXXX
+  // means the same in strings, regular expressions and identifiers.
+  // In the command line's bundle, import() of an outside package becomes a call of the importer
+  // loadBundle passes in: V8 loses the import() callback of functions it takes from a code cache.
+  for (const f of readdirSync(outdir)) {
+    const file = join(outdir, f);
+    let text = readFileSync(file, 'utf8');
+    if (f === 'cli.cjs') for (const name of EXTERNAL) text = text.replaceAll(`import(${JSON.stringify(name)})`, `__vaultbookImport(${JSON.stringify(name)})`);
+    writeFileSync(file, text.replace(/[^\x00-\x7f]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`));
+  }
   const tmp = `${pointer}.${process.pid}`;
   writeFileSync(tmp, JSON.stringify({ dir, builtAt }));
   renameSync(tmp, pointer);
@@ -81,7 +118,37 @@ export async function buildBundle() {
     const m = /^build-(\d+)-/.exec(d);
     if (m && d !== dir && builtAt - Number(m[1]) > KEEP_OLD_MS) rmSync(join(cache, d), { recursive: true, force: true });
   }
-  return join(cache, dir, 'cli.mjs');
+  return join(outdir, 'cli.cjs');
+}
+
+/**
+ * Loads a CommonJS bundle with a V8 code cache beside it, one per `key` (the command), so a start
+ * skips parsing and compiling the functions the same command ran before.
+ * @returns the module's exports, and saveCodeCache() to call once the command has run: it writes
+ *   the cache (now holding every function compiled so far) when there was none or V8 refused it
+ * @example const { exports, saveCodeCache } = loadBundle(entry, 'render')
+ */
+export function loadBundle(entry, key) {
+  const source = readFileSync(entry, 'utf8');
+  const cacheFile = join(dirname(entry), `${basename(entry, '.cjs')}.${key}.v8cache`);
+  let cachedData;
+  try { cachedData = readFileSync(cacheFile); } catch { /* first run of this command */ }
+  const script = new vm.Script(`(function (exports, require, module, __filename, __dirname, __vaultbookImport) {${source}\n})`, { filename: entry, cachedData });
+  const module = { exports: {} };
+  // The bundle's import() of vite and playwright-core (see buildBundle), resolved from here.
+  const importer = (specifier) => import(specifier);
+  script.runInThisContext()(module.exports, createRequire(entry), module, entry, dirname(entry), importer);
+  return {
+    exports: module.exports,
+    saveCodeCache() {
+      if (cachedData && !script.cachedDataRejected) return;
+      try {
+        const tmp = `${cacheFile}.${process.pid}`;
+        writeFileSync(tmp, script.createCachedData());
+        renameSync(tmp, cacheFile);
+      } catch { /* a cache is an optimisation: a read-only install runs without one */ }
+    },
+  };
 }
 
 /** The bundle's entry, rebuilt first when any source is newer than it. */

@@ -14,7 +14,7 @@ import { readFileSync, realpathSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { createServer, type Plugin, type ViteDevServer } from 'vite';
+import type { Plugin, ViteDevServer } from 'vite';
 import { siteConfig, REPO_ROOT } from './site-config.js';
 import { guardRequest, ASSET_TYPES, type GuardPolicy } from './guard.js';
 import { rewriteGivenValues, RewriteError } from './rewrite.js';
@@ -187,6 +187,8 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   };
 
   const base = siteConfig();
+  // Loaded only when serving: the command bundle keeps vite outside and every other command starts without it.
+  const { createServer } = await import('vite');
   const vite = await createServer({
     ...base,
     configFile: false,
