@@ -24,8 +24,19 @@ export interface InputChange {
 export type ResultChange =
   | { kind: 'quantity'; id: string; before: string; after: string; delta: string; percent: string | null; sign: -1 | 0 | 1 }
   | { kind: 'check'; id: string; before: boolean | null; after: boolean | null; flipped: boolean; utilBefore: number | null; utilAfter: number | null }
+  | { kind: 'record'; id: string; fields: FieldChange[] }
   | { kind: 'text'; id: string; before: string; after: string }
   | { kind: 'state'; id: string; before: string; after: string };
+
+/** One field of a record result (a kernel call's answer) that moved. */
+export interface FieldChange {
+  name: string;
+  before: string;
+  after: string;
+  /** The signed difference with its unit, or null when the field is not a quantity (a list, a text). */
+  delta: string | null;
+  percent: string | null;
+}
 
 function isCheck(v: unknown): v is CheckResult {
   return typeof v === 'object' && v !== null && (v as CheckResult).isCheck === true;
@@ -53,13 +64,13 @@ function percentText(diff: number, before: number): string | null {
 }
 
 /** The difference of two plain numbers or same-dimension quantities, or null when they cannot be compared. */
-function quantityChange(cell: Cell, before: unknown, after: unknown, sigfigs: number): ResultChange | null | undefined {
+function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined, before: unknown, after: unknown, sigfigs: number): Extract<ResultChange, { kind: 'quantity' }> | null | undefined {
   if (typeof before === 'number' && typeof after === 'number') {
     const diff = after - before;
     if (Math.abs(diff) <= SAME * Math.max(Math.abs(before), Math.abs(after))) return null;
     const sign = diff > 0 ? 1 : -1;
     return {
-      kind: 'quantity', id: cell.id, before: formatNumber(before, sigfigs), after: formatNumber(after, sigfigs),
+      kind: 'quantity', id, before: formatNumber(before, sigfigs), after: formatNumber(after, sigfigs),
       delta: signedText(diff, formatNumber(diff, sigfigs)), percent: percentText(diff, before), sign,
     };
   }
@@ -68,11 +79,11 @@ function quantityChange(cell: Cell, before: unknown, after: unknown, sigfigs: nu
   const diffSI = siB - siA;
   if (Math.abs(diffSI) <= SAME * Math.max(Math.abs(siA), Math.abs(siB))) return null;
   // Shown in the unit the sheet shows the result in.
-  const unit = toJsonValue(after, { sigfigs }, cell.displayUnit).unit;
+  const unit = toJsonValue(after, { sigfigs }, displayUnit).unit;
   const diff = unit ? after.toNumber(unit) - before.toNumber(unit) : diffSI;
   const diffText = `${formatNumber(diff, sigfigs)}${unit ? ` ${unit}` : ''}`;
   return {
-    kind: 'quantity', id: cell.id, before: formatValue(before, { sigfigs }, unit), after: formatValue(after, { sigfigs }, unit),
+    kind: 'quantity', id, before: formatValue(before, { sigfigs }, unit), after: formatValue(after, { sigfigs }, unit),
     delta: signedText(diffSI, diffText), percent: percentText(diffSI, siA), sign: diffSI > 0 ? 1 : -1,
   };
 }
@@ -101,13 +112,42 @@ export function compareToDocument(cell: Cell, before: CellState | undefined, aft
     if (before?.status === after?.status && (before?.status !== 'blocked' || (before as { by: string }).by === (after as { by: string }).by)) return null;
     return { kind: 'state', id: cell.id, before: stateWord(before), after: stateWord(after) };
   }
-  const q = quantityChange(cell, before.value, after.value, sigfigs);
+  const q = quantityChange(cell.id, cell.displayUnit, before.value, after.value, sigfigs);
   if (q !== undefined) return q;
-  // Figures redraw themselves; records, lists and text are compared by how they read.
+  // Figures redraw themselves; records are compared field by field; lists and text by how they read.
   if (typeof after.value === 'string' && after.value.startsWith('<svg')) return null;
+  if (isRecord(before.value) && isRecord(after.value)) {
+    const fields = recordChanges(before.value, after.value, sigfigs);
+    return fields.length ? { kind: 'record', id: cell.id, fields } : null;
+  }
   const tb = formatValue(before.value, { sigfigs }), ta = formatValue(after.value, { sigfigs });
   return tb === ta ? null : { kind: 'text', id: cell.id, before: tb, after: ta };
 }
+
+function isRecord(v: unknown): v is Record<string, unknown> {
+  return typeof v === 'object' && v !== null && !Array.isArray(v) && !isUnit(v) && !isCheck(v) && Object.getPrototypeOf(v) === Object.prototype;
+}
+
+/** The fields of a record that moved, in the record's order (fields new or gone included). */
+function recordChanges(before: Record<string, unknown>, after: Record<string, unknown>, sigfigs: number): FieldChange[] {
+  const names = [...new Set([...Object.keys(after), ...Object.keys(before)])];
+  const out: FieldChange[] = [];
+  for (const name of names) {
+    const [b, a] = [before[name], after[name]];
+    const q = quantityChange(name, undefined, b, a, sigfigs);
+    if (q === null) continue;
+    if (q) {
+      out.push({ name, before: q.before, after: q.after, delta: q.delta, percent: q.percent });
+      continue;
+    }
+    const tb = b === undefined ? 'absent' : formatValue(b, { sigfigs }), ta = a === undefined ? 'absent' : formatValue(a, { sigfigs });
+    if (tb !== ta) out.push({ name, before: tb, after: ta, delta: null, percent: null });
+  }
+  return out;
+}
+
+/** Fields of a changed record named in its badge; the rest are counted (all are in its tooltip). */
+const BADGE_FIELDS = 3;
 
 /** The inputs whose value text differs from the document's, in document order. */
 export function inputChanges(doc: CompiledDocument, overrides: ReadonlyMap<string, string>): InputChange[] {
@@ -149,6 +189,13 @@ export function changeBadge(change: ResultChange | null): string {
           + `${change.utilBefore !== null || change.utilAfter !== null ? ` (utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)})` : ''}</span>`;
       }
       return `<span class="lv-delta">utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)}</span>`;
+    case 'record': {
+      const one = (f: FieldChange) => (f.delta === null ? `${f.name} ${f.before} → ${f.after}` : `${f.name} ${f.delta}${f.percent ? ` (${f.percent})` : ''}`);
+      const shown = change.fields.slice(0, BADGE_FIELDS).map(one).join('; ');
+      const more = change.fields.length - BADGE_FIELDS;
+      const title = change.fields.map((f) => `${f.name}: ${f.before} → ${f.after}`).join('\n');
+      return `<span class="lv-delta" title="${esc(title)}">Δ ${esc(shown)}${more > 0 ? ` <small>and ${more} more field${more === 1 ? '' : 's'}</small>` : ''}</span>`;
+    }
     case 'text':
       return `<span class="lv-delta" title="document: ${esc(change.before)}">changed</span>`;
     case 'state':

@@ -53,6 +53,45 @@ describe('compareToDocument', () => {
   });
 });
 
+describe('compareToDocument on a record result (a kernel call)', () => {
+  const ARCH = readFileSync(join(FIXTURES, 'arch.md'), 'utf8');
+
+  async function archAfter(edits: Record<string, string>) {
+    const doc = compile(ARCH, { file: 'arch.md' });
+    const session = startSession(doc);
+    const baseline = new Map(await session.settle());
+    const cellA = doc.graph.cells.find((c) => c.name === 'a')!;
+    const before = baseline.get(cellA.id);
+    for (const [n, v] of Object.entries(edits)) expect(session.setInput(n, v)).toBeNull();
+    const after = (await session.settle()).get(cellA.id);
+    session.dispose();
+    return { change: compareToDocument(cellA, before, after, 3), before, after };
+  }
+
+  it('names each field that moved, with its change in its own unit and in per cent', async () => {
+    // The expected change of H_min is read from the two results themselves: this checks the
+    // review's arithmetic and wording, not the kernel (the kernel has its own tests).
+    const { change, before, after } = await archAfter({ t: '0.4 m' });
+    expect(change?.kind).toBe('record');
+    if (change?.kind !== 'record') return;
+    const names = change.fields.map((f) => f.name);
+    expect(names).toEqual(expect.arrayContaining(['H_min', 'H_max', 'gsf', 't_min']));
+    const h = change.fields.find((f) => f.name === 'H_min')!;
+    const [hb, ha] = [(before as { value: { H_min: { toNumber(u: string): number } } }).value.H_min.toNumber('kN'), (after as { value: { H_min: { toNumber(u: string): number } } }).value.H_min.toNumber('kN')];
+    expect(h.delta).toMatch(/^\+[\d.]+ kN$/);
+    expect(Number(h.delta!.slice(1, -3))).toBeCloseTo(ha - hb, 1);
+    expect(h.percent).toBe(`+${((ha - hb) / hb * 100).toPrecision(3)} %`);
+    const badge = changeBadge(change);
+    expect(badge).toContain('H_min +');
+    expect(badge).not.toContain('>changed<');
+    expect(badge).toMatch(/and \d+ more fields?/);
+  });
+
+  it('sees no change when the record is the same', async () => {
+    expect((await archAfter({ t: '300 mm' })).change).toBeNull();
+  });
+});
+
 describe('review panel', () => {
   it('inputChanges and renderReviewPanel list document → now for each changed input', () => {
     const doc = compile(TEXT, { file: 'barrel.md' });
