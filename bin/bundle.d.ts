@@ -8,3 +8,9 @@ export function ensureBundle(): Promise<string>;
 
 /** Loads a CommonJS bundle with its V8 code cache for `key` (the command). */
 export function loadBundle(entry: string, key: string): { exports: Record<string, unknown>; saveCodeCache(): void };
+
+/** import() of the outside packages routed to the importer loadBundle passes in; throws on any other import(). */
+export function routeImports(text: string): string;
+
+/** The bundle text with every non-ASCII character written as an escape of the same meaning. */
+export function asciiOnly(text: string): string;

@@ -49,12 +49,15 @@ function newestSource() {
   return newest;
 }
 
-/** The current build: {entry, builtAt} or null. */
+/**
+ * The current build: {entry, builtAt} or null. A build made for another folder is not current:
+ * it has that folder's paths written in (a checkout moved or copied with its node_modules).
+ */
 function currentBuild() {
   try {
-    const { dir, builtAt } = JSON.parse(readFileSync(pointer, 'utf8'));
+    const { dir, builtAt, builtFor } = JSON.parse(readFileSync(pointer, 'utf8'));
     const entry = join(cache, dir, 'cli.cjs');
-    return existsSync(entry) ? { entry, builtAt } : null;
+    return builtFor === root && existsSync(entry) ? { entry, builtAt } : null;
   } catch {
     return null;
   }
@@ -68,7 +71,8 @@ const sourceUrls = {
   name: 'source-urls',
   setup(b) {
     b.onLoad({ filter: OWN_FILES }, (a) => ({
-      contents: readFileSync(a.path, 'utf8').replaceAll('import.meta.url', JSON.stringify(pathToFileURL(a.path).href)),
+      // A function as the replacement, so that a $ in the path is taken as it is.
+      contents: readFileSync(a.path, 'utf8').replaceAll('import.meta.url', () => JSON.stringify(pathToFileURL(a.path).href)),
       loader: a.path.endsWith('.ts') ? 'ts' : 'js',
     }));
   },
@@ -92,6 +96,9 @@ export async function buildBundle() {
     define: { __VAULTBOOK_BUNDLE__: JSON.stringify(outdir) },
     // CommonJS, so that loadBundle can hand V8 a code cache (Node 20 has none for ES modules).
     bundle: true, format: 'cjs', platform: 'node', target: 'node20',
+    // Template literals become plain strings, which esbuild writes in ASCII; left as they are, the
+    // raw text of a tagged one (String.raw`…`) could keep characters that asciiOnly cannot touch.
+    supported: { 'template-literal': false },
     outdir, outExtension: { '.js': '.cjs' }, logLevel: 'error', legalComments: 'none',
     // Smaller text parses faster at every start; names are kept for messages and stack traces.
     minifyWhitespace: true, minifySyntax: true,
@@ -99,26 +106,58 @@ export async function buildBundle() {
     external: EXTERNAL,
     plugins: [sourceUrls, ...(existsSync(join(MATHJS_CORE, 'core', 'create.js')) ? [mathjsCore] : [])],
   });
-  // esbuild escapes non-ASCII text except inside regular expressions; a handful there would make
-  // Node read the whole bundle as UTF-8 into a two-byte string, slower at every start. \uXXXX
-  // means the same in strings, regular expressions and identifiers.
-  // In the command line's bundle, import() of an outside package becomes a call of the importer
-  // loadBundle passes in: V8 loses the import() callback of functions it takes from a code cache.
   for (const f of readdirSync(outdir)) {
     const file = join(outdir, f);
     let text = readFileSync(file, 'utf8');
-    if (f === 'cli.cjs') for (const name of EXTERNAL) text = text.replaceAll(`import(${JSON.stringify(name)})`, `__vaultbookImport(${JSON.stringify(name)})`);
-    writeFileSync(file, text.replace(/[^\x00-\x7f]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`));
+    if (f === 'cli.cjs') text = routeImports(text);
+    writeFileSync(file, asciiOnly(text));
   }
   const tmp = `${pointer}.${process.pid}`;
-  writeFileSync(tmp, JSON.stringify({ dir, builtAt }));
+  writeFileSync(tmp, JSON.stringify({ dir, builtAt, builtFor: root }));
   renameSync(tmp, pointer);
-  // Old builds go once nobody can still be starting from them.
-  for (const d of readdirSync(cache)) {
-    const m = /^build-(\d+)-/.exec(d);
-    if (m && d !== dir && builtAt - Number(m[1]) > KEEP_OLD_MS) rmSync(join(cache, d), { recursive: true, force: true });
-  }
+  retireOldBuilds(dir);
   return join(outdir, 'cli.cjs');
+}
+
+/**
+ * In the command line's bundle, import() of an outside package becomes a call of the importer that
+ * loadBundle passes in: V8 drops the import() callback of functions it restores from a code cache,
+ * so an import() left in would fail on the second run. Any other import() fails the build.
+ */
+export function routeImports(text) {
+  for (const name of EXTERNAL) text = text.replaceAll(`import(${JSON.stringify(name)})`, `__vaultbookImport(${JSON.stringify(name)})`);
+  const left = /(?<![.\w$"'`])import\s*\(/.exec(text);
+  if (left) throw new Error(`the bundle keeps an import() that the code cache would break: …${text.slice(Math.max(0, left.index - 60), left.index + 40)}…`);
+  return text;
+}
+
+/**
+ * esbuild writes non-ASCII text as escapes except inside regular expressions; a handful there make
+ * Node decode the whole bundle into a two-byte string, slower at every start. In a regular
+ * expression \uXXXX means the character itself, with or without the u flag (a pair of escaped
+ * surrogates is one code point under u); a character escaped by a backslash (\é, an identity
+ * escape) loses that backslash. Strings, identifiers and templates are ASCII by then (see buildBundle).
+ */
+export function asciiOnly(text) {
+  return text.replace(/(\\*)([^\x00-\x7f])/g, (_, slashes, c) => `${slashes.length % 2 ? slashes.slice(1) : slashes}\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+}
+
+/**
+ * Old builds go once nobody can still be starting from them: a build is marked retired when it
+ * stops being current and deleted at a later build, KEEP_OLD_MS after that mark.
+ */
+function retireOldBuilds(current) {
+  const now = Date.now();
+  for (const d of readdirSync(cache)) {
+    if (!/^build-\d+-/.test(d) || d === current) continue;
+    const mark = join(cache, d, 'retired');
+    try {
+      const since = Number(readFileSync(mark, 'utf8'));
+      if (now - since > KEEP_OLD_MS) rmSync(join(cache, d), { recursive: true, force: true });
+    } catch {
+      try { writeFileSync(mark, String(now)); } catch { /* it goes at a later build */ }
+    }
+  }
 }
 
 /**

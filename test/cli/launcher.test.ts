@@ -9,11 +9,41 @@ import { mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'n
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ensureBundle } from '../../bin/bundle.js';
+import { asciiOnly, ensureBundle, routeImports } from '../../bin/bundle.js';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
-const cli = (args: string[], env: Record<string, string> = {}) =>
-  spawnSync(process.execPath, [join(root, 'bin/vaultbook.js'), ...args], { cwd: tmpdir(), encoding: 'utf8', env: { ...process.env, ...env }, maxBuffer: 8e6, timeout: 120_000 });
+const cli = (args: string[], env: Record<string, string> = {}) => {
+  const r = spawnSync(process.execPath, [join(root, 'bin/vaultbook.js'), ...args], { cwd: tmpdir(), encoding: 'utf8', env: { ...process.env, ...env }, maxBuffer: 8e6, timeout: 120_000 });
+  // A launcher that fell back to the TypeScript sources would pass every test below unnoticed.
+  if (!env.VAULTBOOK_NO_BUNDLE) expect(r.stderr).not.toContain('running without the command bundle');
+  return r;
+};
+
+describe('building the bundle', () => {
+  // Each snippet is run before and after asciiOnly; the answers must be the same (ECMAScript's
+  // rules for \\u escapes in regular expressions, with and without the u flag).
+  it.each([
+    ['/[\u00ee\u00ef]/.test("\u00ef")', 'a character class'],
+    ['/^\u2212/.test("\u22125")', 'a plain character'],
+    ['/\\\u00e9/.test("\u00e9")', 'an identity escape (the backslash goes with it)'],
+    ['/\\\\\u00e9/.test("\\\\\u00e9")', 'an escaped backslash before the character (it stays)'],
+    ['/[\ud83d\ude00]/u.test("\ud83d\ude00")', 'a character outside the BMP, u flag'],
+    ['/^.$/u.test("\ud83d\ude00")', 'u flag, one code point'],
+  ])('asciiOnly keeps the meaning of %s (%s)', (escaped) => {
+    // The snippet as it would stand in a bundle, with the characters themselves.
+    const raw = escaped.replace(/\\u([0-9a-f]{4})/g, (_, h: string) => String.fromCharCode(parseInt(h, 16)));
+    const ascii = asciiOnly(raw);
+    expect(/[^\x00-\x7f]/.test(ascii)).toBe(false);
+    expect((0, eval)(ascii)).toBe((0, eval)(raw));
+    expect((0, eval)(raw)).toBe(true);
+  });
+
+  it('routeImports sends import() of vite and playwright-core to the importer and refuses any other import()', () => {
+    expect(routeImports('a=await import("vite");b=await import("playwright-core")')).toBe('a=await __vaultbookImport("vite");b=await __vaultbookImport("playwright-core")');
+    expect(routeImports('x=["import(functions)"]')).toBe('x=["import(functions)"]');
+    expect(() => routeImports('m=await import(name)')).toThrow(/keeps an import\(\)/);
+  });
+});
 
 describe('the command bundle', () => {
   let dir: string;
