@@ -53,7 +53,8 @@ export function principalForces(f: MembraneForces): [number, number] {
  * N1,2 = (N_x + N_φ)/2 ± √Q, Q = (N_x − N_φ)²/4 + F²·u; dN1,2/du = 0 needs
  * (F² − G·(N_x − N_φ)/2)² = G²·Q, which reduces to F² − G²l² + G·N_φ = 0, free of u. So neither
  * has a stationary point inside (0, l²) unless its slope is zero wherever that holds: each is
- * monotone in u, and its extremes are at the ends.
+ * monotone in u, and its extremes are at the ends. (The reduction divides by F²; with F = 0 the
+ * forces are the larger and smaller of N_x and N_φ, N_x linear in u, so monotone again.)
  * @example endExtremes(-20e3, 1e3, -500, 6) // [{N_phi: -20e3, N_x: -18e3, N_xphi: 0}, {N_phi: -20e3, N_x: 0, N_xphi: 6e3}]
  */
 export function endExtremes(N_phi: number, F: number, G: number, l: Metres): [MembraneForces, MembraneForces] {
