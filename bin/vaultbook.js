@@ -9,7 +9,7 @@ import { setFlagsFromString } from 'node:v8';
 // optimising compiler spends more CPU (on the second core, and in stalls on this one) than it
 // saves in that time, so it is asked to wait for 16 times the usual work before optimising a
 // function; a hot loop is still optimised within milliseconds. Set before any of our code loads.
-// (`npm run bench`, render of the largest template: CPU 1.5 → 1.07 s, wall 1.02 → 0.89 s.)
+// (Repeated cold renders of the largest template: CPU 1.5 → 1.07 s, wall 1.02 → 0.89 s.)
 setFlagsFromString('--interrupt-budget=1081344');
 
 const argv = process.argv.slice(2);
