@@ -16,8 +16,6 @@ export interface ArchiveCheckOptions {
   out: (s: string) => void;
   /** Where the progress bar goes (default process.stderr; drawn only on a terminal). */
   progress?: ProgressStream;
-  /** Where a note on the worker threads goes (default process.stderr). */
-  note?: (s: string) => void;
 }
 
 /** 0 when every check holds, 1 when any fails, 2 when any file has an error or could not be read. */
@@ -52,9 +50,7 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
     },
   });
   bar.finish();
-  if (workerFailure !== undefined) {
-    (options.note ?? ((s: string) => { process.stderr.write(`${s}\n`); }))(`vaultbook check: note: worker threads could not start (${workerFailure}); the files were checked on the main thread alone`);
-  }
+  if (workerFailure !== undefined) process.stderr.write(`vaultbook check: note: worker threads could not start (${workerFailure}); the files were checked on the main thread alone\n`);
   for (const pattern of expanded.unmatched) reports.push(failedReport(pattern, `no file matches ${pattern}`, options.json));
   if (options.json) {
     out(JSON.stringify(reports.map((r) => r.summary), null, 2));

@@ -61,7 +61,8 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
   const full = options.full ?? false;
   /** Live workers and the file ids each holds. */
   const workers = new Map<Worker, Set<number>>();
-  let next = 0, done = 0, started = 0, byWorkers = 0, startupFailures = 0;
+  let next = 0, done = 0, started = 0, byWorkers = 0;
+  /** Why the first worker that never got ready stopped; once set, no more workers are started. */
   let workerFailure: string | undefined;
 
   return new Promise((resolve) => {
@@ -116,13 +117,10 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
         workers.delete(worker);
         // A worker that never got ready points at a broken set-up, not at a calc:
         // stop starting new ones; the main thread carries on with the queue.
-        if (!ready && !stopping.has(worker)) {
-          startupFailures++;
-          workerFailure ??= reason;
-        }
+        if (!ready && !stopping.has(worker)) workerFailure ??= reason;
         for (const id of held) record(id, failedReport(files[id]!, `worker stopped while evaluating this file: ${reason}`, full));
         held.clear();
-        if (next < total && ready && startupFailures === 0) spawn();
+        if (next < total && ready && workerFailure === undefined) spawn();
         // No worker left and nobody on the queue: the main thread takes over.
         if (next < total && workers.size === 0 && !mainRunning) void mainLoop();
         finishIfDone();

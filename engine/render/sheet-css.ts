@@ -41,7 +41,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-tb-value { display: block; font-size: 10pt; font-weight: bold; overflow-wrap: anywhere; }
 .vb-tb-extra .vb-tb-value { font-weight: normal; }
 .vb-tb-basis { margin: 0; padding: 0; list-style: none; display: flex; flex-wrap: wrap; gap: 0 6mm; font-size: 9pt; }
-.vb-tb-basis li::before { content: "\25AA  "; color: var(--vb-accent); }
+.vb-tb-basis li::before { content: "▪ "; color: var(--vb-accent); }
 
 /* Banners */
 .vb-banner { margin: 3mm 0; padding: 2.5mm 3mm; font-size: 9.5pt; break-inside: avoid; }
