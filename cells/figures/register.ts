@@ -20,6 +20,9 @@ const ARCH_LOADS: FieldType = {
   },
 };
 
+/** section and force_polygon: the ring, its arch_limit result, and optionally other loads to draw. */
+const RING_FIGURE_PARAMS = [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }];
+
 /** The loads arch_limit was called with (its second argument), or none. */
 function loadsOf(limit: WithArgs<ArchLimit>): ArchLoads {
   return (limit.args[1] as ArchLoads | undefined) ?? {};
@@ -28,7 +31,7 @@ function loadsOf(limit: WithArgs<ArchLimit>): ArchLoads {
 export const section = defineCellFunction({
   name: 'section',
   doc: 'Figure: the ring to scale with intrados, extrados, the lines of least and greatest thrust and the hinges: section(r, a), drawn with the loads a was computed for (or section(r, a, loads)).',
-  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
+  params: RING_FIGURE_PARAMS,
   returns: 'text',
   fn: (ring, limit: WithArgs<ArchLimit>, loads?: ArchLoads) => sectionFigure(ring, limit.value, loads ?? loadsOf(limit)),
 });
@@ -36,7 +39,7 @@ export const section = defineCellFunction({
 export const force_polygon = defineCellFunction({
   name: 'force_polygon',
   doc: 'Figure: the force polygon of the line of least thrust — load line, pole at H, rays and springing reactions: force_polygon(r, a), for the loads a was computed for.',
-  params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }],
+  params: RING_FIGURE_PARAMS,
   returns: 'text',
   fn: (ring, limit: WithArgs<ArchLimit>, loads?: ArchLoads) => forcePolygon(ring, limit.value, loads ?? loadsOf(limit)),
 });
