@@ -43,6 +43,26 @@ export interface CellFunctionSpec<K = any> {
   fn: (...args: any[]) => K;
   /** Names of option fields that must be present (checked before the kernel runs). */
   required?: string[];
+  /** The kernel reference: what `vaultbook help NAME` and docs/ print. */
+  reference?: CellFunctionReference;
+}
+
+/**
+ * The text of a function's entry in the kernel reference, kept beside its declaration so the two
+ * cannot drift apart. Keys of `params` and `fields` are parameter / option names and result field
+ * names (dotted for nested ones, e.g. `options.thickness`, `hinges.angle`).
+ */
+export interface CellFunctionReference {
+  /** Meaning of each argument and option: what it is, its default, its sign convention. */
+  params?: Record<string, string>;
+  /** Meaning of each result field: what it is, sign and angle conventions, when it is ∞ or not available. */
+  fields?: Record<string, string>;
+  /** The method, in a sentence or two. */
+  method?: string;
+  /** Assumptions the result rests on. */
+  assumptions?: string[];
+  /** Published sources followed (author, title, year, equation or clause). */
+  sources?: string[];
 }
 
 /** A registered cell function: the spec plus the unit-converting wrapper. */
