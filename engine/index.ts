@@ -96,7 +96,7 @@ export async function evaluateDocument(source: string, options: CompileOptions =
 }
 
 export { formatDiagnostic } from './diagnostic.js';
-export { formatValue, formatNumber } from './values/format.js';
+export { formatValue, formatNumber, formatUtilization } from './values/format.js';
 export { toJsonValue } from './values/json.js';
 export type { Session } from './runtime/bind.js';
 export type { Summary } from './summary.js';

@@ -7,9 +7,8 @@
  * Pure functions returning data or HTML strings; main.ts puts them on the page.
  */
 import type { Unit } from 'mathjs';
-import { formatNumber, formatValue, toJsonValue } from '../engine/index.js';
+import { formatNumber, formatUtilization, formatValue, toJsonValue } from '../engine/index.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../engine/index.js';
-import { utilizationText } from '../engine/render/quantity.js';
 
 /** A given input whose value differs from the document's. */
 export interface InputChange {
@@ -166,9 +165,9 @@ function verdict(pass: boolean | null): string {
   return pass === null ? 'no verdict' : pass ? 'holds' : 'FAILS';
 }
 
-/** A utilization as the sheet prints it (two decimals, rounded up), so the badge and the sheet agree. */
-function utilText(u: number | null): string {
-  return u === null ? '—' : utilizationText(u);
+/** A utilization as every output prints it (two decimals, rounded up, agreeing with the verdict). */
+function utilText(u: number | null, pass: boolean | null): string {
+  return u === null ? '—' : formatUtilization(u, pass);
 }
 
 /**
@@ -186,9 +185,9 @@ export function changeBadge(change: ResultChange | null): string {
         const fails = change.after === false;
         return `<span class="lv-flip ${fails ? 'lv-flip-fail' : 'lv-flip-pass'}" role="alert">`
           + `${fails ? '✗ NOW FAILS' : '✓ NOW HOLDS'} — the document's values give: ${verdict(change.before)}`
-          + `${change.utilBefore !== null || change.utilAfter !== null ? ` (utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)})` : ''}</span>`;
+          + `${change.utilBefore !== null || change.utilAfter !== null ? ` (utilization ${utilText(change.utilBefore, change.before)} → ${utilText(change.utilAfter, change.after)})` : ''}</span>`;
       }
-      return `<span class="lv-delta">utilization ${utilText(change.utilBefore)} → ${utilText(change.utilAfter)}</span>`;
+      return `<span class="lv-delta">utilization ${utilText(change.utilBefore, change.before)} → ${utilText(change.utilAfter, change.after)}</span>`;
     case 'record': {
       const one = (f: FieldChange) => (f.delta === null ? `${f.name} ${f.before} → ${f.after}` : `${f.name} ${f.delta}${f.percent ? ` (${f.percent})` : ''}`);
       const shown = change.fields.slice(0, BADGE_FIELDS).map(one).join('; ');

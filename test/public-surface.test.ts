@@ -24,7 +24,7 @@ describe('public surface', () => {
 
   it('engine/index.ts exports the stage entry points and formatters', () => {
     expect(Object.keys(engine).sort()).toEqual([
-      'compile', 'evaluateDocument', 'formatDiagnostic', 'formatNumber', 'formatValue', 'startSession', 'toJsonValue',
+      'compile', 'evaluateDocument', 'formatDiagnostic', 'formatNumber', 'formatUtilization', 'formatValue', 'startSession', 'toJsonValue',
     ]);
   });
 

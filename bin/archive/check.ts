@@ -2,7 +2,7 @@
  * archiveCheck: the several-files half of `vaultbook check` — evaluate on the
  * worker pool, draw progress on a terminal, print one table and the findings.
  */
-import { formatDiagnostic, formatNumber } from '../../engine/index.js';
+import { formatDiagnostic, formatUtilization } from '../../engine/index.js';
 import { table } from '../table.js';
 import type { Expansion } from './glob.js';
 import { evaluateArchive } from './pool.js';
@@ -58,11 +58,11 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
   }
 
   const rows = reports.map((r) => [
-    r.file, String(r.checks), String(r.fails), String(r.errors), r.worst === null ? '—' : formatNumber(r.worst, 3), verdictOf(r),
+    r.file, String(r.checks), String(r.fails), String(r.errors), r.worst === null ? '—' : formatUtilization(r.worst, r.worstPass), verdictOf(r),
   ]);
   out(table(['file', 'checks', 'fails', 'errors', 'highest utilization', 'verdict'], rows));
 
-  const failing = reports.flatMap((r) => r.failing.map((c) => `${r.file}:${c.line}  ${c.name ? `${c.name}: ` : ''}${c.source}  utilization ${c.utilization === null ? '—' : formatNumber(c.utilization, 3)}${c.description ? ` — ${c.description}` : ''}`));
+  const failing = reports.flatMap((r) => r.failing.map((c) => `${r.file}:${c.line}  ${c.name ? `${c.name}: ` : ''}${c.source}  utilization ${c.utilization === null ? '—' : formatUtilization(c.utilization, c.pass)}${c.description ? ` — ${c.description}` : ''}`));
   if (failing.length > 0) out(`\nFailing checks (${failing.length}):\n${failing.map((l) => `  ${l}`).join('\n')}`);
   const errors = reports.flatMap((r) => r.errorDiagnostics.map(formatDiagnostic));
   if (errors.length > 0) out(`\nErrors (${errors.length}):\n${errors.map((l) => `  ${l}`).join('\n')}`);
@@ -74,7 +74,7 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
     `\n${plural(reports.length, 'file')}: ${plural(sum((r) => r.checks), 'check')}, ${sum((r) => r.holds)} hold, ${sum((r) => r.fails)} fail`,
     ` (in ${plural(reports.filter((r) => r.fails > 0).length, 'file')})`,
     `; ${plural(sum((r) => r.errors), 'error')} (in ${plural(reports.filter((r) => r.errors > 0).length, 'file')})`,
-    worst ? `; highest utilization ${formatNumber(worst.worst!, 3)} in ${worst.file}` : '',
+    worst ? `; highest utilization ${formatUtilization(worst.worst!, worst.worstPass)} in ${worst.file}` : '',
     `; ${((Date.now() - started) / 1000).toFixed(1)} s`,
   ].join(''));
   return archiveExitCode(reports);

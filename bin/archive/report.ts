@@ -15,6 +15,8 @@ export interface FileReport {
   errors: number;
   /** Highest utilization among the checks that have one; null when none has. */
   worst: number | null;
+  /** Whether that check holds, so its utilization prints in agreement with its verdict. */
+  worstPass: boolean | null;
   /** The check with the highest utilization, as `name: source` or the source. */
   worstCheck: string | null;
   /** The checks that fail, to list after the table. */
@@ -34,9 +36,11 @@ export interface FileReport {
 export function reportOf(summary: Summary, options: { full: boolean; unreadable?: string }): FileReport {
   let worst: number | null = null;
   let worstCheck: string | null = null;
+  let worstPass: boolean | null = null;
   for (const c of summary.checks) {
     if (c.utilization !== null && (worst === null || c.utilization > worst)) {
       worst = c.utilization;
+      worstPass = c.pass;
       worstCheck = c.name ? `${c.name}: ${c.source}` : c.source;
     }
   }
@@ -49,6 +53,7 @@ export function reportOf(summary: Summary, options: { full: boolean; unreadable?
     undecided: summary.checks.filter((c) => c.pass === null).length,
     errors: errorDiagnostics.length,
     worst,
+    worstPass,
     worstCheck,
     failing: summary.checks.filter((c) => c.pass === false),
     errorDiagnostics,

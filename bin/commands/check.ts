@@ -5,15 +5,16 @@
  * One file prints each verdict; several files (a firm's archive) are evaluated
  * on worker threads and summed up in one table.
  */
-import { formatDiagnostic, formatNumber } from '../../engine/index.js';
+import { formatDiagnostic, formatUtilization } from '../../engine/index.js';
 import { parse, readOverrides, SET_OPTION, JSON_OPTION, UsageError } from '../args.js';
 import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
+import type { CheckEntry } from '../../engine/summary.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 
 export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string }): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
-  const u = c.utilization === null ? '     ' : formatNumber(c.utilization, 3).padStart(5);
+  const u = c.utilization === null ? '     ' : formatUtilization(c.utilization, c.pass).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
   return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}`;
 }
@@ -49,8 +50,9 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
     const holds = s.checks.filter((c) => c.pass === true).length;
     const fails = s.checks.filter((c) => c.pass === false).length;
     const errors = s.diagnostics.filter((d) => d.severity === 'error').length;
-    const worst = Math.max(...s.checks.map((c) => c.utilization ?? 0), 0);
-    out(`${r.file}: ${s.checks.length} checks, ${holds} hold, ${fails} fail; ${errors} error${errors === 1 ? '' : 's'}; highest utilization ${formatNumber(worst, 3)}`);
+    const worst = s.checks.reduce<CheckEntry | null>((w, c) => (c.utilization !== null && (w === null || c.utilization > w.utilization!) ? c : w), null);
+    const highest = worst ? formatUtilization(worst.utilization!, worst.pass) : '—';
+    out(`${r.file}: ${s.checks.length} checks, ${holds} hold, ${fails} fail; ${errors} error${errors === 1 ? '' : 's'}; highest utilization ${highest}`);
   }
   return exitCodeFor(results);
 }

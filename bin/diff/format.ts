@@ -4,7 +4,7 @@
  * then housekeeping (cells, figures, prose, title block).
  * Pure: no Node imports.
  */
-import { formatDiagnostic, formatNumber } from '../../engine/index.js';
+import { formatDiagnostic, formatNumber, formatUtilization } from '../../engine/index.js';
 import type { DocumentDiff, ValueChange } from './document.js';
 import type { CheckChange, CheckSide } from './checks.js';
 import { formatMove, formatPercent } from './values.js';
@@ -45,7 +45,7 @@ const MARK: Record<CheckChange['change'], string> = {
 };
 
 function checkRow(c: CheckChange): string[] {
-  const u = (s: CheckSide | null) => (s?.utilization === null || s === null ? '—' : formatNumber(s.utilization, 3));
+  const u = (s: CheckSide | null) => (s === null || s.utilization === null ? '—' : formatUtilization(s.utilization, s.verdict === 'no verdict' ? null : s.verdict === 'holds'));
   const verdict = c.change === 'added' ? `added, ${VERDICT_TEXT[c.new!.verdict]}`
     : c.change === 'removed' ? `removed (${VERDICT_TEXT[c.old!.verdict]})`
     : c.old!.verdict === c.new!.verdict ? VERDICT_TEXT[c.new!.verdict] : `${VERDICT_TEXT[c.old!.verdict]} → ${VERDICT_TEXT[c.new!.verdict]}`;

@@ -6,12 +6,12 @@
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../types.js';
-import { splitQuantity } from '../values/format.js';
+import { formatUtilization, splitQuantity } from '../values/format.js';
 import { anchorId, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { exprTex, readsNames } from './tex.js';
 import { symbolTex } from './names.js';
-import { readableUnit, utilizationText, valueTex } from './quantity.js';
+import { readableUnit, valueTex } from './quantity.js';
 import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
@@ -47,10 +47,15 @@ function utilizationBar(u: number | null): string {
   return `<span class="vb-bar" aria-hidden="true"><span class="vb-bar-fill" style="width:${width.toFixed(1)}%"></span></span>`;
 }
 
+/** The utilization text, agreeing with the verdict at the limit. */
+function utilizationOf(verdict: Verdict, u: number): string {
+  return formatUtilization(u, verdict === 'fail' ? false : verdict === 'none' ? null : true);
+}
+
 /** The verdict badge: mark, word and utilization. */
 export function verdictHtml(verdict: Verdict, utilization: number | null): string {
   const { mark, word } = WORDS[verdict];
-  const u = utilization === null ? '' : `<span class="vb-util">u = ${utilizationText(utilization)}</span>${utilizationBar(utilization)}`;
+  const u = utilization === null ? '' : `<span class="vb-util">u = ${utilizationOf(verdict, utilization)}</span>${utilizationBar(utilization)}`;
   return `<div class="vb-verdict vb-verdict--${verdict}"><span class="vb-mark" aria-hidden="true">${mark}</span><span class="vb-word">${word}</span>${u}</div>`;
 }
 
@@ -83,7 +88,7 @@ function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, recor
       if (compared !== rows[rows.length - 1]) rows.push(compared);
       if (r.utilization !== null) {
         const [num, den] = r.op === '>=' || r.op === '>' ? [sides[1], sides[0]] : sides;
-        rows.push(`\\text{utilization} = \\frac{${num}}{${den}} = ${utilizationText(r.utilization)}`);
+        rows.push(`\\text{utilization} = \\frac{${num}}{${den}} = ${formatUtilization(r.utilization, r.pass)}`);
       }
     }
   }
@@ -127,7 +132,7 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
     const u = state.status === 'ok' ? (state.value as CheckResult).utilization : null;
     const what = cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false));
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
-      + `<td class="vb-num">${u === null ? '—' : utilizationText(u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
+      + `<td class="vb-num">${u === null ? '—' : utilizationOf(verdict, u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
       + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`
       + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
   }).join('');

@@ -5,7 +5,9 @@
  */
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
-import { displayUnitOf, formatNumber, formatValue, splitQuantity } from '../values/format.js';
+import { engineeringUnit, formatNumber, formatValue, readableUnit, splitQuantity } from '../values/format.js';
+
+export { engineeringUnit, readableUnit } from '../values/format.js';
 import type { CheckResult } from '../types.js';
 import { escapeHtml, texText } from './escape.js';
 
@@ -106,30 +108,6 @@ export interface ShowOptions {
   engineering?: boolean;
 }
 
-/**
- * The engineering unit for a quantity's dimension, ignoring the unit it happens to carry:
- * kernel results come back in N, m, Pa and read better as kN, m, kN/m².
- * @example engineeringUnit(math.unit(17090, 'N')) // "kN"
- */
-export function engineeringUnit(u: Unit): string {
-  const plain = u.clone();
-  Object.assign(plain, { skipAutomaticSimplification: false, fixPrefix: false });
-  return displayUnitOf(plain);
-}
-
-/** Bare SI units of force and stress, as kernels return them: shown in engineering units instead. */
-const BARE_SI = /^(N|Pa|N\/m|N\/m\^2|N\/m\^3|N m|N m\/m)$/;
-
-/**
- * The unit a quantity is shown in when no display unit is asked for: its own when written
- * by hand (6.4 m, 40 kN, 2.5 MPa), the engineering unit when it carries bare SI force units.
- * @example readableUnit(math.unit(17090, 'N')) // "kN"
- */
-export function readableUnit(u: Unit): string {
-  const own = displayUnitOf(u);
-  return BARE_SI.test(own) ? engineeringUnit(u) : own;
-}
-
 function unitFor(u: Unit, opts: ShowOptions): string {
   return opts.unit ?? (opts.engineering ? engineeringUnit(u) : readableUnit(u));
 }
@@ -185,14 +163,4 @@ export function isNegativeValue(value: unknown): boolean {
 /** Does a value carry a unit (so that a power of it needs brackets)? */
 export function hasUnit(value: unknown): boolean {
   return math.isUnit(value) && (value as Unit).units.length > 0;
-}
-
-/**
- * A utilization as the sheet prints it: two decimals, rounded up so that a
- * printed 1.00 never hides a ratio above one (common practice).
- * @example utilizationText(0.9512) // "0.96"
- */
-export function utilizationText(u: number): string {
-  const up = Math.ceil(u * 100 - 1e-9) / 100;
-  return up.toFixed(2);
 }

@@ -63,14 +63,63 @@ export function displayUnitOf(u: Unit): string {
   return compactUnit(simplified.toString().replace(/^[-\d.e+\s]+/, ''));
 }
 
-/** A quantity as {number, unit} in its display unit. */
+/**
+ * The engineering unit for a quantity's dimension, ignoring the unit it happens to carry:
+ * kernel results come back in N, m, Pa and read better as kN, m, kN/m².
+ * @example engineeringUnit(math.unit(17090, 'N')) // "kN"
+ */
+export function engineeringUnit(u: Unit): string {
+  const plain = u.clone();
+  Object.assign(plain, { skipAutomaticSimplification: false, fixPrefix: false });
+  return displayUnitOf(plain);
+}
+
+/** Bare SI units of force and stress, as kernels return them: shown in engineering units instead. */
+const BARE_SI = /^(N|Pa|N\/m|N\/m\^2|N\/m\^3|N m|N m\/m)$/;
+
+/**
+ * The unit a quantity is shown in when no display unit is asked for: its own when written
+ * by hand (6.4 m, 40 kN, 2.5 MPa), the engineering unit when it carries bare SI force units.
+ * Every output (command line, JSON, sheet, live page) picks units through this function.
+ * @example readableUnit(math.unit(17090, 'N')) // "kN"
+ */
+export function readableUnit(u: Unit): string {
+  const own = displayUnitOf(u);
+  return BARE_SI.test(own) ? engineeringUnit(u) : own;
+}
+
+/** A quantity as {number, unit} in the unit asked for, else in its readable unit. */
 export function splitQuantity(u: Unit, unit?: string | null): { number: number; unit: string } {
-  const target = unit ?? displayUnitOf(u);
+  const target = unit ?? readableUnit(u);
   try {
     return { number: u.toNumber(target), unit: compactUnit(target) };
   } catch {
     return { number: u.toNumber(), unit: compactUnit(u.formatUnits()) };
   }
+}
+
+/** How far above 1 a utilization may lie and still be the round-off of a check that holds (mathjs compares with this relative tolerance). */
+const HOLDS_TOLERANCE = 1e-9;
+
+/**
+ * A utilization as every output prints it: two decimals, rounded UP, so that a printed 1.00
+ * never hides a ratio above one (common practice). Given the check's verdict, the text agrees
+ * with it at the limit: a check that fails never prints as 1.00 or less, one that holds never
+ * above 1.00.
+ * @param u demand/capacity (≤ 1 holds)
+ * @param pass the check's verdict, when known
+ * @example formatUtilization(1.0043) // "1.01"
+ * @example formatUtilization(0.9512) // "0.96"
+ */
+export function formatUtilization(u: number, pass?: boolean | null): string {
+  if (Number.isNaN(u)) return '—';
+  if (!Number.isFinite(u)) return u > 0 ? '∞' : '−∞';
+  // The small allowance keeps 0.07 (7.000000000000001 hundredths in binary) from rounding up to 0.08.
+  let hundredths = Math.ceil(u * 100 - 1e-9);
+  // At the limit the verdict decides: a ratio of 1 + 1e-12 that fails is 1.01, one within round-off that holds is 1.00.
+  if (pass === false && u >= 1 && hundredths <= 100) hundredths = 101;
+  if (pass === true && hundredths > 100 && u <= 1 + HOLDS_TOLERANCE) hundredths = 100;
+  return (hundredths / 100).toFixed(2);
 }
 
 function isCheck(v: unknown): v is CheckResult {
@@ -91,7 +140,7 @@ export function formatValue(value: unknown, opts: FormatOptions = {}, unit?: str
     return q.unit ? `${formatNumber(q.number, sf)} ${q.unit}` : formatNumber(q.number, sf);
   }
   if (isCheck(value)) {
-    const u = value.utilization === null ? '' : ` (utilization ${formatNumber(value.utilization, 3)})`;
+    const u = value.utilization === null ? '' : ` (utilization ${formatUtilization(value.utilization, value.pass)})`;
     return `${value.pass ? 'satisfied' : 'NOT satisfied'}${u}`;
   }
   if (math.isMatrix(value)) return formatValue((value as { toArray(): unknown[] }).toArray(), opts);

@@ -107,7 +107,8 @@ describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
     const n = Math.min(100, COUNT);
     const rows = r.out.split('\n').filter((l) => /pier-\d{4}\.md\s+\d/.test(l));
     expect(rows).toHaveLength(n);
-    expect(rows.find((l) => l.includes('pier-0003.md'))).toMatch(/pier-0003\.md\s+2\s+1\s+0\s+1\.25\s+FAILS$/);
+    // N_Ed is 1.25 N_Rd rounded to a whole kN, a hair above 1.25: utilizations print rounded up, so 1.26.
+    expect(rows.find((l) => l.includes('pier-0003.md'))).toMatch(/pier-0003\.md\s+2\s+1\s+0\s+1\.26\s+FAILS$/);
     expect(rows.find((l) => l.includes('pier-0005.md'))).toMatch(/pier-0005\.md\s+2\s+1\s+1\s+\S+\s+ERRORS$/);
     expect(r.out.split('\n')[0]).toMatch(/^file\s+checks\s+fails\s+errors\s+highest utilization\s+verdict$/);
     const fails = planted.slice(0, n).reduce((a, p) => a + p.fails, 0);
@@ -141,7 +142,7 @@ describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
   it('check FILE (one file) keeps the single-file verdict lines, no table', async () => {
     const r = await run(join(dir, 'archive/block-00/pier-0003.md'));
     expect(r.code).toBe(1);
-    expect(r.out).toMatch(/^ {2}!! {2}FAILS +1\.25 {2}bearing: N_Ed <= N_Rd {2}\(line 29\)/m);
+    expect(r.out).toMatch(/^ {2}!! {2}FAILS +1\.26 {2}bearing: N_Ed <= N_Rd {2}\(line 29\)/m);
     expect(r.out).not.toMatch(/^file\s+checks/m);
   });
 

@@ -169,7 +169,7 @@ describe('vaultbook diff OLD NEW', () => {
     const r = await run(join(dir, 'old.md'), join(dir, 'new.md'));
     const lines = r.out.split('\n');
     expect(lines[0]).toBe(`${join(dir, 'old.md')} → ${join(dir, 'new.md')}`);
-    const flip = lines.findIndex((l) => /^\s*!!\s+c_moment\s+holds → FAILS\s+utilization 0\.9 → 1\.23/.test(l));
+    const flip = lines.findIndex((l) => /^\s*!!\s+c_moment\s+holds → FAILS\s+utilization 0\.90 → 1\.23/.test(l));
     expect(flip).toBeGreaterThan(0);
     expect(r.out).toMatch(/^\s*L\s+6 m → 7 m\s+\+16\.7 %/m);
     expect(r.out).toMatch(/^\s*M\s+45 kN m → 61\.25 kN m\s+\+36\.1 %/m);

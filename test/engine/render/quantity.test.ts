@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { math } from '../../../cells/math.js';
-import { numberHtml, numberTex, unitHtml, unitTex, utilizationText, valueHtml, valueTex } from '../../../engine/render/quantity.js';
+import { numberHtml, numberTex, unitHtml, unitTex, valueHtml, valueTex } from '../../../engine/render/quantity.js';
+import { formatUtilization as utilizationText } from '../../../engine/values/format.js';
 
 const NNBSP = '\u202f';
 const NBSP = '\u00a0';
