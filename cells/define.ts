@@ -72,6 +72,10 @@ export interface CellFunction {
   readonly doc: string;
   readonly params: ParamSpec[];
   readonly returns: FieldType;
+  /** Names of option fields that must be present. */
+  readonly required: readonly string[];
+  /** The kernel reference text (see CellFunctionReference). */
+  readonly reference: CellFunctionReference;
   /** Called by mathjs with document values. */
   readonly call: (...args: unknown[]) => unknown;
 }
@@ -208,7 +212,10 @@ export function defineCellFunction<K>(spec: CellFunctionSpec<K>): CellFunction {
     }
     return shown;
   };
-  return Object.freeze({ isCellFunction: true as const, name: spec.name, doc: spec.doc, params: spec.params, returns: spec.returns, call });
+  return Object.freeze({
+    isCellFunction: true as const, name: spec.name, doc: spec.doc, params: spec.params, returns: spec.returns,
+    required: spec.required ?? [], reference: spec.reference ?? {}, call,
+  });
 }
 
 export { UnitMismatchError };

@@ -164,7 +164,7 @@ const CHECKS: Array<[string, string]> = [
 describe('a utilization prints the same everywhere, rounded up', () => {
   it.each(CHECKS)('%s prints %s on the command line, in JSON, on the sheet and on the page', (name, expected) => {
     const sheet = out.sheet.querySelector(`[data-cell="${name}"]`)!;
-    const summaryRow = (root: HTMLElement) => root.querySelectorAll('tr.vb-sum').find((r) => r.querySelector('a')?.getAttribute('href') === `#${sheet.parentNode.parentNode.getAttribute('id')}`);
+    const summaryRow = (root: HTMLElement) => root.querySelectorAll('tr.vb-sum').find((r) => r.querySelector('a')?.getAttribute('href') === `#${sheet.parentNode!.parentNode!.getAttribute('id')}`);
     const shown = [
       out.cliChecks.get(name),
       /utilization (\S+)\)/.exec(out.json[name]!.text)?.[1],
