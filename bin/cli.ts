@@ -14,6 +14,7 @@ export const COMMANDS: Record<string, { run: Command; usage: string }> = {
   diff: { run: (a, o) => import('./commands/diff.js').then((m) => m.diffCommand(a, o)), usage: 'diff OLD NEW | diff FILE --rev REV [--json]  what changed: inputs, results (%), checks flipped (exit 1 when a check newly fails)' },
   render: { run: (a, o) => import('./commands/render.js').then((m) => m.renderCommand(a, o)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium' },
   serve: { run: async (a, o) => (await import('./commands/serve.js')).serveCommand(a, o), usage: 'serve FILE [--port N]                         the live sheet in a browser: edit inputs, review changes, write them back' },
+  help: { run: (a, o) => import('./commands/help.js').then((m) => m.helpCommand(a, o, usage, COMMANDS)), usage: 'help [FUNCTION|COMMAND]                       the kernel functions; one function\'s arguments, result fields, method and sources' },
 };
 
 export function usage(): string {
@@ -25,7 +26,7 @@ export function usage(): string {
  */
 export async function main(argv: string[], out: (s: string) => void = (s) => process.stdout.write(s + '\n'), err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {
   const [name, ...rest] = argv;
-  if (!name || name === '--help' || name === '-h' || name === 'help') {
+  if (!name || name === '--help' || name === '-h') {
     out(usage());
     return name ? 0 : 2;
   }
