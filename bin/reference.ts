@@ -70,12 +70,13 @@ export function declaredParams(fn: CellFunction): DeclaredEntry[] {
 
 /**
  * Every result field a function declares: `H_min`, `hinges`, `hinges.angle`, …; a function that
- * returns a single value declares one entry, `result`.
+ * returns anything but a record declares `result` (and, for a list of records, its items' fields).
  */
 export function declaredFields(fn: CellFunction): DeclaredEntry[] {
-  const out: DeclaredEntry[] = [];
+  const isRecord = typeof fn.returns === 'object' && 'object' in fn.returns;
+  const out: DeclaredEntry[] = isRecord ? [] : [{ path: 'result', type: fn.returns }];
   nested(fn.returns, '', out);
-  return out.length > 0 ? out : [{ path: 'result', type: fn.returns }];
+  return out;
 }
 
 /** Declared entries that have no reference text: what the completeness test reports. */
@@ -124,6 +125,11 @@ export function referenceText(fn: CellFunction): string {
   return lines.join('\n');
 }
 
+/** In alphabetical order, whatever order the module system listed them in. */
+function byName(fns: CellFunction[]): CellFunction[] {
+  return [...fns].sort((a, b) => (a.name < b.name ? -1 : 1));
+}
+
 /** First sentence of a function's one-line description, for the list, at most about a line long. */
 function summaryOf(fn: CellFunction): string {
   const first = /^(.*?\.)\s+(?=[A-Z])/.exec(fn.doc)?.[1] ?? fn.doc;
@@ -135,12 +141,14 @@ function summaryOf(fn: CellFunction): string {
  * @example functionList([...cellFunctions.values()])
  */
 export function functionList(fns: CellFunction[]): string {
+  fns = byName(fns);
   const width = Math.max(...fns.map((f) => signature(f).length));
   return fns.map((f) => `  ${signature(f).padEnd(width)}  ${summaryOf(f)}`).join('\n');
 }
 
 /** docs/kernel.md: a contents list, the conventions every entry relies on, and every entry. */
 export function referenceDocument(fns: CellFunction[]): string {
+  fns = byName(fns);
   return [
     '# Kernel reference',
     '',

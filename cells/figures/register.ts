@@ -12,6 +12,19 @@ import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
+import { LOADS_REFERENCE } from '../vault/register-arch.js';
+import { BUTTRESS_OPTIONS } from '../supports/register.js';
+
+const SVG = 'An SVG drawing to scale, recorded as the figure of a ```figure cell and printed on the sheet.';
+const HEYMAN_BOOK = 'J. Heyman, The Stone Skeleton, Cambridge University Press, 1995.';
+
+/** section and force_polygon: the ring, its arch_limit result, and the loads to draw. */
+const RING_FIGURE_REFERENCE = {
+  ring: 'The ring, from arch_ring.',
+  limit: 'Its limit analysis, from arch_limit on the same ring; drawn with the loads it was computed for.',
+  ...LOADS_REFERENCE,
+  loads: 'Other loads to draw instead of those arch_limit was given (rarely needed). ' + LOADS_REFERENCE.loads,
+};
 
 /** The loads record of arch_limit, so a figure can be drawn for the same loads. */
 const ARCH_LOADS: FieldType = {
@@ -34,6 +47,13 @@ export const section = defineCellFunction({
   params: RING_FIGURE_PARAMS,
   returns: 'text',
   fn: (ring, limit: WithArgs<ArchLimit>, loads?: ArchLoads) => sectionFigure(ring, limit.value, loads ?? loadsOf(limit)),
+  reference: {
+    params: RING_FIGURE_REFERENCE,
+    fields: { result: SVG },
+    method: 'Draws the ring to scale with its intrados and extrados, the lines of least and greatest thrust of arch_limit and the hinges where the line of least thrust touches a face: '
+      + 'the picture behind the safe theorem. The hinges drawn are checked against the line drawn, so ring, result and loads belong together.',
+    sources: [HEYMAN_BOOK + ' (ch. 2–3, lines of thrust).'],
+  },
 });
 
 export const force_polygon = defineCellFunction({
@@ -42,6 +62,13 @@ export const force_polygon = defineCellFunction({
   params: RING_FIGURE_PARAMS,
   returns: 'text',
   fn: (ring, limit: WithArgs<ArchLimit>, loads?: ArchLoads) => forcePolygon(ring, limit.value, loads ?? loadsOf(limit)),
+  reference: {
+    params: RING_FIGURE_REFERENCE,
+    fields: { result: SVG },
+    method: 'Graphic statics of the line of least thrust: the loads on the ring, left to right, make the vertical load line; the pole stands H_min to its left, '
+      + 'level with the point that splits the load line into V_left and V_right; each ray is the thrust between two parts of the ring, the first and last the springing reactions.',
+    sources: [HEYMAN_BOOK + ' (ch. 2).', 'Funicular and force polygons: any text on graphic statics (common practice).'],
+  },
 });
 
 export const membrane_plot = defineCellFunction({
@@ -50,6 +77,12 @@ export const membrane_plot = defineCellFunction({
   params: [{ name: 'm', type: { ref: 'barrel_membrane' } }],
   returns: 'text',
   fn: membranePlot,
+  reference: {
+    params: { m: 'A barrel vault solved by barrel_membrane.' },
+    fields: { result: SVG },
+    method: 'Plots N_φ, N_x and N_xφ of the membrane state along the profile and along the generatrix; compression negative, as barrel_membrane gives them.',
+    sources: ['W. Flügge, Stresses in Shells, Springer, ch. 3 (membrane theory of cylindrical shells).'],
+  },
 });
 
 export const vault_plan = defineCellFunction({
@@ -58,6 +91,12 @@ export const vault_plan = defineCellFunction({
   params: [{ name: 'vault', type: { ref: 'groin_vault' } }],
   returns: 'text',
   fn: vaultPlan,
+  reference: {
+    params: { vault: 'One bay, from groin_vault.' },
+    fields: { result: SVG },
+    method: 'Draws the bay in plan (webs, groins and the horizontal thrusts at the corners) and in elevation across the x-span, with the corner thrust at the height z_thrust where it acts and the corner load.',
+    sources: ['J. Heyman, Equilibrium of Shell Structures, Oxford University Press, 1977 (cross vaults).'],
+  },
 });
 
 /** The options record of buttress, so the figure can rebuild the support's geometry. */
@@ -75,4 +114,14 @@ export const support_figure = defineCellFunction({
   returns: 'text',
   fn: (support: WithArgs<Parameters<typeof supportFigure>[0]>, options?: Parameters<typeof supportFigure>[1]) =>
     supportFigure(support.value, options ?? (support.args[0] as Parameters<typeof supportFigure>[1])),
+  reference: {
+    params: {
+      support: 'A support checked by buttress; drawn with the options it was given.',
+      ...BUTTRESS_OPTIONS,
+      options: 'Other options to draw the geometry from (rarely needed; by default those given to buttress). ' + BUTTRESS_OPTIONS.options,
+    },
+    fields: { result: SVG },
+    method: 'Draws the support in elevation with the thrust, the path of the resultant through every level and the middle third of each section.',
+    sources: [HEYMAN_BOOK + ' (buttresses).'],
+  },
 });
