@@ -10,7 +10,7 @@ import { execFile } from 'node:child_process';
 import { basename, dirname } from 'node:path';
 import { evaluateDocument } from '../../engine/index.js';
 import { parse, JSON_OPTION, UsageError } from '../args.js';
-import { diffDocuments, diffExitCode, type DiffInput } from '../diff/document.js';
+import { definitionsOf, diffDocuments, diffExitCode, type DiffInput } from '../diff/document.js';
 import { formatDiff } from '../diff/format.js';
 
 class Unreadable extends Error {}
@@ -48,7 +48,7 @@ async function readText(file: string): Promise<string> {
 
 async function evaluateVersion(label: string, text: string): Promise<DiffInput> {
   const { doc, summary } = await evaluateDocument(text, { file: label });
-  return { label, summary, blocks: doc.blocks };
+  return { label, summary, blocks: doc.blocks, cells: definitionsOf(doc.graph.cells) };
 }
 
 export async function diffCommand(args: string[], out: (s: string) => void, err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {

@@ -5,7 +5,8 @@
  * block edits, prose edits in summary, errors introduced. The result is plain
  * JSON (`vaultbook diff --json` prints it as is). Pure: no Node imports.
  */
-import type { Block, Diagnostic, Summary } from '../../engine/index.js';
+import type { MathNode } from 'mathjs';
+import type { Block, Cell, Diagnostic, Summary } from '../../engine/index.js';
 import type { ValueEntry } from '../../engine/summary.js';
 import { diffValue, type FieldChange } from './values.js';
 import { diffChecks, isNewFailure, type CheckChange } from './checks.js';
@@ -16,6 +17,69 @@ export interface DiffInput {
   label: string;
   summary: Summary;
   blocks: Block[];
+  /** How each named cell is written; without them only values are compared. */
+  cells?: CellDefinition[];
+}
+
+/** How a named cell is written: what a reviewer reads in the document, not what it evaluates to. */
+export interface CellDefinition {
+  name: string;
+  kind: ValueEntry['kind'];
+  line: number;
+  /** The expression without a top-level `to UNIT`, as written. */
+  formula: string;
+  /** The same, in mathjs's own spelling, so that spacing alone is no change. */
+  formula_key: string;
+  description: string;
+  /** `[lo, hi]` as written, or null. */
+  range: string | null;
+  /** The `to` unit, or null. */
+  display_unit: string | null;
+}
+
+/** One named cell whose writing changed: its formula, description, allowed range or display unit. */
+export interface DefinitionChange {
+  name: string;
+  kind: ValueEntry['kind'];
+  line_old: number;
+  line_new: number;
+  what: 'formula' | 'description' | 'range' | 'display unit';
+  old: string | null;
+  new: string | null;
+}
+
+/**
+ * The definitions of a compiled document's named cells.
+ * @example definitionsOf(compile(text).graph.cells)
+ */
+export function definitionsOf(cells: Cell[]): CellDefinition[] {
+  return cells.filter((c) => c.name !== null).map((c) => {
+    const n = c.node as MathNode & { fn?: string; args?: MathNode[] };
+    const bare = c.displayUnit !== null && n.type === 'OperatorNode' && n.fn === 'to' ? n.args![0]! : c.node;
+    // Up to the last top-level ` to `: the display unit is reported on its own.
+    const written = c.displayUnit !== null ? (/^([^]*)\s+to\s+[^]*$/.exec(c.source)?.[1] ?? c.source) : c.source;
+    return {
+      name: c.name!, kind: c.kind, line: c.span.start.line, formula: written.replace(/\s+/g, ' ').trim(), formula_key: bare.toString(),
+      description: c.description, range: c.range ? `[${c.range.lo}, ${c.range.hi}]` : null, display_unit: c.displayUnit,
+    };
+  });
+}
+
+/** What changed in how the cells present in both versions are written. */
+function diffDefinitions(a: CellDefinition[], b: CellDefinition[]): DefinitionChange[] {
+  const old = new Map(a.map((d) => [d.name, d]));
+  const out: DefinitionChange[] = [];
+  for (const d of b) {
+    const o = old.get(d.name);
+    if (!o) continue;
+    const at = { name: d.name, kind: d.kind, line_old: o.line, line_new: d.line };
+    // An input's expression is its value, reported under inputs; a check's under checks.
+    if (o.formula_key !== d.formula_key && d.kind !== 'given' && o.kind !== 'given' && d.kind !== 'check') out.push({ ...at, what: 'formula', old: o.formula, new: d.formula });
+    if (o.description !== d.description) out.push({ ...at, what: 'description', old: o.description || null, new: d.description || null });
+    if (o.range !== d.range) out.push({ ...at, what: 'range', old: o.range, new: d.range });
+    if (o.display_unit !== d.display_unit) out.push({ ...at, what: 'display unit', old: o.display_unit, new: d.display_unit });
+  }
+  return out;
 }
 
 export interface ValueChange {
@@ -43,6 +107,8 @@ export interface DocumentDiff {
   results: ValueChange[];
   figures: ValueChange[];
   checks: CheckChange[];
+  /** Formulas, descriptions, ranges and display units that changed, for cells in both versions. */
+  definitions: DefinitionChange[];
   added: CellPresence[];
   removed: CellPresence[];
   prose: ProseDiff;
@@ -108,7 +174,7 @@ export function diffDocuments(a: DiffInput, b: DiffInput, options: DiffOptions =
   return {
     old: { label: a.label, errors: errorsOf(a.summary).length },
     new: { label: b.label, errors: errorsOf(b.summary).length },
-    meta, inputs, results, figures, checks, added, removed,
+    meta, inputs, results, figures, checks, definitions: diffDefinitions(a.cells ?? [], b.cells ?? []), added, removed,
     prose: diffProse(a.blocks, b.blocks),
     errors_introduced,
     new_failures: checks.filter(isNewFailure).length,

@@ -19,18 +19,29 @@ function columns(rows: string[][], indent = '  '): string[] {
   return rows.map((r) => indent + r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i]!))).join('  ').trimEnd());
 }
 
-function valueRows(changes: ValueChange[]): string[][] {
+/** What one item of a list is called: "hinge" for `.hinges`, else "item". */
+function itemNoun(path: string): string {
+  const last = path.slice(path.lastIndexOf('.') + 1);
+  return last.length > 1 && last.endsWith('s') ? last.slice(0, -1) : 'item';
+}
+
+/**
+ * @param reformulated names whose formula changed: their moves are marked, so a reader can tell them from moves caused by inputs
+ */
+function valueRows(changes: ValueChange[], reformulated = new Set<string>()): string[][] {
   const rows: string[][] = [];
   for (const v of changes) {
     // The biggest relative moves of a kernel result are the ones worth reading.
-    const rank = (f: ValueChange['fields'][number]) => (f.percent === null ? Infinity : Math.abs(f.percent));
+    // A list item that only moved reads after the numbers; one added or removed comes first.
+    const rank = (f: ValueChange['fields'][number]) => (f.change === 'item moved' ? -1 : f.percent === null ? Infinity : Math.abs(f.percent));
     const fields = [...v.fields].sort((x, y) => rank(y) - rank(x));
-    const kindNote = v.old_kind ? `(was ${v.old_kind})` : '';
+    const kindNote = v.old_kind ? `(was ${v.old_kind})` : reformulated.has(v.name) ? `formula changed, line ${v.line_new}` : '';
     if (fields.length === 0) rows.push([v.name, 'same value', kindNote, `line ${v.line_new}`]);
     for (const f of fields.slice(0, FIELDS_SHOWN)) {
       const what = f.change === 'moved' ? formatPercent(f.percent) || `${f.delta! > 0 ? '+' : '−'}${formatNumber(Math.abs(f.delta!), 3)}${f.unit ? ` ${f.unit}` : ''}`
         : f.change === 'dimension' ? 'dimension changed'
         : f.change === 'status' ? 'now ' + (f.new!.text.startsWith('error') ? 'an error' : f.new!.text.startsWith('not computed') ? 'not computed' : 'computed')
+        : f.item ? `${itemNoun(f.path)} ${f.change.slice('item '.length)}`
         : f.change;
       rows.push([v.name + f.path, f.change === 'status' ? `${f.old!.text} → ${f.new!.text}` : formatMove(f), what, kindNote || `line ${v.line_new}`]);
     }
@@ -55,6 +66,14 @@ function checkRow(c: CheckChange): string[] {
   return [MARK[c.change], c.key, verdict, util, `${expr === c.key ? '' : expr}  (line ${sideNow.line})`.trim()];
 }
 
+const quoted = (s: string | null) => (s === null ? '—' : `"${s}"`);
+
+/** One changed definition: the formula old → new (as written), or the description, range or display unit. */
+function definitionRow(c: DocumentDiff['definitions'][number]): string[] {
+  const move = c.what === 'description' ? `${quoted(c.old)} → ${quoted(c.new)}` : `${c.old ?? '—'} → ${c.new ?? '—'}`;
+  return [c.name, c.what, move, c.line_old === c.line_new ? `line ${c.line_new}` : `line ${c.line_old} → ${c.line_new}`];
+}
+
 function preview(text: string, width = 70): string {
   const flat = text.replace(/\s+/g, ' ').trim();
   return `"${flat.length > width ? flat.slice(0, width - 1) + '…' : flat}"`;
@@ -70,8 +89,10 @@ export function formatDiff(d: DocumentDiff): string {
   const order: CheckChange['change'][] = ['to-fail', 'to-no-verdict', 'to-pass', 'utilization', 'expression', 'added', 'removed'];
   const checks = [...d.checks].sort((x, y) => order.indexOf(x.change) - order.indexOf(y.change));
   section(`Checks (${checks.length} changed)`, columns(checks.map(checkRow)));
+  section(`Definitions changed (${d.definitions.length})`, columns(d.definitions.map(definitionRow)));
   section(`Inputs changed (${d.inputs.length})`, columns(valueRows(d.inputs)));
-  section(`Results moved (${d.results.length})`, columns(valueRows(d.results)));
+  const reformulated = new Set(d.definitions.filter((c) => c.what === 'formula').map((c) => c.name));
+  section(`Results moved (${d.results.length})`, columns(valueRows(d.results, reformulated)));
   // Added and removed checks are already listed under Checks.
   const cellList = (cs: DocumentDiff['added']) => cs.filter((c) => c.kind !== 'check').map((c) => `${c.name} (${c.kind}, line ${c.line})`).join(', ');
   const added = cellList(d.added), removed = cellList(d.removed);
@@ -87,7 +108,7 @@ export function formatDiff(d: DocumentDiff): string {
   }
   section('Title block', columns(d.meta.map((m) => [m.key, `${m.old === null ? '—' : String(m.old)} → ${m.new === null ? '—' : String(m.new)}`])));
   section(`Errors introduced (${d.errors_introduced.length})`, d.errors_introduced.map((e) => `  ${formatDiagnostic(e)}`));
-  const nothing = d.checks.length + d.inputs.length + d.results.length + d.added.length + d.removed.length + d.figures.length + p.paragraphs.length + d.meta.length === 0;
+  const nothing = d.checks.length + d.definitions.length + d.inputs.length + d.results.length + d.added.length + d.removed.length + d.figures.length + p.paragraphs.length + d.meta.length === 0;
   if (nothing) out.push('', 'No differences in values, checks, prose or title block.');
   const errorsNote = d.new.errors > 0 ? `; the new version has ${d.new.errors} error${d.new.errors === 1 ? '' : 's'}` : '';
   out.push('', d.new_failures > 0

@@ -5,8 +5,11 @@
  * same shape), so two `--json` outputs can be compared as well as two files.
  * Numbers are compared in ONE unit — the new version's display unit — so
  * "45 kN m" against "45000 N m" is no change, and a percentage means something.
- * Kernel results are walked field by field (`a.H_min`, `r.joints[3].x`).
- * Pure: no Node imports.
+ * Kernel results are walked field by field (`a.H_min`); lists are compared by
+ * meaning, not by index: their items are paired by an alignment that keeps their
+ * order and pairs the closest items (a hinge with the hinge of the same face at the
+ * nearest angle), so a hinge added before others reads as one hinge added, not as
+ * every later hinge moved. Pure: no Node imports.
  */
 import { math } from '../../cells/math.js';
 import { formatNumber } from '../../engine/index.js';
@@ -23,7 +26,7 @@ export interface Leaf {
 export interface FieldChange {
   /** '' for the value itself, else `.field` / `[i]` steps into a kernel result. */
   path: string;
-  change: 'moved' | 'changed' | 'dimension' | 'status' | 'added' | 'removed';
+  change: 'moved' | 'changed' | 'dimension' | 'status' | 'added' | 'removed' | 'item added' | 'item removed' | 'item moved';
   old: Leaf | null;
   new: Leaf | null;
   /** Unit both numbers are compared in (the new one's), when they are quantities. */
@@ -32,6 +35,15 @@ export interface FieldChange {
   delta: number | null;
   /** 100·(new − old)/|old|; null when old is 0 or not a number. */
   percent: number | null;
+  /** Item changes of a list: the item's position in the old and in the new list (0-based), null where absent. */
+  item?: { old: number | null; new: number | null };
+}
+
+/** A value of the JSON summary: {value, unit, text}, lists and records nested in the same shape. */
+interface Node {
+  value: unknown;
+  unit: string | null;
+  text: string;
 }
 
 /** How a value stands: computed, failed, or not computed because another cell failed. */
@@ -92,6 +104,106 @@ export function compareLeaf(path: string, a: Leaf | undefined, b: Leaf | undefin
   return { ...base, change: 'changed', old: a, new: b };
 }
 
+/** Gap cost of the list alignment: two items further apart than twice this (in the fields' own spread) are one removed and one added, not one moved. */
+const GAP = 0.15;
+
+const isList = (n: Node | undefined): n is Node & { value: Node[] } => n !== undefined && Array.isArray(n.value);
+const isRecord = (n: Node | undefined): n is Node & { value: Record<string, Node> } =>
+  n !== undefined && n.value !== null && typeof n.value === 'object' && !Array.isArray(n.value);
+
+/**
+ * How far apart two list items are: the largest move of a numeric field, in units of that field's
+ * spread over both lists; Infinity when they differ in anything that is not a number (a face, a name).
+ */
+function itemDistance(a: Map<string, Leaf>, b: Map<string, Leaf>, spread: Map<string, number>): number {
+  if (a.size !== b.size) return Infinity;
+  let d = 0;
+  for (const [path, x] of a) {
+    const y = b.get(path);
+    if (!y) return Infinity;
+    if (typeof x.value === 'number' && typeof y.value === 'number') {
+      const was = convert(x.value, x.unit, y.unit);
+      if (was === null) return Infinity;
+      d = Math.max(d, Math.abs(y.value - was) / spread.get(path)!);
+    } else if (x.value !== y.value) {
+      return Infinity;
+    }
+  }
+  return d;
+}
+
+/** Spread of each numeric field over the items of both lists (range, else magnitude, else 1). */
+function spreads(items: Array<Map<string, Leaf>>): Map<string, number> {
+  const lo = new Map<string, number>(), hi = new Map<string, number>();
+  for (const leaves of items) {
+    for (const [path, l] of leaves) {
+      if (typeof l.value !== 'number') continue;
+      lo.set(path, Math.min(lo.get(path) ?? Infinity, l.value));
+      hi.set(path, Math.max(hi.get(path) ?? -Infinity, l.value));
+    }
+  }
+  const out = new Map<string, number>();
+  for (const [path, l] of lo) out.set(path, (hi.get(path)! - l) || Math.max(Math.abs(l), Math.abs(hi.get(path)!)) || 1);
+  return out;
+}
+
+/**
+ * Pairs the items of two lists, keeping their order, at the least total cost (distance of each pair,
+ * GAP for each item left unpaired): a sequence alignment by dynamic programming.
+ * @returns pairs [old index | null, new index | null] in list order
+ */
+export function alignLists(a: Node[], b: Node[]): Array<[number | null, number | null]> {
+  const la = a.map((n) => leavesOf(n)), lb = b.map((n) => leavesOf(n));
+  const spread = spreads([...la, ...lb]);
+  const n = a.length, m = b.length;
+  const cost = Array.from({ length: n + 1 }, () => new Float64Array(m + 1));
+  for (let i = 0; i <= n; i++) cost[i]![0] = i * GAP;
+  for (let j = 0; j <= m; j++) cost[0]![j] = j * GAP;
+  for (let i = 1; i <= n; i++) {
+    for (let j = 1; j <= m; j++) {
+      const d = itemDistance(la[i - 1]!, lb[j - 1]!, spread);
+      cost[i]![j] = Math.min(cost[i - 1]![j - 1]! + d, cost[i - 1]![j]! + GAP, cost[i]![j - 1]! + GAP);
+    }
+  }
+  const pairs: Array<[number | null, number | null]> = [];
+  let i = n, j = m;
+  while (i > 0 || j > 0) {
+    const here = cost[i]![j]!;
+    if (i > 0 && j > 0 && here === cost[i - 1]![j - 1]! + itemDistance(la[i - 1]!, lb[j - 1]!, spread)) pairs.push([--i, --j]);
+    else if (i > 0 && here === cost[i - 1]![j]! + GAP) pairs.push([--i, null]);
+    else pairs.push([null, --j]);
+  }
+  return pairs.reverse();
+}
+
+/** Walks two versions of a value together; lists are aligned by meaning, records field by field. */
+function walk(path: string, a: Node | undefined, b: Node | undefined, tol: number, out: FieldChange[]): void {
+  if (isList(a) && isList(b)) {
+    for (const [i, j] of alignLists(a.value, b.value)) {
+      const x = i === null ? null : a.value[i]!, y = j === null ? null : b.value[j]!;
+      const base = { path, unit: null, delta: null, percent: null, item: { old: i, new: j } };
+      const leaf = (n: Node) => ({ value: null, unit: null, text: n.text });
+      if (x === null) out.push({ ...base, change: 'item added', old: null, new: leaf(y!) });
+      else if (y === null) out.push({ ...base, change: 'item removed', old: leaf(x), new: null });
+      else {
+        const inner: FieldChange[] = [];
+        walk('', x, y, tol, inner);
+        if (inner.length > 0) out.push({ ...base, change: 'item moved', old: leaf(x), new: leaf(y) });
+      }
+    }
+    return;
+  }
+  if (isRecord(a) && isRecord(b)) {
+    for (const key of new Set([...Object.keys(a.value), ...Object.keys(b.value)])) walk(`${path}.${key}`, a.value[key], b.value[key], tol, out);
+    return;
+  }
+  const la = a === undefined ? undefined : leavesOf(a, path), lb = b === undefined ? undefined : leavesOf(b, path);
+  for (const p of new Set([...(la?.keys() ?? []), ...(lb?.keys() ?? [])])) {
+    const c = compareLeaf(p, la?.get(p), lb?.get(p), tol);
+    if (c) out.push(c);
+  }
+}
+
 /**
  * Every field that differs between two versions of a value.
  * @example diffValue(oldEntry, newEntry, 1e-9) // [{path: '', change: 'moved', percent: 16.7, …}]
@@ -102,12 +214,8 @@ export function diffValue(a: ValueEntry, b: ValueEntry, tol: number): FieldChang
     if (sa === sb && a.text === b.text) return [];
     return [{ path: '', change: 'status', old: { value: null, unit: null, text: a.text }, new: { value: null, unit: null, text: b.text }, unit: null, delta: null, percent: null }];
   }
-  const la = leavesOf(a), lb = leavesOf(b);
   const changes: FieldChange[] = [];
-  for (const path of new Set([...la.keys(), ...lb.keys()])) {
-    const c = compareLeaf(path, la.get(path), lb.get(path), tol);
-    if (c) changes.push(c);
-  }
+  walk('', a, b, tol, changes);
   return changes;
 }
 
