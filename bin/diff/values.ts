@@ -170,8 +170,9 @@ export function alignLists(a: Node[], b: Node[]): Array<[number | null, number |
   while (i > 0 || j > 0) {
     const here = cost[i]![j]!;
     if (i > 0 && j > 0 && here === cost[i - 1]![j - 1]! + itemDistance(la[i - 1]!, lb[j - 1]!, spread)) pairs.push([--i, --j]);
-    else if (i > 0 && here === cost[i - 1]![j]! + GAP) pairs.push([--i, null]);
-    else pairs.push([null, --j]);
+    // Walking backwards, an added item is taken before a removed one, so that a removal reads first.
+    else if (j > 0 && here === cost[i]![j - 1]! + GAP) pairs.push([null, --j]);
+    else pairs.push([--i, null]);
   }
   return pairs.reverse();
 }
