@@ -12,6 +12,7 @@ import { main } from '../../../bin/cli.js';
 import { compile, startSession } from '../../../engine/index.js';
 import { makeRenderContext, renderCellOutput, renderCheckSummary } from '../../../engine/render/index.js';
 import { formatUtilization } from '../../../engine/values/format.js';
+import { compareToDocument, changeBadge } from '../../../site/review.js';
 
 // Utilizations chosen where the outputs used to disagree: 1.0043 printed "FAILS 1" on the command line,
 // 1.435 printed 1.43 there and 1.44 on the sheet, 1.0143 printed 1.01 there and 1.02 on the page.
@@ -180,6 +181,21 @@ describe('a utilization prints the same everywhere, rounded up', () => {
     const cli = out.cliChecks.get('c_g')!;
     expect(/utilization (\S+)\)/.exec(out.json.c_g!.text)?.[1]).toBe(cli);
     expect(shownUtilizations(out.sheet.querySelector('[data-cell="c_g"]')!)).toEqual([cli, cli]);
+  });
+});
+
+describe('the live page\'s review badge', () => {
+  it('a check brought within its limit shows both utilizations as the sheet prints them', async () => {
+    // The reviewer lowers N_Ed from the document's 100.43 kN (1.0043, fails) to 99 kN (0.99, holds).
+    const doc = compile(DOC, { file: 'probe.md' });
+    const session = startSession(doc);
+    const documentStates = new Map(await session.settle());
+    session.setInput('N_Ed', '99 kN');
+    const reviewed = new Map(await session.settle());
+    session.dispose();
+    const cell = doc.graph.byId.get('c_N')!;
+    const badge = changeBadge(compareToDocument(cell, documentStates.get('c_N'), reviewed.get('c_N'), 4));
+    expect(badge).toContain('(utilization 1.01 → 0.99)');
   });
 });
 
