@@ -16,6 +16,7 @@ import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
 import type { MathNode } from 'mathjs';
+import { caseVerdict, checkCasesNote } from './cases.js';
 
 /** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
@@ -108,7 +109,7 @@ export function renderCheck(cell: Cell, ctx: RenderContext): string {
   const name = cell.name ? `${typeset(symbolTex(cell.name))} ` : '';
   const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(cell.description)}</p>` : '';
   return `<div class="vb-step vb-step--check" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
-    + `<div class="vb-body">${head}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
+    + `<div class="vb-body">${head}${checkCasesNote(cell, ctx)}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
 }
 
 /**
@@ -122,10 +123,12 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   const tally: Record<Verdict, number> = { pass: 0, near: 0, fail: 0, none: 0 };
   const rows = checks.map((cell, i) => {
     const state = stateOf(ctx, cell.id);
-    const verdict = verdictOf(state);
+    const byCase = caseVerdict(cell, ctx);
+    const verdict = byCase ? byCase.verdict : verdictOf(state);
     tally[verdict]++;
-    const u = state.status === 'ok' ? (state.value as CheckResult).utilization : null;
-    const what = cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false));
+    const u = byCase ? byCase.utilization : state.status === 'ok' ? (state.value as CheckResult).utilization : null;
+    const governs = byCase ? `<br><span class="vb-note">governing: ${escapeHtml(byCase.governing)}</span>` : '';
+    const what = (cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationText(u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
       + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`
