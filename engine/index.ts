@@ -127,6 +127,7 @@ export { formatDiagnostic } from './diagnostic.js';
 export { formatValue, formatNumber } from './values/format.js';
 export { toJsonValue } from './values/json.js';
 export type { Session } from './runtime/bind.js';
+export type { Case, CaseResult, CheckCase } from './cases/index.js';
 export type { Summary } from './summary.js';
 export type { CaseRun, CaseRunner } from './cases/index.js';
 export type { Diagnostic } from './diagnostic.js';

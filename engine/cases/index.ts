@@ -18,8 +18,11 @@ import { expandCases, type Case } from './expand.js';
 import { runCases, resultOf, errorKeys, type CaseResult, type RunOptions } from './run.js';
 import { envelopeOf, type CheckEnvelope } from './envelope.js';
 
-/** Evaluates a slice of cases somewhere else (worker threads) and returns their results in order. */
-export type CaseRunner = (cases: Case[]) => Promise<CaseResult[]>;
+/**
+ * Evaluates the cases somewhere else (worker threads) and returns their results in order,
+ * or null to leave them to this session (too few to be worth it, or no workers).
+ */
+export type CaseRunner = (cases: Case[]) => Promise<CaseResult[] | null>;
 
 /** Everything the cases of a document give. */
 export interface CaseRun {
@@ -79,7 +82,8 @@ export async function judgeCases(doc: CompiledDocument, session: Session, base: 
     return { cases: [shown], shown, results, checks: envelopeOf(doc.graph, doc.cases, [shown], results), diagnostics };
   }
   const { cases, diagnostics } = expandCases(doc, base, pinnedInputs(doc));
-  const evaluated = options.runner && cases.length > 0 ? await options.runner(cases) : await runCases(session, cases, known, options);
+  const elsewhere = options.runner && cases.length > 0 ? await options.runner(cases) : null;
+  const evaluated = elsewhere ?? await runCases(session, cases, known, options);
   const results = [resultOf(doc.graph, base, null, new Set()), ...evaluated];
   const order = [null, ...cases];
   return {

@@ -170,8 +170,8 @@ function plotHtml(g: Group, run: CaseRun, ctx: RenderContext): string {
     + `<text x="${PAD.l - 4}" y="${py(1) + 3}" font-size="9" text-anchor="end">1</text><text x="${PAD.l - 4}" y="${H - PAD.b + 3}" font-size="9" text-anchor="end">0</text>`
     + `<text x="${PAD.l}" y="${H - 8}" font-size="9">${escapeHtml(label(x0))}</text><text x="${W - PAD.r}" y="${H - 8}" font-size="9" text-anchor="end">${escapeHtml(label(x1))}</text>`
     + `<text x="${(PAD.l + W - PAD.r) / 2}" y="${H - 8}" font-size="9" text-anchor="middle">${escapeHtml(input)}</text>`;
-  return `<figure class="vb-figure vb-caseplot"><div class="vb-svg"><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="utilization of each check against ${escapeHtml(input)} in ${escapeHtml(g.name)}">${axes}${lines}</svg></div>`
-    + `<figcaption>Utilization of each check against ${escapeHtml(input)}, family ${escapeHtml(g.name)} (${g.members.length} cases); dotted: u = 1.</figcaption></figure>`;
+  return `<figure class="vb-figure vb-caseplot"><div class="vb-ref"></div><div class="vb-figbody"><div class="vb-svg" style="max-width:120mm"><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="utilization of each check against ${escapeHtml(input)} in ${escapeHtml(g.name)}">${axes}${lines}</svg></div>`
+    + `<figcaption>Utilization of each check against ${escapeHtml(input)}, family ${escapeHtml(g.name)} (${g.members.length} cases); dotted: u = 1.</figcaption></div></figure>`;
 }
 
 /**
