@@ -1,7 +1,8 @@
 /**
  * summariseCases: adds the cases to a document's JSON summary, keeping every field it had:
  * top-level `cases`, and per check `governing` and `cases`, with `pass` and `utilization`
- * becoming the verdict over every case the check is judged in.
+ * becoming the verdict over every case the check is judged in. Only for a document that has a
+ * ```cases cell: any other keeps exactly the JSON it had.
  */
 import type { CaseEntry, Summary } from '../summary.js';
 import type { CompiledDocument } from '../types.js';
@@ -12,6 +13,8 @@ import type { CaseRun } from './index.js';
  * @example summariseCases(summarise(doc, states, warnings), run, doc).checks[0].governing // {case: 'EQU', pass: true, utilization: 0.6}
  */
 export function summariseCases(summary: Summary, run: CaseRun, doc: CompiledDocument): Summary {
+  // A document without a ```cases cell keeps the JSON it always had.
+  if (!doc.blocks.some((b) => b.kind === 'calc' && b.cellKind === 'cases') && run.diagnostics.length === 0) return summary;
   summary.cases = run.cases.map((c): CaseEntry => ({
     name: c.name, family: c.family, index: c.index, overrides: c.overrides, description: c.description, line: c.line,
   }));
