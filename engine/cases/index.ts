@@ -118,3 +118,4 @@ export { runCases, resultOf, errorKeys, type CaseResult, type CheckCase } from '
 export { envelopeOf, governingOf, isJudgedIn, type CheckEnvelope } from './envelope.js';
 export { readCaseBook, LIMIT_MARKER } from './read.js';
 export { steps } from './steps.js';
+export { downstreamOf } from './dirty.js';
