@@ -12,6 +12,8 @@ import { formatValue, formatNumber } from '../values/format.js';
 import { anchorId, escapeHtml } from './escape.js';
 import { utilizationText } from './quantity.js';
 import type { RenderContext } from './context.js';
+import { typeset } from './katex.js';
+import { symbolTex } from './names.js';
 
 type Verdict = 'pass' | 'near' | 'fail' | 'none';
 const MARK: Record<Verdict, string> = { pass: '✓', near: '◆', fail: '✗', none: '?' };
@@ -31,14 +33,15 @@ export function caseLabel(name: string | null): string {
  * A check's verdict over every case, for the summary; null when the document has no cases.
  * @example caseVerdict(cell, ctx) // {verdict: 'pass', utilization: 0.81, governing: 'STR', limit: null}
  */
-export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict; utilization: number | null; governing: string; limit: string[] | null } | null {
+export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict; utilization: number | null; governing: string; limit: string[] | null; note: string } | null {
   const run = ctx.cases;
   if (!run || (run.cases.length === 0 && !ctx.doc.cases.limits.size)) return null;
   const env = run.checks.get(cell.id);
   if (!env) return null;
   const limit = ctx.doc.cases.limits.get(cell.id) ?? null;
   const governing = env.governing ? caseLabel(env.governing.case) : 'not judged in any case';
-  return { verdict: env.governing ? verdictOfCase(env.governing) : 'none', utilization: env.utilization, governing, limit };
+  const note = `governing: ${governing}${limit ? ` (judged in ${limit.join(', ')} only)` : ''}`;
+  return { verdict: env.governing ? verdictOfCase(env.governing) : 'none', utilization: env.utilization, governing, limit, note };
 }
 
 /** The sentence under a check in the body: the cases it is judged in and the one that governs. */
@@ -66,21 +69,22 @@ function groupsOf(cases: readonly Case[]): Group[] {
   return groups;
 }
 
-function overridesText(g: Group, sigfigs: number): string {
+function overridesHtml(g: Group, sigfigs: number): string {
   const first = g.members[0]!;
   return Object.keys(first.values).map((input) => {
     const values = g.members.map((m) => m.values[input]);
-    const shown = (v: unknown) => formatValue(v, { sigfigs });
-    if (!first.swept.includes(input)) return `${input} = ${shown(values[0])}`;
-    const distinct = [...new Set(values.map(shown))];
-    return `${input} = ${shown(values[0])} … ${shown(values[values.length - 1])} (${distinct.length} values)`;
+    const shown = (v: unknown) => escapeHtml(formatValue(v, { sigfigs }));
+    const name = typeset(symbolTex(input));
+    if (!first.swept.includes(input)) return `<span class="vb-caseset">${name} = ${shown(values[0])}</span>`;
+    const distinct = new Set(values.map(shown)).size;
+    return `<span class="vb-caseset">${name} = ${shown(values[0])} … ${shown(values[values.length - 1])} (${distinct} values)</span>`;
   }).join('; ');
 }
 
 function listHtml(run: CaseRun, ctx: RenderContext): string {
   const rows = groupsOf(run.cases).map((g) => {
     const name = g.members[0]!.family ? `${g.name}[1…${g.members.length}]` : g.name;
-    return `<tr><td><b>${escapeHtml(name)}</b></td><td>${escapeHtml(overridesText(g, ctx.sigfigs))}</td>`
+    return `<tr><td><b>${escapeHtml(name)}</b></td><td>${overridesHtml(g, ctx.sigfigs)}</td>`
       + `<td>${escapeHtml(g.members[0]!.description)}</td><td class="vb-ref">line ${g.members[0]!.line}</td></tr>`;
   }).join('');
   return `<table class="vb-summary vb-cases"><thead><tr><th>case</th><th>inputs changed</th><th>why</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;

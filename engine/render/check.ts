@@ -16,7 +16,7 @@ import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
 import type { MathNode } from 'mathjs';
-import { caseVerdict, checkCasesNote } from './cases.js';
+import { caseVerdict, checkCasesNote, withoutLimitMarker } from './cases.js';
 
 /** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
@@ -107,7 +107,7 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
 /** One ```check line as a step of the calculation. */
 export function renderCheck(cell: Cell, ctx: RenderContext): string {
   const name = cell.name ? `${typeset(symbolTex(cell.name))} ` : '';
-  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(cell.description)}</p>` : '';
+  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(withoutLimitMarker(cell.description))}</p>` : '';
   return `<div class="vb-step vb-step--check" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
     + `<div class="vb-body">${head}${checkCasesNote(cell, ctx)}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
 }
@@ -127,8 +127,8 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
     const verdict = byCase ? byCase.verdict : verdictOf(state);
     tally[verdict]++;
     const u = byCase ? byCase.utilization : state.status === 'ok' ? (state.value as CheckResult).utilization : null;
-    const governs = byCase ? `<br><span class="vb-note">governing: ${escapeHtml(byCase.governing)}</span>` : '';
-    const what = (cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
+    const governs = byCase ? `<br><span class="vb-note">${escapeHtml(byCase.note)}</span>` : '';
+    const what = (cell.description ? escapeHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationText(u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
       + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`
