@@ -126,6 +126,7 @@ export async function evaluateDocument(source: string, options: EvaluateOptions 
 export { formatDiagnostic } from './diagnostic.js';
 export { formatValue, formatNumber } from './values/format.js';
 export { toJsonValue } from './values/json.js';
+export { expandCases, judgeCases } from './cases/index.js';
 export type { Session } from './runtime/bind.js';
 export type { Case, CaseResult, CheckCase } from './cases/index.js';
 export type { Summary } from './summary.js';

@@ -184,11 +184,12 @@ function plotHtml(g: Group, run: CaseRun, ctx: RenderContext): string {
  */
 export function renderCasesBlock(_block: CalcBlock, ctx: RenderContext): string {
   const run = ctx.cases;
-  if (!run || run.cases.length === 0) return '';
+  // The wrapper stays when there is nothing to show yet, so that a live page can fill it in.
+  if (!run || run.cases.length === 0) return '<div class="vb-cases" data-cases></div>';
   const shown = run.shown ? `<p class="vb-note">This sheet shows the case <b>${escapeHtml(run.shown.name)}</b> in place of the document as written.</p>` : '';
   const plots = run.shown ? '' : groupsOf(run.cases).map((g) => plotHtml(g, run, ctx)).join('');
-  return `<h3 class="vb-h">Cases</h3>${shown}${listHtml(run, ctx)}`
-    + (run.shown ? '' : `<h3 class="vb-h">Envelope: each check in each case</h3>${envelopeHtml(run, ctx)}${plots}`);
+  return `<div class="vb-cases" data-cases><h3 class="vb-h">Cases</h3>${shown}${listHtml(run, ctx)}`
+    + (run.shown ? '' : `<h3 class="vb-h">Envelope: each check in each case</h3>${envelopeHtml(run, ctx)}${plots}`) + '</div>';
 }
 
 /** The check's comment without its `[in …]` marker (the summary says it in words). */
