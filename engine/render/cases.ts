@@ -8,6 +8,7 @@
 import type { Cell, CalcBlock } from '../types.js';
 import type { Case, CaseRun, CheckCase } from '../cases/index.js';
 import { LIMIT_MARKER } from '../cases/read.js';
+import { isJudgedIn } from '../cases/envelope.js';
 import { formatValue, formatNumber } from '../values/format.js';
 import { anchorId, escapeHtml } from './escape.js';
 import { utilizationText } from './quantity.js';
@@ -33,7 +34,7 @@ export function caseLabel(name: string | null): string {
  * A check's verdict over every case, for the summary; null when the document has no cases.
  * @example caseVerdict(cell, ctx) // {verdict: 'pass', utilization: 0.81, governing: 'STR', limit: null}
  */
-export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict; utilization: number | null; governing: string; limit: string[] | null; note: string } | null {
+export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict; utilization: number | null; governing: string; limit: string[] | null; note: string; neutral: boolean } | null {
   const run = ctx.cases;
   if (!run || (run.cases.length === 0 && !ctx.doc.cases.limits.size)) return null;
   const env = run.checks.get(cell.id);
@@ -41,16 +42,35 @@ export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict;
   const limit = ctx.doc.cases.limits.get(cell.id) ?? null;
   const governing = env.governing ? caseLabel(env.governing.case) : 'not judged in any case';
   const note = `governing: ${governing}${limit ? ` (judged in ${limit.join(', ')} only)` : ''}`;
-  return { verdict: env.governing ? verdictOfCase(env.governing) : 'none', utilization: env.utilization, governing, limit, note };
+  const neutral = !limit && env.cases.every((x) => x.pass === env.cases[0]?.pass && x.utilization === env.cases[0]?.utilization);
+  return { verdict: env.governing ? verdictOfCase(env.governing) : 'none', utilization: env.utilization, governing, limit, note, neutral };
+}
+
+/**
+ * For a check that is not judged in the document shown (limited to other cases), its verdict
+ * over the cases it is judged in: the body then shows that, not the shown document's numbers.
+ * @example notJudgedHere(cOverturn, ctx) // {verdict: 'pass', utilization: 0.49}
+ */
+export function notJudgedHere(cell: Cell, ctx: RenderContext): { verdict: Verdict; utilization: number | null } | null {
+  const limit = ctx.doc.cases.limits.get(cell.id);
+  if (!limit || !ctx.cases || isJudgedIn(limit, ctx.cases.shown)) return null;
+  const env = ctx.cases.checks.get(cell.id);
+  return env?.governing && !ctx.cases.shown ? { verdict: verdictOfCase(env.governing), utilization: env.utilization } : { verdict: 'none', utilization: null };
 }
 
 /** The sentence under a check in the body: the cases it is judged in and the one that governs. */
 export function checkCasesNote(cell: Cell, ctx: RenderContext): string {
   const v = caseVerdict(cell, ctx);
-  if (!v) return '';
-  const where = v.limit ? `Judged only in ${v.limit.join(', ')}` : 'Judged as written and in every case';
-  const u = v.utilization === null ? '' : `, u = ${utilizationText(v.utilization)}`;
-  return `<p class="vb-note vb-casenote">${escapeHtml(where)}; governing: ${escapeHtml(v.governing)}${u} (${MARK[v.verdict]}). Shown below: ${escapeHtml(caseLabel(ctx.cases?.shown?.name ?? null))}.</p>`;
+  // A check no case moves reads as it always did.
+  if (!v || v.neutral) return '';
+  const shown = caseLabel(ctx.cases?.shown?.name ?? null);
+  const where = v.limit ? `Judged in ${v.limit.join(', ')} only` : 'Judged as written and in every case';
+  const u = v.utilization === null ? '' : ` (u = ${utilizationText(v.utilization)})`;
+  const governing = ctx.cases?.checks.get(cell.id)?.governing?.case ?? null;
+  const below = notJudgedHere(cell, ctx)
+    ? (governing ? ` Its working: render --case ${governing}.` : '')
+    : ` Worked below: ${shown}.`;
+  return `<p class="vb-note vb-casenote">${escapeHtml(`${where}; governing: ${v.governing}${u}.${below}`)}</p>`;
 }
 
 interface Group {
@@ -101,7 +121,8 @@ function envelopeHtml(run: CaseRun, ctx: RenderContext): string {
   const checks = ctx.doc.graph.cells.filter((c) => c.kind === 'check');
   const groups = groupsOf(run.cases);
   const head = ['as written', ...groups.map((g) => (g.members[0]!.family ? `${g.name} (worst)` : g.name))];
-  const rows = checks.map((cell) => {
+  const neutral = checks.filter((cell) => caseVerdict(cell, ctx)?.neutral);
+  const rows = checks.filter((cell) => !neutral.includes(cell)).map((cell) => {
     const env = run.checks.get(cell.id);
     const by = new Map((env?.cases ?? []).map((x) => [x.case, x]));
     const cells = [entryHtml(by.get(null) ?? null, env?.governing ?? null)];
@@ -114,8 +135,10 @@ function envelopeHtml(run: CaseRun, ctx: RenderContext): string {
     const label = cell.name ?? `line ${cell.span.start.line}`;
     return `<tr><td><a href="#${anchorId(cell.id)}">${escapeHtml(label)}</a></td>${cells.join('')}</tr>`;
   }).join('');
+  const same = neutral.length
+    ? ` The same in every case: ${neutral.map((c) => `<a href="#${anchorId(c.id)}">${escapeHtml(c.name ?? `line ${c.span.start.line}`)}</a>`).join(', ')}.` : '';
   return `<table class="vb-summary vb-envelope"><thead><tr><th>check</th>${head.map((h) => `<th class="vb-num">${escapeHtml(h)}</th>`).join('')}</tr></thead><tbody>${rows}</tbody></table>`
-    + '<p class="vb-note">Utilization per check and case; bold: the governing case; —: the check is not judged in that case.</p>';
+    + `<p class="vb-note">Utilization per check and case; bold: the governing case; —: the check is not judged in that case.${same}</p>`;
 }
 
 function worstOf(list: CheckCase[]): CheckCase | null {

@@ -16,7 +16,7 @@ import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
 import type { MathNode } from 'mathjs';
-import { caseVerdict, checkCasesNote, withoutLimitMarker } from './cases.js';
+import { caseVerdict, checkCasesNote, notJudgedHere, withoutLimitMarker } from './cases.js';
 
 /** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
@@ -96,6 +96,12 @@ function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, recor
  * @example renderCheckOutput(cell, state, ctx)
  */
 export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
+  // A check limited to other cases: its formula and its verdict over those cases (engine/render/cases.ts).
+  const elsewhere = notJudgedHere(cell, ctx);
+  if (elsewhere) {
+    return `<div class="vb-work"><div class="vb-math">${typeset(exprTex(cell.node, ctx.scope, false), true)}</div></div>`
+      + `<div class="vb-out">${verdictHtml(elsewhere.verdict, elsewhere.utilization)}</div>`;
+  }
   const r = state.status === 'ok' ? (state.value as CheckResult) : null;
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc) : '';
   const verdict = verdictOf(state);
@@ -127,7 +133,7 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
     const verdict = byCase ? byCase.verdict : verdictOf(state);
     tally[verdict]++;
     const u = byCase ? byCase.utilization : state.status === 'ok' ? (state.value as CheckResult).utilization : null;
-    const governs = byCase ? `<br><span class="vb-note">${escapeHtml(byCase.note)}</span>` : '';
+    const governs = byCase && !byCase.neutral ? `<br><span class="vb-note">${escapeHtml(byCase.note)}</span>` : '';
     const what = (cell.description ? escapeHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationText(u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
