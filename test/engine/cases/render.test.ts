@@ -75,7 +75,7 @@ describe('render and check on the command line', () => {
     expect(sheet.text).toContain('This sheet shows the case axle[2] in place of the document as written.');
     // axle[2]: x_P = 1.8 m, M = 10 · 1.8 · 4.2 / 6 = 12.6 kN m.
     expect(sheet.querySelector('[data-cell="M"]')!.text).toContain('12.6');
-    expect(sheet.querySelectorAll('tr.vb-input--set').map((tr) => tr.getAttribute('id'))).toEqual(['x_P']);
+    expect(sheet.querySelectorAll('tr.vb-input--set').map((tr) => tr.getAttribute('id'))).toEqual(['cell-x_P']);
   });
 
   it('check exits 1 when a check fails in any case, 0 when --set makes every case hold', async () => {
