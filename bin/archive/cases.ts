@@ -1,8 +1,8 @@
 /**
- * Cases of a large family on worker threads: the main thread expands the cases, each worker
- * compiles the same text, evaluates it as written and then its contiguous slice of the cases
- * with the engine's own runCases, and posts the results back. The results are those of a
- * single-thread run: each case sets the same inputs on the same compiled document.
+ * Cases of a large family on worker threads: the main thread expands the cases and evaluates the
+ * first slice on its own session while each worker compiles the same text, evaluates it as written
+ * and then its contiguous slice with the engine's own runCases, and posts the results back. The
+ * results are those of a single-thread run: each case sets the same inputs on the same document.
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
@@ -48,6 +48,8 @@ export interface CasePoolOptions {
   /** Below this many cases per thread, the main thread does them all (default CASES_PER_WORKER). */
   perWorker?: number;
   workerEntry?: URL;
+  /** Told where each slice was evaluated (for tests and progress). */
+  onSlice?: (where: 'main thread' | 'worker', names: string[]) => void;
 }
 
 /**
@@ -55,17 +57,23 @@ export interface CasePoolOptions {
  * @example await evaluateDocument(text, {file, caseRunner: casePool(text, file, {}, {jobs: 2})})
  */
 export function casePool(text: string, file: string, overrides: Record<string, string>, options: CasePoolOptions = {}): CaseRunner {
-  return async (cases: Case[]) => {
+  return async (cases: Case[], here: (slice: Case[]) => Promise<CaseResult[]>) => {
     const threads = Math.min(options.jobs ?? availableParallelism(), Math.floor(cases.length / (options.perWorker ?? CASES_PER_WORKER)));
     if (threads < 2) return null;
     const size = Math.ceil(cases.length / threads);
-    const slices = Array.from({ length: threads }, (_, i) => cases.slice(i * size, (i + 1) * size).map((c) => c.name)).filter((s) => s.length);
-    try {
-      const parts = await Promise.all(slices.map((names, id) => runOnWorker({ id, text, file, overrides, names }, options.workerEntry ?? WORKER_ENTRY)));
-      return parts.flat();
-    } catch {
-      return null; // Workers could not run: the main thread evaluates the cases itself.
+    const slices = Array.from({ length: threads }, (_, i) => cases.slice(i * size, (i + 1) * size)).filter((s) => s.length);
+    const away = slices.slice(1).map((slice, i) => runOnWorker({ id: i, text, file, overrides, names: slice.map((c) => c.name) }, options.workerEntry ?? WORKER_ENTRY)
+      .then((results) => { options.onSlice?.('worker', slice.map((c) => c.name)); return results; })
+      // A worker that cannot run leaves its slice to the main thread.
+      .catch(() => null));
+    const parts = [await here(slices[0]!)];
+    options.onSlice?.('main thread', slices[0]!.map((c) => c.name));
+    for (const [i, part] of (await Promise.all(away)).entries()) {
+      if (part) { parts.push(part); continue; }
+      parts.push(await here(slices[i + 1]!));
+      options.onSlice?.('main thread', slices[i + 1]!.map((c) => c.name));
     }
+    return parts.flat();
   };
 }
 

@@ -19,10 +19,11 @@ import { runCases, resultOf, errorKeys, type CaseResult, type RunOptions } from 
 import { envelopeOf, type CheckEnvelope } from './envelope.js';
 
 /**
- * Evaluates the cases somewhere else (worker threads) and returns their results in order,
- * or null to leave them to this session (too few to be worth it, or no workers).
+ * Evaluates the cases partly elsewhere (worker threads) and returns their results in order, or
+ * null to leave them all to this session (too few to be worth it, or no workers). `here`
+ * evaluates a slice on this session meanwhile.
  */
-export type CaseRunner = (cases: Case[]) => Promise<CaseResult[] | null>;
+export type CaseRunner = (cases: Case[], here: (slice: Case[]) => Promise<CaseResult[]>) => Promise<CaseResult[] | null>;
 
 /** Everything the cases of a document give. */
 export interface CaseRun {
@@ -82,7 +83,8 @@ export async function judgeCases(doc: CompiledDocument, session: Session, base: 
     return { cases: [shown], shown, results, checks: envelopeOf(doc.graph, doc.cases, [shown], results), diagnostics };
   }
   const { cases, diagnostics } = expandCases(doc, base, pinnedInputs(doc));
-  const elsewhere = options.runner && cases.length > 0 ? await options.runner(cases) : null;
+  const here = (slice: Case[]) => runCases(session, slice, known, options);
+  const elsewhere = options.runner && cases.length > 0 ? await options.runner(cases, here) : null;
   const evaluated = elsewhere ?? await runCases(session, cases, known, options);
   const results = [resultOf(doc.graph, base, null, new Set()), ...evaluated];
   const order = [null, ...cases];

@@ -167,13 +167,16 @@ describe('cost: a case re-evaluates exactly its dirty subgraph', () => {
 });
 
 describe('worker threads', () => {
-  it('casePool on two worker threads gives exactly the single-thread results', async () => {
+  it('casePool on the main thread and two worker threads gives exactly the single-thread results', async () => {
     const text = BEAM.replace('steps(0.1 * L, 0.9 * L, 5)', 'steps(0.1 * L, 0.9 * L, 8)');
     const single = await evaluateDocument(text, { file: 'beam.md' });
     let used = 0;
-    const pool = casePool(text, 'beam.md', {}, { jobs: 2, perWorker: 2 });
-    const pooled = await evaluateDocument(text, { file: 'beam.md', caseRunner: async (cases) => { const r = await pool(cases); if (r) used++; return r; } });
+    const where: string[] = [];
+    const pool = casePool(text, 'beam.md', {}, { jobs: 3, perWorker: 2, onSlice: (w, names) => where.push(`${w}: ${names.join(' ')}`) });
+    const pooled = await evaluateDocument(text, { file: 'beam.md', caseRunner: async (cases, here) => { const r = await pool(cases, here); if (r) used++; return r; } });
     expect(used).toBe(1);
+    // Ten cases on three threads: slices of 4, 4 and 2, the first on the main thread.
+    expect(where.sort()).toEqual(['main thread: EQU STR axle[1] axle[2]', 'worker: axle[3] axle[4] axle[5] axle[6]', 'worker: axle[7] axle[8]'].sort());
     expect(pooled.summary).toEqual(single.summary);
   }, 30_000);
 });
