@@ -10,8 +10,8 @@ import { compile, startSession, type Case, type CaseResult, type CaseRunner } fr
 import { expandCases, errorKeys, runCases } from '../../engine/cases/index.js';
 import { workerUrl } from '../worker-url.js';
 
-/** Fewer cases than this run on the main thread: a worker costs about a second to start. */
-export const CASES_PER_WORKER = 24;
+/** Cases per thread below which no worker starts: a worker costs about a second to start, and a case of the templates 10–30 ms. */
+export const CASES_PER_WORKER = 100;
 
 const WORKER_ENTRY = workerUrl('archive-worker.cjs', new URL('./worker-entry.js', import.meta.url));
 
