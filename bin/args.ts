@@ -29,3 +29,5 @@ export function readOverrides(sets: string[] | undefined): Record<string, string
 
 export const SET_OPTION = { set: { type: 'string', multiple: true, short: 's' } } as const;
 export const JSON_OPTION = { json: { type: 'boolean' } } as const;
+/** `--case NAME`: evaluate one case as if its inputs were written in the document. */
+export const CASE_OPTION = { case: { type: 'string' } } as const;

@@ -8,12 +8,12 @@ type Command = (args: string[], out: (s: string) => void) => Promise<number>;
 export const COMMANDS: Record<string, { run: Command; usage: string }> = {
   // Every command is loaded when it runs, so `--help` or a mistyped command answers without
   // loading the engine (mathjs alone takes about 0.1 s to set up).
-  eval: { run: (a, o) => import('./commands/eval.js').then((m) => m.evalCommand(a, o)), usage: 'eval FILE [--set NAME=EXPR ...] [--json]      evaluate a calc and list its values' },
-  check: { run: (a, o) => import('./commands/check.js').then((m) => m.checkCommand(a, o)), usage: 'check FILE|GLOB... [--set NAME=EXPR ...] [--json] [--jobs N]  evaluate and judge every check (exit 0 all hold, 1 a check fails, 2 errors)' },
+  eval: { run: (a, o) => import('./commands/eval.js').then((m) => m.evalCommand(a, o)), usage: 'eval FILE [--set NAME=EXPR ...] [--case NAME] [--json]  evaluate a calc and list its values' },
+  check: { run: (a, o) => import('./commands/check.js').then((m) => m.checkCommand(a, o)), usage: 'check FILE|GLOB... [--set NAME=EXPR ...] [--case NAME] [--json] [--jobs N]  evaluate and judge every check in every case (exit 0 all hold, 1 a check fails, 2 errors)' },
   new: { run: (a, o) => import('./commands/new.js').then((m) => m.newCommand(a, o)), usage: 'new [TEMPLATE FILE]                          start a calc from a template (lists templates without one; never overwrites)' },
   diff: { run: (a, o) => import('./commands/diff.js').then((m) => m.diffCommand(a, o)), usage: 'diff OLD NEW | diff FILE --rev REV [--json]  what changed: inputs, results (%), checks flipped (exit 1 when a check newly fails)' },
-  render: { run: (a, o) => import('./commands/render.js').then((m) => m.renderCommand(a, o)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium' },
-  serve: { run: async (a, o) => (await import('./commands/serve.js')).serveCommand(a, o), usage: 'serve FILE [--port N]                         the live sheet in a browser: edit inputs, review changes, write them back' },
+  render: { run: (a, o) => import('./commands/render.js').then((m) => m.renderCommand(a, o)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...] [--case NAME]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium' },
+  serve: { run: async (a, o) => (await import('./commands/serve.js')).serveCommand(a, o), usage: 'serve FILE [--port N] [--case NAME]             the live sheet in a browser: edit inputs, review changes, write them back' },
   help: { run: (a, o) => import('./commands/help.js').then((m) => m.helpCommand(a, o, usage, COMMANDS)), usage: 'help [FUNCTION|COMMAND]                       the kernel functions; one function\'s arguments, result fields, method and sources' },
 };
 

@@ -3,6 +3,7 @@
  */
 import { readFile } from 'node:fs/promises';
 import { evaluateDocument, type Summary } from '../engine/index.js';
+import { casePool } from './archive/cases.js';
 
 export interface Loaded {
   file: string;
@@ -11,7 +12,14 @@ export interface Loaded {
   unreadable?: string;
 }
 
-export async function loadAndEvaluate(file: string, overrides: Record<string, string>): Promise<Loaded> {
+export interface LoadOptions {
+  /** `--case NAME`: evaluate this case as if written in. */
+  case?: string;
+  /** Threads for a large family of cases (the main thread alone when absent or 1). */
+  caseJobs?: number;
+}
+
+export async function loadAndEvaluate(file: string, overrides: Record<string, string>, options: LoadOptions = {}): Promise<Loaded> {
   let text: string;
   try {
     text = await readFile(file, 'utf8');
@@ -23,7 +31,8 @@ export async function loadAndEvaluate(file: string, overrides: Record<string, st
     };
     return { file, unreadable: reason, summary: { file, meta: {}, values: {}, checks: [], diagnostics: [diagnostic] } };
   }
-  const { summary } = await evaluateDocument(text, { file, overrides });
+  const caseRunner = options.caseJobs && options.caseJobs > 1 ? casePool(text, file, overrides, { jobs: options.caseJobs }) : undefined;
+  const { summary } = await evaluateDocument(text, { file, overrides, ...(options.case !== undefined ? { case: options.case } : {}), ...(caseRunner ? { caseRunner } : {}) });
   return { file, summary };
 }
 

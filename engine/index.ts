@@ -14,6 +14,9 @@ import { bindGraph, type Session } from './runtime/bind.js';
 import { registerLibrary } from './library.js';
 import { readOverride } from './parse/override.js';
 import { summarise, type Summary } from './summary.js';
+import { readCaseBook } from './cases/read.js';
+import { judgeCases, findCase, type CaseRun, type CaseRunner } from './cases/index.js';
+import { summariseCases } from './cases/summary.js';
 
 export interface CompileOptions {
   /** File name used in diagnostics. */
@@ -61,14 +64,15 @@ export function compile(source: string, options: CompileOptions = {}): CompiledD
   const cells: Cell[] = [];
   const failed: FailedStatement[] = [];
   blocks.forEach((b, i) => {
-    if (b.kind !== 'calc') return;
+    if (b.kind !== 'calc' || b.cellKind === 'cases') return;
     const parsed = parseCells(b as CalcBlock, i, ctx);
     cells.push(...parsed.cells);
     failed.push(...parsed.failed);
   });
   applyOverrides(cells, options.overrides ?? {}, ctx);
   const graph = buildGraph(cells, failed, lib, ctx);
-  return { file: ctx.file, source: text, meta, blocks, graph, diagnostics: ctx.diagnostics };
+  const cases = readCaseBook(blocks, graph, lib, ctx);
+  return { file: ctx.file, source: text, meta, blocks, graph, diagnostics: ctx.diagnostics, cases };
 }
 
 /** Starts a live session on a compiled document. */
@@ -78,27 +82,54 @@ export function startSession(doc: CompiledDocument): Session {
 
 export interface Evaluation {
   doc: CompiledDocument;
+  /** The document as written (or as the case asked for with `case`). */
   states: Map<string, CellState>;
+  warnings: Map<string, Diagnostic>;
   summary: Summary;
+  /** Every check in every case, with its governing case. */
+  cases: CaseRun;
+}
+
+export interface EvaluateOptions extends CompileOptions {
+  /** Evaluate this case as if its inputs were written in the document (`--case NAME`). */
+  case?: string;
+  /** Evaluates the cases elsewhere (worker threads) instead of one after another here. */
+  caseRunner?: CaseRunner;
 }
 
 /**
- * Compiles and evaluates a document once.
+ * Compiles and evaluates a document once, in every case of its ```cases cells.
  * @example const {summary} = await evaluateDocument(text, {file: 'calc.md'})
  */
-export async function evaluateDocument(source: string, options: CompileOptions = {}): Promise<Evaluation> {
-  const doc = compile(source, options);
-  const session = startSession(doc);
-  const states = await session.settle();
-  const summary = summarise(doc, states, session.warnings);
+export async function evaluateDocument(source: string, options: EvaluateOptions = {}): Promise<Evaluation> {
+  let doc = compile(source, options);
+  let session = startSession(doc);
+  let shown: Awaited<ReturnType<typeof findCase>> | undefined;
+  if (options.case !== undefined) {
+    shown = await findCase(doc, session, options.case);
+    if ('case' in shown) {
+      session.dispose();
+      doc = compile(source, { ...options, overrides: { ...shown.case.overrides, ...options.overrides } });
+      session = startSession(doc);
+    } else doc.diagnostics.push(shown.error);
+  }
+  const states = new Map(await session.settle());
+  const warnings = new Map(session.warnings);
+  const cases = await judgeCases(doc, session, states, {
+    ...(shown && 'case' in shown ? { shown } : {}), ...(options.caseRunner ? { runner: options.caseRunner } : {}),
+  });
+  const summary = summariseCases(summarise(doc, states, warnings), cases, doc);
   session.dispose();
-  return { doc, states, summary };
+  return { doc, states, warnings, summary, cases };
 }
 
 export { formatDiagnostic } from './diagnostic.js';
 export { formatValue, formatNumber, formatUtilization } from './values/format.js';
 export { toJsonValue } from './values/json.js';
+export { expandCases, judgeCases } from './cases/index.js';
 export type { Session } from './runtime/bind.js';
+export type { Case, CaseResult, CheckCase } from './cases/index.js';
 export type { Summary } from './summary.js';
+export type { CaseRun, CaseRunner } from './cases/index.js';
 export type { Diagnostic } from './diagnostic.js';
 export type * from './types.js';

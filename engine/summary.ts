@@ -2,12 +2,12 @@
  * summarise: settled cell states → the values, checks and diagnostics of a document,
  * in the JSON contract documented in README.
  */
-import type { CellState, CheckResult, CompiledDocument } from './types.js';
+import type { CellKind, CellState, CheckResult, CompiledDocument } from './types.js';
 import type { Diagnostic } from './diagnostic.js';
 import { toJsonValue, type JsonValue } from './values/json.js';
 
 export interface ValueEntry extends JsonValue {
-  kind: 'given' | 'calc' | 'check' | 'figure';
+  kind: CellKind;
   line: number;
   /** Present when the value was not computed because another cell failed. */
   blocked_by?: string;
@@ -24,6 +24,27 @@ export interface CheckEntry {
   utilization: number | null;
   /** Why no verdict, when the check could not be evaluated. */
   blocked_by?: string;
+  /** With cases (engine/cases): the case that sets the verdict, `case: null` for the document as written. */
+  governing?: CaseVerdict;
+  /** With cases: the check in each case it is judged in, in case order (the document as written first, as `case: null`). */
+  cases?: CaseVerdict[];
+}
+
+/** A check in one case. */
+export interface CaseVerdict {
+  case: string | null;
+  pass: boolean | null;
+  utilization: number | null;
+}
+
+/** A case of the document, as listed at the top level of the JSON (the document as written is not listed). */
+export interface CaseEntry {
+  name: string;
+  family: string | null;
+  index: number | null;
+  overrides: Record<string, string>;
+  description: string;
+  line: number;
 }
 
 export interface Summary {
@@ -31,6 +52,8 @@ export interface Summary {
   meta: Record<string, unknown>;
   values: Record<string, ValueEntry>;
   checks: CheckEntry[];
+  /** Every case of the document (engine/cases); empty when it has none. */
+  cases?: CaseEntry[];
   /** Each diagnostic also carries `cell` (= cellId), the name the JSON contract uses. */
   diagnostics: Array<Diagnostic & { cell?: string | null }>;
 }

@@ -18,7 +18,7 @@ export interface Span {
 }
 
 /** The fence info strings that make a code block a live cell. */
-export const CELL_KINDS = ['given', 'calc', 'check', 'figure'] as const;
+export const CELL_KINDS = ['given', 'calc', 'check', 'figure', 'cases'] as const;
 export type CellKind = (typeof CELL_KINDS)[number];
 
 /** Markdown between cells: rendered as ordinary prose. */
@@ -113,6 +113,21 @@ export type CellState =
   | { status: 'error'; diagnostic: Diagnostic }
   | { status: 'blocked'; by: string };
 
+/** One line of a ```cases cell (read by engine/cases): a case, or a family when a value is a list. */
+export interface CaseLine {
+  name: string;
+  /** Input name → its value expression as written, parsed; `column` is where the input's name stands. */
+  values: Array<{ input: string; source: string; node: MathNode; column: number }>;
+  description: string;
+  span: Span;
+}
+
+/** The document's cases, and the checks limited to some of them (check id → case or family names). */
+export interface CaseBook {
+  lines: CaseLine[];
+  limits: Map<string, string[]>;
+}
+
 /** Everything `compile` learns before evaluation. */
 export interface CompiledDocument {
   file: string;
@@ -121,4 +136,6 @@ export interface CompiledDocument {
   blocks: Block[];
   graph: CellGraph;
   diagnostics: Diagnostic[];
+  /** The ```cases cells; empty when the document has none. */
+  cases: CaseBook;
 }

@@ -10,6 +10,8 @@ export interface DocPayload {
   file: string;
   /** Hash of the bytes and git commit, for the sheet's archive footer (as `vaultbook render` gives it). */
   archive?: { hash: string; commit?: string; dirty?: boolean };
+  /** `serve --case NAME`: the case to show first. */
+  case?: string;
 }
 
 export type WriteReply =

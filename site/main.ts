@@ -8,6 +8,7 @@ import { enableEditing, markEditable } from './editor.js';
 import { changeBadge, compareToDocument, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
 import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
 import { SHEET_CSS } from './sheet.js';
+import { LiveCases } from './cases.js';
 
 const sheetEl = document.getElementById('lv-sheet')!;
 const panelEl = document.getElementById('lv-review')!;
@@ -90,9 +91,13 @@ function afterLoad(): void {
   fileEl.textContent = loaded.file;
   const title = sheet.doc.meta.title;
   document.title = `${typeof title === 'string' ? title : loaded.file} — vaultbook`;
+  cases.loaded(loaded.case);
   renderPanel();
   document.dispatchEvent(new CustomEvent('vaultbook:loaded', { detail: { version: loaded.version } }));
 }
+
+const cases = new LiveCases(sheet, document.getElementById('lv-case') as HTMLSelectElement, () => renderPanel());
+document.addEventListener('vaultbook:settled', () => cases.refresh());
 
 sheet.onPatch((e: PatchEvent) => {
   for (const id of e.changed) showChange(id);
@@ -202,7 +207,7 @@ onDocumentChanged((version) => {
 /** For tests and the benchmark: the live objects. */
 declare global {
   interface Window {
-    vaultbook: { sheet: LiveSheet; version(): string; ready: Promise<void>; reload(): Promise<void>; write(): Promise<void> };
+    vaultbook: { sheet: LiveSheet; cases: LiveCases; version(): string; ready: Promise<void>; reload(): Promise<void>; write(): Promise<void> };
   }
 }
 
@@ -214,4 +219,4 @@ const ready = serially(async () => {
     throw e;
   }
 });
-window.vaultbook = { sheet, version: () => loaded.version, ready, reload: reloadFromDisk, write: writeBack };
+window.vaultbook = { sheet, cases, version: () => loaded.version, ready, reload: reloadFromDisk, write: writeBack };

@@ -11,8 +11,8 @@
  * printing); when none is left the page fires `vaultbook:settled`.
  */
 import { compile, startSession } from '../engine/index.js';
-import type { Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
-import { makeRenderContext, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
+import type { CaseRun, Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
+import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
 
 export interface PatchEvent {
   /** Cells whose state changed and were handled in this patch (replaced, or the same HTML). */
@@ -375,6 +375,17 @@ export class LiveSheet {
     this.settledChanged = new Set();
     this.settledPatched = [];
     document.dispatchEvent(new CustomEvent('vaultbook:settled', { detail: event }));
+  }
+
+  /** The cases' verdicts (site/cases.ts): the checks summary and each cases block show them from now on. */
+  showCases(run: CaseRun): void {
+    this.ctx.cases = run;
+    for (const block of this.doc.blocks) {
+      if (block.kind !== 'calc' || block.cellKind !== 'cases') continue;
+      const el = this.root.querySelector<HTMLElement>(`#line-${block.span.start.line} [data-cases]`);
+      if (el) el.outerHTML = renderCasesBlock(block, this.ctx);
+    }
+    this.patchPart('check-summary', () => renderCheckSummary(this.doc, this.session.states, this.ctx));
   }
 
   private patchPart(part: string, render: () => string): boolean {

@@ -24,14 +24,14 @@ describe('public surface', () => {
 
   it('engine/index.ts exports the stage entry points and formatters', () => {
     expect(Object.keys(engine).sort()).toEqual([
-      'compile', 'evaluateDocument', 'formatDiagnostic', 'formatNumber', 'formatUtilization', 'formatValue', 'startSession', 'toJsonValue',
+      'compile', 'evaluateDocument', 'expandCases', 'formatDiagnostic', 'formatNumber', 'formatUtilization', 'formatValue', 'judgeCases', 'startSession', 'toJsonValue',
     ]);
   });
 
   // The sheet is its own entry so that eval and check do not load KaTeX and the sanitiser.
   it('engine/render/index.ts exports the sheet renderer', () => {
     expect(Object.keys(render).sort()).toEqual([
-      'NEAR_LIMIT', 'SHEET_CSS', 'collectDiagnostics', 'makeRenderContext', 'renderArticle', 'renderCellOutput',
+      'NEAR_LIMIT', 'SHEET_CSS', 'collectDiagnostics', 'makeRenderContext', 'renderArticle', 'renderCasesBlock', 'renderCellOutput',
       'renderCheckSummary', 'renderDiagnostics', 'renderSheet', 'renderStatus', 'sha256Hex', 'verdictOf',
     ]);
   });

@@ -6,6 +6,7 @@
 import { parentPort } from 'node:worker_threads';
 import { loadAndEvaluate } from '../load.js';
 import { reportOf, failedReport } from './report.js';
+import { evaluateCaseSlice, type CaseJob } from './cases.js';
 
 export interface Job {
   id: number;
@@ -17,7 +18,15 @@ export interface Job {
 if (!parentPort) throw new Error('bin/archive/worker.ts must run in a worker thread');
 const port = parentPort;
 
-port.on('message', async (job: Job) => {
+port.on('message', async (job: Job | { caseJob: CaseJob }) => {
+  if ('caseJob' in job) {
+    try {
+      port.postMessage({ caseResults: await evaluateCaseSlice(job.caseJob) });
+    } catch (e) {
+      port.postMessage({ caseError: (e as Error).message });
+    }
+    return;
+  }
   try {
     const loaded = await loadAndEvaluate(job.file, job.overrides);
     port.postMessage({ id: job.id, report: reportOf(loaded.summary, { full: job.full, unreadable: loaded.unreadable }) });

@@ -6,17 +6,19 @@
  * on worker threads and summed up in one table.
  */
 import { formatDiagnostic, formatUtilization } from '../../engine/index.js';
-import { parse, readOverrides, SET_OPTION, JSON_OPTION, UsageError } from '../args.js';
+import { parse, readOverrides, SET_OPTION, JSON_OPTION, CASE_OPTION, UsageError } from '../args.js';
+import { availableParallelism } from 'node:os';
 import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
 import type { CheckEntry } from '../../engine/summary.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 
-export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string }): string {
+export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null } }, withCases = false): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
   const u = c.utilization === null ? '     ' : formatUtilization(c.utilization, c.pass).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
-  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}`;
+  const governs = withCases && c.governing ? `  [governing: ${c.governing.case ?? 'as written'}]` : '';
+  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}${governs}`;
 }
 
 export function exitCodeFor(results: Loaded[]): number {
@@ -26,18 +28,20 @@ export function exitCodeFor(results: Loaded[]): number {
 }
 
 export async function checkCommand(args: string[], out: (s: string) => void): Promise<number> {
-  const { values, positionals } = parse(args, { ...SET_OPTION, ...JSON_OPTION, jobs: { type: 'string', short: 'j' } });
+  const { values, positionals } = parse(args, { ...SET_OPTION, ...JSON_OPTION, ...CASE_OPTION, jobs: { type: 'string', short: 'j' } });
   // --jobs counts every thread that evaluates files, the main thread included.
   if (positionals.length === 0) throw new UsageError('check needs at least one FILE');
   const overrides = readOverrides(values.set as string[] | undefined);
   const jobs = values.jobs === undefined ? undefined : Number(values.jobs);
   if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) throw new UsageError(`--jobs expects a whole number of worker threads, got "${values.jobs}"`);
   const expanded = await expandPatterns(positionals);
+  if (values.case !== undefined && (expanded.files.length !== 1 || expanded.unmatched.length > 0)) throw new UsageError('--case applies to one FILE');
   if (expanded.files.length !== 1 || expanded.unmatched.length > 0) {
     return archiveCheck(expanded, { overrides, json: Boolean(values.json), jobs, out });
   }
   const results: Loaded[] = [];
-  for (const file of expanded.files) results.push(await loadAndEvaluate(file, overrides));
+  const caseOptions = { ...(values.case !== undefined ? { case: values.case as string } : {}), caseJobs: jobs ?? availableParallelism() };
+  for (const file of expanded.files) results.push(await loadAndEvaluate(file, overrides, caseOptions));
   if (values.json) {
     out(JSON.stringify(results.length === 1 ? results[0]!.summary : results.map((r) => r.summary), null, 2));
     return exitCodeFor(results);
@@ -45,7 +49,9 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
   for (const r of results) {
     const s = r.summary;
     if (results.length > 1) out(`\n${r.file}`);
-    for (const c of s.checks) out(verdictLine(c));
+    const cases = s.cases ?? [];
+    if (cases.length) out(values.case !== undefined ? `case ${values.case}, as if its inputs were written in:` : `judged as written and in ${cases.length} case${cases.length === 1 ? '' : 's'}; each verdict is the worst:`);
+    for (const c of s.checks) out(verdictLine(c, cases.length > 0 && values.case === undefined));
     for (const d of s.diagnostics) out(formatDiagnostic(d));
     const holds = s.checks.filter((c) => c.pass === true).length;
     const fails = s.checks.filter((c) => c.pass === false).length;

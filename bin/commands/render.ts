@@ -15,9 +15,9 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { basename, dirname, join } from 'node:path';
 import { promisify } from 'node:util';
-import { compile, startSession, type CompiledDocument, type CellState, type Diagnostic } from '../../engine/index.js';
-import { renderSheet, collectDiagnostics, verdictOf, type ArchiveInfo } from '../../engine/render/index.js';
-import { parse, readOverrides, SET_OPTION, UsageError } from '../args.js';
+import { evaluateDocument, type CompiledDocument, type CellState, type Diagnostic, type Summary } from '../../engine/index.js';
+import { renderSheet, type ArchiveInfo } from '../../engine/render/index.js';
+import { parse, readOverrides, SET_OPTION, CASE_OPTION, UsageError } from '../args.js';
 import { ChromiumMissingError, printPdf } from '../pdf.js';
 
 const run = promisify(execFile);
@@ -67,20 +67,16 @@ export function defaultHtmlPath(file: string): string {
 }
 
 /** The sheet for a document text: compile, evaluate, render (standalone). */
-export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic> }> {
-  const doc = compile(source, { file, overrides });
-  const session = startSession(doc);
-  const states = await session.settle();
-  const warnings = new Map(session.warnings);
-  session.dispose();
+export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>, caseName?: string): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic>; summary: Summary }> {
+  const { doc, states, warnings, summary, cases } = await evaluateDocument(source, { file, overrides, ...(caseName !== undefined ? { case: caseName } : {}) });
   // The git look-up runs while the document evaluates; it is needed only for the footer.
   const archive = await archiveLookup;
-  const html = renderSheet({ doc, states, warnings, options: { standalone: true, katexCss: loadKatexCss(), ...(archive ? { archive } : {}) } });
-  return { html, doc, states, warnings };
+  const html = renderSheet({ doc, states, warnings, cases, options: { standalone: true, katexCss: loadKatexCss(), ...(archive ? { archive } : {}) } });
+  return { html, doc, states, warnings, summary };
 }
 
 export async function renderCommand(args: string[], out: (s: string) => void): Promise<number> {
-  const { values, positionals } = parse(args, { ...SET_OPTION, output: { type: 'string', short: 'o' }, pdf: { type: 'string' } });
+  const { values, positionals } = parse(args, { ...SET_OPTION, ...CASE_OPTION, output: { type: 'string', short: 'o' }, pdf: { type: 'string' } });
   if (positionals.length !== 1) throw new UsageError('render takes exactly one FILE');
   const file = positionals[0]!;
   const overrides = readOverrides(values.set as string[] | undefined);
@@ -92,7 +88,7 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
     process.stderr.write(`vaultbook render: cannot read ${file}: ${reason}\n`);
     return 2;
   }
-  const { html, doc, states, warnings } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes));
+  const { html, summary } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes), values.case as string | undefined);
   const htmlPath = values.output as string | undefined ?? (values.pdf ? null : defaultHtmlPath(file));
   // With the sheet on stdout, messages go to stderr so the HTML stays clean.
   const say = htmlPath === '-' ? (s: string) => { process.stderr.write(`${s}\n`); } : out;
@@ -114,10 +110,11 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
       return 2;
     }
   }
-  const verdicts = doc.graph.cells.filter((c) => c.kind === 'check').map((c) => verdictOf(states.get(c.id) ?? { status: 'pending' }));
-  const errors = collectDiagnostics(doc, states, warnings).filter((d) => d.severity === 'error').length;
-  const failing = verdicts.filter((v) => v === 'fail').length;
-  say(`${verdicts.length} checks: ${verdicts.length - failing - verdicts.filter((v) => v === 'none').length} satisfied, ${failing} not satisfied`
+  // Each check's verdict over every case (the document's own verdict when it has no cases).
+  const verdicts = summary.checks.map((c) => c.pass);
+  const errors = summary.diagnostics.filter((d) => d.severity === 'error').length;
+  const failing = verdicts.filter((v) => v === false).length;
+  say(`${verdicts.length} checks: ${verdicts.filter((v) => v === true).length} satisfied, ${failing} not satisfied`
     + `${errors ? `; ${errors} error${errors === 1 ? '' : 's'}: the sheet says so on its first page` : ''}`);
   if (errors) return 2;
   return failing ? 1 : 0;

@@ -2,7 +2,7 @@
  * `vaultbook serve FILE [--port N]`: the live sheet, on 127.0.0.1 only.
  */
 import { existsSync, statSync } from 'node:fs';
-import { parse, UsageError } from '../args.js';
+import { parse, CASE_OPTION, UsageError } from '../args.js';
 import { startServer } from '../serve/server.js';
 
 /** Resolves when the process is asked to stop (Ctrl-C or SIGTERM). */
@@ -14,7 +14,7 @@ function untilStopped(): Promise<string> {
 }
 
 export async function serveCommand(args: string[], out: (s: string) => void): Promise<number> {
-  const { values, positionals } = parse(args, { port: { type: 'string', short: 'p' } });
+  const { values, positionals } = parse(args, { ...CASE_OPTION, port: { type: 'string', short: 'p' } });
   if (positionals.length !== 1) throw new UsageError('serve takes exactly one FILE');
   const file = positionals[0]!;
   if (!existsSync(file) || !statSync(file).isFile()) throw new UsageError(`cannot serve ${file}: no such file`);
@@ -23,7 +23,7 @@ export async function serveCommand(args: string[], out: (s: string) => void): Pr
     port = Number(values.port);
     if (!Number.isInteger(port) || port < 0 || port > 65535) throw new UsageError(`--port expects a number 0–65535, got "${values.port}"`);
   }
-  const server = await startServer({ file, port, strictPort: port !== undefined && port !== 0 });
+  const server = await startServer({ file, port, strictPort: port !== undefined && port !== 0, ...(values.case !== undefined ? { case: values.case as string } : {}) });
   out(`vaultbook serve: ${file} at ${server.url}  (127.0.0.1 only; Ctrl-C stops)`);
   await untilStopped();
   await server.close();

@@ -11,6 +11,7 @@ import type { ValueEntry } from '../../engine/summary.js';
 import { diffValue, type FieldChange } from './values.js';
 import { diffChecks, isNewFailure, type CheckChange } from './checks.js';
 import { diffProse, type ProseDiff } from './prose.js';
+import { diffCases, type CasesDiff } from './cases.js';
 
 export interface DiffInput {
   /** How this version is named in the output: a path, or `path@REV`. */
@@ -116,6 +117,8 @@ export interface DocumentDiff {
   errors_introduced: Diagnostic[];
   /** Checks that fail in the new version and did not before (flipped, or added failing). */
   new_failures: number;
+  /** When either version has cases: each check compared case by case, and changes of governing case. */
+  cases?: CasesDiff;
 }
 
 export interface DiffOptions {
@@ -178,6 +181,7 @@ export function diffDocuments(a: DiffInput, b: DiffInput, options: DiffOptions =
     prose: diffProse(a.blocks, b.blocks),
     errors_introduced,
     new_failures: checks.filter(isNewFailure).length,
+    ...(a.summary.cases || b.summary.cases ? { cases: diffCases(a.summary.checks, b.summary.checks, tol) } : {}),
   };
 }
 

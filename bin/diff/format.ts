@@ -7,7 +7,11 @@
 import { formatDiagnostic, formatNumber, formatUtilization } from '../../engine/index.js';
 import type { DocumentDiff, ValueChange } from './document.js';
 import type { CheckChange, CheckSide } from './checks.js';
+import type { CaseCheckChange } from './cases.js';
 import { formatMove, formatPercent } from './values.js';
+
+/** Cases whose utilization moved, shown per check before "… and N more". */
+const CASES_SHOWN = 5;
 
 /** Fields shown per kernel result before "… and N more". */
 const FIELDS_SHOWN = 4;
@@ -74,6 +78,25 @@ function definitionRow(c: DocumentDiff['definitions'][number]): string[] {
   return [c.name, c.what, move, c.line_old === c.line_new ? `line ${c.line_new}` : `line ${c.line_old} → ${c.line_new}`];
 }
 
+/** Governing-case changes first, then each check's changes case by case. */
+function casesLines(d: DocumentDiff): string[] {
+  const name = (c: string | null) => c ?? 'as written';
+  const u = (v: { utilization: number | null; pass: boolean | null } | null) => (v === null || v.utilization === null ? '—' : formatUtilization(v.utilization, v.pass));
+  const gov = d.cases!.governing.map((g) => ['>>', g.check, `governing case ${name(g.old.case)} → ${name(g.new.case)}`, `utilization ${u(g.old)} → ${u(g.new)}`]);
+  const marks: Record<string, string> = { 'to-fail': '!!', 'to-pass': 'ok', 'to-no-verdict': '??', utilization: '··', added: '+ ', removed: '- ' };
+  const what = (c: (CaseCheckChange)) => (c.change === 'added' ? 'now judged' : c.change === 'removed' ? 'no longer judged' : c.change === 'utilization' ? 'moved' : c.change.replace('to-', 'now '));
+  // A family can change in dozens of cases: the verdict flips of a check are all shown, its moves up to CASES_SHOWN.
+  const rows: string[][] = [];
+  const byCheck = new Map<string, CaseCheckChange[]>();
+  for (const c of d.cases!.changes) byCheck.set(c.check, [...(byCheck.get(c.check) ?? []), c]);
+  for (const [check, list] of byCheck) {
+    const shown = list.filter((c, i) => c.change !== 'utilization' || i < CASES_SHOWN);
+    for (const c of shown) rows.push([marks[c.change]!, `${c.check} in ${name(c.case)}`, what(c), `utilization ${u(c.old)} → ${u(c.new)}`]);
+    if (shown.length < list.length) rows.push(['··', check, `… and ${list.length - shown.length} more cases moved`, '']);
+  }
+  return columns([...gov, ...rows]);
+}
+
 function preview(text: string, width = 70): string {
   const flat = text.replace(/\s+/g, ' ').trim();
   return `"${flat.length > width ? flat.slice(0, width - 1) + '…' : flat}"`;
@@ -90,6 +113,7 @@ export function formatDiff(d: DocumentDiff): string {
   const checks = [...d.checks].sort((x, y) => order.indexOf(x.change) - order.indexOf(y.change));
   section(`Checks (${checks.length} changed)`, columns(checks.map(checkRow)));
   section(`Definitions changed (${d.definitions.length})`, columns(d.definitions.map(definitionRow)));
+  if (d.cases) section(`Cases (${d.cases.changes.length} check${d.cases.changes.length === 1 ? '' : 's'} changed in a case; ${d.cases.governing.length} governing case${d.cases.governing.length === 1 ? '' : 's'} changed)`, casesLines(d));
   section(`Inputs changed (${d.inputs.length})`, columns(valueRows(d.inputs)));
   const reformulated = new Set(d.definitions.filter((c) => c.what === 'formula').map((c) => c.name));
   section(`Results moved (${d.results.length})`, columns(valueRows(d.results, reformulated)));

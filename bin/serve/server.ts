@@ -34,6 +34,8 @@ export interface ServeOptions {
   logLevel?: 'info' | 'warn' | 'error' | 'silent';
   /** Watcher timings, for tests. */
   watch?: { debounceMs?: number; pollMs?: number };
+  /** `--case NAME`: the case the page shows first (its inputs set as trial values). */
+  case?: string;
 }
 
 export interface ServeHandle {
@@ -178,7 +180,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
           if (req.method !== 'GET' && req.method !== 'HEAD') return sendJson(res, 405, { ok: false, message: 'use GET' });
           const d = readDoc();
           // The same archive identification `vaultbook render` prints in the sheet's footer.
-          void archiveInfo(file, d.bytes).then((archive) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive }));
+          void archiveInfo(file, d.bytes).then((archive) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive, ...(options.case !== undefined ? { case: options.case } : {}) }));
           return;
         }
         write(req, res).catch((e) => sendJson(res, 500, { ok: false, message: `writing ${shownName} failed: ${(e as Error).message}; the file on disk is unchanged` }));

@@ -16,6 +16,7 @@ import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
 import type { MathNode } from 'mathjs';
+import { caseVerdict, checkCasesNote, notJudgedHere, withoutLimitMarker } from './cases.js';
 
 /** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
@@ -100,6 +101,12 @@ function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, recor
  * @example renderCheckOutput(cell, state, ctx)
  */
 export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
+  // A check limited to other cases: its formula and its verdict over those cases (engine/render/cases.ts).
+  const elsewhere = notJudgedHere(cell, ctx);
+  if (elsewhere) {
+    return `<div class="vb-work"><div class="vb-math">${typeset(exprTex(cell.node, ctx.scope, false), true)}</div></div>`
+      + `<div class="vb-out">${verdictHtml(elsewhere.verdict, elsewhere.utilization)}</div>`;
+  }
   const r = state.status === 'ok' ? (state.value as CheckResult) : null;
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc) : '';
   const verdict = verdictOf(state);
@@ -111,9 +118,9 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
 /** One ```check line as a step of the calculation. */
 export function renderCheck(cell: Cell, ctx: RenderContext): string {
   const name = cell.name ? `${typeset(symbolTex(cell.name))} ` : '';
-  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(cell.description)}</p>` : '';
+  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(withoutLimitMarker(cell.description))}</p>` : '';
   return `<div class="vb-step vb-step--check" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
-    + `<div class="vb-body">${head}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
+    + `<div class="vb-body">${head}${checkCasesNote(cell, ctx)}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
 }
 
 /**
@@ -127,10 +134,12 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   const tally: Record<Verdict, number> = { pass: 0, near: 0, fail: 0, none: 0 };
   const rows = checks.map((cell, i) => {
     const state = stateOf(ctx, cell.id);
-    const verdict = verdictOf(state);
+    const byCase = caseVerdict(cell, ctx);
+    const verdict = byCase ? byCase.verdict : verdictOf(state);
     tally[verdict]++;
-    const u = state.status === 'ok' ? (state.value as CheckResult).utilization : null;
-    const what = cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false));
+    const u = byCase ? byCase.utilization : state.status === 'ok' ? (state.value as CheckResult).utilization : null;
+    const governs = byCase && !byCase.neutral ? `<br><span class="vb-note">${escapeHtml(byCase.note)}</span>` : '';
+    const what = (cell.description ? escapeHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationOf(verdict, u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
       + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`

@@ -7,6 +7,7 @@ import type { MathNode } from 'mathjs';
 import type { Cell, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic } from '../diagnostic.js';
 import type { TexScope } from './tex.js';
+import type { CaseRun } from '../cases/index.js';
 
 /** Identification of the source for the archive footer. */
 export interface ArchiveInfo {
@@ -43,6 +44,8 @@ export interface RenderContext {
   usersOf: Map<string, Cell[]>;
   /** Kernel function name → the first cell that calls it at its top level (where its description is printed). */
   firstCall: Map<string, string>;
+  /** Every check in every case (engine/cases), when the document was evaluated with its cases. */
+  cases?: CaseRun;
 }
 
 type AnyNode = MathNode & { object?: AnyNode; index?: { dimensions: AnyNode[]; dotNotation?: boolean }; name?: string; value?: unknown };

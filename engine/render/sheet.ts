@@ -8,6 +8,7 @@
  * renderCellOutput(cell, state, ctx), so a live page can patch it alone.
  */
 import type { CalcBlock, Cell, CellState, CompiledDocument } from '../types.js';
+import type { CaseRun } from '../cases/index.js';
 import type { Diagnostic } from '../diagnostic.js';
 import { anchorId, escapeHtml } from './escape.js';
 import { makeRenderContext, type RenderContext, type SheetOptions } from './context.js';
@@ -21,12 +22,15 @@ import { renderProse } from './prose.js';
 import { renderCautions, renderArchive } from './notes.js';
 import { sha256Hex } from './sha256.js';
 import { SHEET_CSS } from './sheet-css.js';
+import { renderCasesBlock } from './cases.js';
 
 export interface SheetInput {
   doc: CompiledDocument;
   states: Map<string, CellState>;
   warnings?: Map<string, Diagnostic>;
   options?: SheetOptions;
+  /** The cases' verdicts (Evaluation.cases): the summary shows the governing case, the cases block the envelope. */
+  cases?: CaseRun;
 }
 
 /**
@@ -39,6 +43,7 @@ export function renderCellOutput(cell: Cell, state: CellState, ctx: RenderContex
     case 'calc': return renderCalcOutput(cell, state, ctx);
     case 'check': return renderCheckOutput(cell, state, ctx);
     case 'figure': return renderFigureOutput(cell, state, ctx);
+    case 'cases': return '';
   }
 }
 
@@ -66,6 +71,7 @@ function renderBlock(block: CalcBlock, index: number, ctx: RenderContext, figure
     case 'calc': body = cells.map((c) => renderCalc(c, ctx)).join(''); break;
     case 'check': body = cells.map((c) => renderCheck(c, ctx)).join(''); break;
     case 'figure': body = cells.map((c) => renderFigure(c, ctx, ++figureNumber.n)).join(''); break;
+    case 'cases': body = renderCasesBlock(block, ctx); break;
   }
   return `<section class="vb-block vb-block--${block.cellKind}" id="line-${block.span.start.line}">${body}${strayDiagnostics(block, cells, ctx)}</section>`;
 }
@@ -80,6 +86,7 @@ export function renderArticle(input: SheetInput): string {
   if (!doc || !Array.isArray(doc.blocks)) throw new TypeError('renderSheet: expected doc to be a compiled document');
   const options = input.options ?? {};
   const ctx = makeRenderContext(doc, states, input.warnings, options);
+  if (input.cases) ctx.cases = input.cases;
   const info = readTitle(doc.meta);
   const figureNumber = { n: 0 };
   const body = doc.blocks.map((b, i) => (b.kind === 'prose'

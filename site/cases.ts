@@ -1,0 +1,88 @@
+/**
+ * Cases on the live page: a chooser of the case shown (its inputs become trial values, so the
+ * review panel lists them and every result shows its move), and the envelope — each check's
+ * governing case and the cases block — recomputed in the background after each change.
+ */
+import { compile, expandCases, judgeCases, startSession } from '../engine/index.js';
+import type { Case, CaseRun, CompiledDocument } from '../engine/index.js';
+import type { LiveSheet } from './preview.js';
+
+/** Waits this long after the page settles before judging every case again (ms). */
+const QUIET_MS = 250;
+
+/**
+ * Judges every case of a document with the page's trial values applied on top (as `--set` does).
+ * @example const run = await judgeWithTrials(sheet.doc, {L: '7 m'})
+ */
+export async function judgeWithTrials(doc: CompiledDocument, trials: Record<string, string>): Promise<CaseRun> {
+  const d = compile(doc.source, { file: doc.file, overrides: trials });
+  const session = startSession(d);
+  try {
+    const base = new Map(await session.settle());
+    return await judgeCases(d, session, base);
+  } finally {
+    session.dispose();
+  }
+}
+
+export class LiveCases {
+  private cases: Case[] = [];
+  private chosen: Case | null = null;
+  private generation = 0;
+  private timer: ReturnType<typeof setTimeout> | undefined;
+
+  /**
+   * @param select the chooser in the page's bar (hidden when the document has no cases)
+   * @param changed called after the chosen case changed the trial values
+   */
+  constructor(private readonly sheet: LiveSheet, private readonly select: HTMLSelectElement, private readonly changed: () => void) {
+    select.addEventListener('change', () => this.choose(select.value));
+  }
+
+  /** The case shown, or null for the document as written. */
+  get shown(): string | null {
+    return this.chosen?.name ?? null;
+  }
+
+  /** After a document (re)load: its cases in the chooser, the case asked for shown, the envelope judged. */
+  loaded(initial?: string): void {
+    this.cases = expandCases(this.sheet.doc, this.sheet.baseline).cases;
+    const keep = this.chosen && this.cases.find((c) => c.name === this.chosen!.name);
+    this.chosen = keep ?? null;
+    const label = this.select.closest<HTMLElement>('label') ?? this.select;
+    label.hidden = this.cases.length === 0;
+    this.select.replaceChildren(...[null, ...this.cases].map((c) => {
+      const o = document.createElement('option');
+      o.value = c?.name ?? '';
+      o.textContent = c ? `${c.name}${c.description ? ` — ${c.description}` : ''}` : 'as written';
+      return o;
+    }));
+    this.select.value = this.chosen?.name ?? '';
+    if (initial !== undefined && !this.chosen) this.choose(initial);
+    this.refresh();
+  }
+
+  /** Shows a case: the previous case's inputs go back, this one's become trial values. */
+  choose(name: string): void {
+    for (const input of Object.keys(this.chosen?.overrides ?? {})) this.sheet.resetInput(input);
+    this.chosen = this.cases.find((c) => c.name === name) ?? null;
+    for (const [input, text] of Object.entries(this.chosen?.overrides ?? {})) this.sheet.setInput(input, text);
+    this.select.value = this.chosen?.name ?? '';
+    this.changed();
+  }
+
+  /** Judges every case again once the page is quiet; a newer change drops an older result. */
+  refresh(): void {
+    clearTimeout(this.timer);
+    if (this.cases.length === 0 && this.sheet.doc.cases.limits.size === 0) return;
+    const generation = ++this.generation;
+    this.timer = setTimeout(async () => {
+      // The chosen case's own values are not trial values of the document: every case sets them itself.
+      const trials = Object.fromEntries([...this.sheet.overrides].filter(([k, v]) => this.chosen?.overrides[k] !== v));
+      const run = await judgeWithTrials(this.sheet.doc, trials);
+      if (generation !== this.generation) return;
+      this.sheet.showCases(run);
+      document.dispatchEvent(new CustomEvent('vaultbook:cases', { detail: { shown: this.shown } }));
+    }, QUIET_MS);
+  }
+}
