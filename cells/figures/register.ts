@@ -12,13 +12,8 @@ import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
+import { ARCH_LOADS } from '../vault/register-arch.js';
 
-/** The loads record of arch_limit, so a figure can be drawn for the same loads. */
-const ARCH_LOADS: FieldType = {
-  object: {
-    fill_unit_weight: 'N/m^3', fill_level: 'm', dead: 'Pa', live: 'Pa', live_from: 'm', live_to: 'm', P: 'N', P_at: 'm',
-  },
-};
 
 /** section and force_polygon: the ring, its arch_limit result, and optionally other loads to draw. */
 const RING_FIGURE_PARAMS = [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }];

@@ -4,13 +4,16 @@ import { archRing } from './arch/arch-ring.js';
 import { archLimit } from './arch/arch-limit.js';
 import { thrustLine } from './arch/thrust-line.js';
 
-const LOADS: FieldType = {
+/** The loads record of arch_limit, arch_scan and the arch figures. */
+export const ARCH_LOADS: FieldType = {
   object: {
     fill_unit_weight: 'N/m^3', fill_level: 'm', dead: 'Pa', live: 'Pa',
-    live_from: 'm', live_to: 'm', P: 'N', P_at: 'm',
+    live_from: 'm', live_to: 'm', P: 'N', P_at: 'm', spread: '1', fill_pressure: '1',
   },
 };
-const HINGES: FieldType = { list: { object: { angle: 'rad', face: 'text' } } };
+const LOADS = ARCH_LOADS;
+const HINGES: FieldType = { list: { object: { angle: 'rad', face: 'text', x: 'm', z: 'm', N: 'N', T: 'N' } } };
+const SLIDING: FieldType = { list: { object: { state: 'text', ratio: '1', angle: 'rad', x: 'm', z: 'm' } } };
 
 export const arch_ring = defineCellFunction({
   name: 'arch_ring',
@@ -20,14 +23,14 @@ export const arch_ring = defineCellFunction({
     type: {
       object: {
         shape: 'any', span: 'm', rise: 'm', radius: 'm', half_angle: 'rad', thickness: 'm',
-        unit_weight: 'N/m^3', depth: 'm', voussoirs: 'count',
+        unit_weight: 'N/m^3', depth: 'm', voussoirs: 'count', f_c: 'Pa', friction: '1', gsf: 'text',
       },
     },
   }],
   returns: {
     object: {
       shape: 'text', span: 'm', rise: 'm', radius: 'm', half_angle: 'rad', thickness: 'm',
-      unit_weight: 'N/m^3', depth: 'm', voussoirs: '1', weight: 'N',
+      unit_weight: 'N/m^3', depth: 'm', voussoirs: '1', weight: 'N', f_c: 'Pa', friction: '1', gsf_definition: 'text',
     },
   },
   required: ['shape', 'thickness', 'unit_weight'],
@@ -40,8 +43,9 @@ export const arch_limit = defineCellFunction({
   params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'loads', type: LOADS, optional: true }],
   returns: {
     object: {
-      H_min: 'N', H_max: 'N', V_left: 'N', V_right: 'N', t_min: 'm', gsf: '1', hinges: HINGES,
-      load_factor: '1', mechanism: HINGES, safe: 'boolean', notes: { list: 'text' },
+      H_min: 'N', H_max: 'N', V_left: 'N', V_right: 'N', t_min: 'm', gsf: '1', gsf_definition: 'text', hinges: HINGES,
+      load_factor: '1', mechanism: HINGES, governs: 'text', sigma_max: 'Pa', sigma_max_at: 'm', sliding: SLIDING,
+      load_spread: 'text', safe: 'boolean', notes: { list: 'text' },
     },
   },
   fn: (ring, loads) => archLimit(ring, loads ?? {}),
