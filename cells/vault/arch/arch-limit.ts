@@ -16,6 +16,8 @@ export interface Collapse {
   governs: string | NotAvailable;
   state?: ThrustState;
   rounds: number;
+  /** λ with uncrushable blocks, when finite strength was given. */
+  lambdaRigid?: number;
 }
 
 /**
@@ -24,7 +26,8 @@ export interface Collapse {
  * uniqueness theorem, the collapse load factor), its mechanism, and what
  * governs: 'sliding' when a friction row binds at the optimum, else
  * 'crushing' when finite strength is given and the rigid ring would never
- * collapse or the stress blocks bind, else 'hinges'.
+ * collapse or the stress blocks lower λ by more than 5 %, else 'hinges'
+ * (the notes give both λ whenever f_c is given).
  * @param p the programme at the ring as built
  * @param solve LP solver
  * @param x0 the left springing's x in the kernel frame, negated (span / 2)
@@ -48,13 +51,15 @@ export function collapse(p: ThrustProgram, solve: LpSolver, x0: number): Collaps
   const state = thrustState(p, r.x, true);
   const mechanism = touchingJoints(p, state, x0);
   let governs = 'hinges';
+  let lambdaRigid = state.lambda;
   if (Number.isFinite(p.mu) && slidingBinds(p, state)) governs = 'sliding';
   else if (Number.isFinite(p.fb)) {
     const rigid = solveAdmissible({ ...p, fb: Infinity }, [0, 0, 0, 1], { lambdaFree: true }, solve);
-    const lambdaRigid = rigid.feasible && rigid.x[3]! < LIVE_BOX / 2 ? thrustState(p, rigid.x, true).lambda : Infinity;
-    if (!(state.lambda > lambdaRigid * (1 - 1e-6))) governs = 'crushing';
+    lambdaRigid = rigid.feasible && rigid.x[3]! < LIVE_BOX / 2 ? thrustState(p, rigid.x, true).lambda : Infinity;
+    // Crushing governs where the rigid ring would never collapse, or where the stress blocks cost more than 5 %.
+    if (state.lambda < 0.95 * lambdaRigid) governs = 'crushing';
   }
-  return { load_factor: state.lambda, mechanism, governs, state, rounds: r.rounds };
+  return { load_factor: state.lambda, mechanism, governs, state, rounds: r.rounds, lambdaRigid };
 }
 
 function slidingBinds(p: ThrustProgram, s: ThrustState): boolean {
@@ -95,12 +100,12 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   let sigma_max: number | NotAvailable = notAvailable(Number.isFinite(p.fb) ? unsafe
     : 'no compressive strength f_c given in arch_ring: the blocks are taken as uncrushable');
   let sigma_max_at: number | NotAvailable = sigma_max;
+  if (least.feasible && Number.isFinite(p.fb)) [sigma_max, sigma_max_at] = leastPeakStress(p, solve, ring.depth, x0);
   if (least.feasible) {
     const s = thrustState(p, least.x, false);
     [H_min, V_left, V_right] = [s.H, s.V, p.W + p.live - s.V];
     hinges = touchingJoints(p, s, x0);
     sliding.push(slidingRatio(p, s, 'least thrust', x0));
-    if (Number.isFinite(p.fb)) [sigma_max, sigma_max_at] = highestStress(p, s, x0, ring.depth);
     const most = solveAdmissible(p, [1, 0, 0], {}, solve);
     if (most.feasible && most.x[0]! < BOX / 2) {
       const g = thrustState(p, most.x, false);
@@ -118,7 +123,10 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   if (t_min === undefined) notes.push('no thickness up to the span fits a line of thrust: gsf is set to 0');
   const c = collapse(p, solve, x0);
   if (c.state) sliding.push(slidingRatio(p, c.state, 'collapse', x0));
-  if (c.governs === 'crushing') notes.push('crushing governs the load factor: the stress blocks at the hinges, not the hinges alone, limit λ');
+  if (c.lambdaRigid !== undefined && c.state) {
+    const drop = Number.isFinite(c.lambdaRigid) ? `λ ${c.lambdaRigid.toPrecision(4)} with uncrushable blocks, ${c.state.lambda.toPrecision(4)} with f_c` : `λ unbounded with uncrushable blocks, ${c.state.lambda.toPrecision(4)} with f_c`;
+    notes.push(c.governs === 'crushing' ? `crushing governs the load factor: ${drop}` : `finite strength: ${drop}`);
+  }
   if (c.governs === 'sliding') notes.push('sliding governs the load factor: a joint reaches |T| = μ·N at collapse');
   if (Array.isArray(c.mechanism) && symmetricFive(c.mechanism, ring.span)) notes.push('the collapse state is symmetric and shows five hinges');
   return {
@@ -144,6 +152,34 @@ export const GSF_TEXT = {
 function symmetricFive(h: readonly Hinge[], span: number): boolean {
   if (h.length !== 5) return false;
   return h.every((a, i) => Math.abs(a.x + h[4 - i]!.x - span) < 1e-3 * span && a.face === h[4 - i]!.face);
+}
+
+/**
+ * The least peak stress with which the loads can be carried: the smallest
+ * strength f for which an admissible line of thrust with stress blocks of
+ * depth N/(f·b) exists (bisection on log f, to 1e-4, between 0 and f_c), and
+ * the joint where the block of that line is fullest.
+ */
+function leastPeakStress(p: ThrustProgram, solve: LpSolver, b: number, x0: number): [number, number] {
+  const fits = (f: number) => solveAdmissible({ ...p, fb: f * b }, [-1, 0, 0], {}, solve);
+  let hi = p.fb / b;
+  let lo = hi / 4;
+  let best = fits(hi);
+  let probe = fits(lo);
+  while (probe.feasible && lo > 1) {
+    [hi, best] = [lo, probe];
+    lo /= 4;
+    probe = fits(lo);
+  }
+  while (hi / lo > 1 + 1e-4) {
+    const mid = Math.sqrt(lo * hi);
+    const r = fits(mid);
+    if (r.feasible) [hi, best] = [mid, r];
+    else lo = mid;
+  }
+  if (!best.feasible) return [hi, 0];
+  const state = thrustState({ ...p, fb: hi * b }, best.x, false);
+  return [hi, highestStress(p, state, x0, b)[1]];
 }
 
 /** The highest mean stress of a stress block centred on the resultant, N / (b·2·distance to the nearer face), and where. */
