@@ -12,6 +12,7 @@ import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
+import { scanPlot } from './scan-plot.js';
 import { ARCH_LOADS } from '../vault/register-arch.js';
 
 
@@ -70,4 +71,12 @@ export const support_figure = defineCellFunction({
   returns: 'text',
   fn: (support: WithArgs<Parameters<typeof supportFigure>[0]>, options?: Parameters<typeof supportFigure>[1]) =>
     supportFigure(support.value, options ?? (support.args[0] as Parameters<typeof supportFigure>[1])),
+});
+
+export const scan_plot = defineCellFunction({
+  name: 'scan_plot',
+  doc: 'Figure: the collapse load factor of a vehicle against the position of its lead axle, the worst position marked: scan_plot(s) with s from arch_scan.',
+  params: [{ name: 'scan', type: { ref: 'arch_scan' } }],
+  returns: 'text',
+  fn: scanPlot,
 });

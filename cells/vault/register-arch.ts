@@ -3,6 +3,7 @@ import { defineCellFunction, type FieldType } from '../define.js';
 import { archRing } from './arch/arch-ring.js';
 import { archLimit } from './arch/arch-limit.js';
 import { thrustLine } from './arch/thrust-line.js';
+import { archScan } from './arch/arch-scan.js';
 
 /** The loads record of arch_limit, arch_scan and the arch figures. */
 export const ARCH_LOADS: FieldType = {
@@ -57,4 +58,21 @@ export const thrust_line = defineCellFunction({
   params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'loads', type: LOADS }, { name: 'H', type: 'N' }],
   returns: { list: { object: { x: 'm', y: 'm' } } },
   fn: thrustLine,
+});
+
+export const arch_scan = defineCellFunction({
+  name: 'arch_scan',
+  doc: 'A vehicle (axle loads and spacings) rolled across the ring: least collapse load factor, the lead axle\'s worst position, λ against position, and the mechanism there.',
+  params: [
+    { name: 'ring', type: { ref: 'arch_ring' } },
+    { name: 'loads', type: LOADS },
+    { name: 'vehicle', type: { object: { axles: { list: 'N' }, spacing: { list: 'm' }, from: 'm', to: 'm', steps: 'count' } } },
+  ],
+  returns: {
+    object: {
+      lambda_min: '1', x_worst: 'm', curve: { list: { object: { x: 'm', lambda: '1' } } }, mechanism: HINGES,
+      governs: 'text', load_spread: 'text', notes: { list: 'text' },
+    },
+  },
+  fn: (ring, loads, vehicle) => archScan(ring, loads, vehicle),
 });

@@ -102,8 +102,15 @@ export function archScan(ring: ArchRing, loads: ArchLoads, o: ArchScanOptions, s
     let c = b - phi * (b - a);
     let d = a + phi * (b - a);
     while (b - a > REFINE * ring.span) {
-      if (at(c) <= at(d)) [b, d, c] = [d, c, b - phi * (d - a)];
-      else [a, c, d] = [c, d, a + phi * (b - c)];
+      if (at(c) <= at(d)) {
+        b = d;
+        d = c;
+        c = b - phi * (b - a);
+      } else {
+        a = c;
+        c = d;
+        d = a + phi * (b - a);
+      }
     }
   }
   curve.sort((p, q) => p.x - q.x);
