@@ -10,6 +10,7 @@ export const ARCH_LOADS: FieldType = {
   object: {
     fill_unit_weight: 'N/m^3', fill_level: 'm', dead: 'Pa', live: 'Pa',
     live_from: 'm', live_to: 'm', P: 'N', P_at: 'm', spread: '1', fill_pressure: '1',
+    axles: { list: { object: { W: 'N', at: 'm' } } },
   },
 };
 const LOADS = ARCH_LOADS;

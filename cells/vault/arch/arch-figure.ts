@@ -1,7 +1,7 @@
 import type { Point } from '../profile.js';
 import type { ArchLoads, ArchRing } from './types.js';
 import { seidelLP } from './seidel-lp.js';
-import { solveAdmissible } from './admissible-program.js';
+import { solveAdmissible, LIVE_BOX } from './admissible-program.js';
 import { axisAngle } from './extrados-angle.js';
 import { thrustProgram } from './thrust-program.js';
 import { thrustState } from './thrust-state.js';
@@ -17,13 +17,15 @@ export interface ArchFigure {
   /** Lines of thrust of the minimum- and maximum-thrust states; absent when none fits. */
   thrust_min?: Point[];
   thrust_max?: Point[];
+  /** Line of thrust at collapse (λ times the live loads); absent without live loads or when λ is unbounded. */
+  thrust_collapse?: Point[];
 }
 
 /**
  * Outline, joints and the two extreme lines of thrust of a ring, for
  * drawing: the faces sampled four times per voussoir, every joint as a
  * segment, and the centres of pressure of the least- and greatest-thrust
- * states (as arch_limit finds them).
+ * states and of the collapse state (as arch_limit finds them).
  * @param ring the ring
  * @param loads loads, as for arch_limit
  * @returns points in m
@@ -68,5 +70,9 @@ export function archFigure(ring: ArchRing, loads: ArchLoads = {}): ArchFigure {
   const most = solveAdmissible(p, [1, 0, 0], {}, seidelLP);
   if (least.feasible) out.thrust_min = thrustPoints(p.joints, thrustState(p, least.x, false));
   if (most.feasible) out.thrust_max = thrustPoints(p.joints, thrustState(p, most.x, false));
+  if (p.live > 0) {
+    const c = solveAdmissible(p, [0, 0, 0, 1], { lambdaFree: true }, seidelLP);
+    if (c.feasible && c.x[3]! < LIVE_BOX / 2) out.thrust_collapse = thrustPoints(p.joints, thrustState(p, c.x, true));
+  }
   return out;
 }

@@ -22,6 +22,11 @@ export function checkLoads(fn: string, ring: ArchRing, loads: ArchLoads): void {
     const v = loads[key];
     if (v !== undefined && !Number.isFinite(v)) throw new RangeError(`${fn}: ${key} must be a finite length, got ${v} m`);
   }
+  if (loads.axles !== undefined && !Array.isArray(loads.axles)) throw new RangeError(`${fn}: axles must be a list of {W, at}`);
+  (loads.axles ?? []).forEach((a, i) => {
+    if (!(typeof a.W === 'number' && a.W >= 0 && Number.isFinite(a.W))) throw new RangeError(`${fn}: axles[${i + 1}].W must be ≥ 0, got ${a.W} N`);
+    if (!(typeof a.at === 'number' && Number.isFinite(a.at))) throw new RangeError(`${fn}: axles[${i + 1}].at must be a finite length, got ${a.at} m`);
+  });
   if ((loads.fill_unit_weight === undefined) !== (loads.fill_level === undefined)) {
     throw new RangeError(`${fn}: fill needs both fill_unit_weight and fill_level`);
   }
