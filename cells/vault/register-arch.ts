@@ -4,6 +4,7 @@ import { archRing } from './arch/arch-ring.js';
 import { archLimit } from './arch/arch-limit.js';
 import { thrustLine } from './arch/thrust-line.js';
 import { archScan } from './arch/arch-scan.js';
+import { ARCH_RING_REFERENCE, ARCH_LIMIT_REFERENCE, THRUST_LINE_REFERENCE, ARCH_SCAN_REFERENCE } from './arch/reference.js';
 
 /** The loads record of arch_limit, arch_scan and the arch figures. */
 export const ARCH_LOADS: FieldType = {
@@ -19,7 +20,7 @@ const SLIDING: FieldType = { list: { object: { state: 'text', ratio: '1', angle:
 
 export const arch_ring = defineCellFunction({
   name: 'arch_ring',
-  doc: 'A masonry ring one strip deep: shape, span + rise of the intrados (or radius of the centreline + half_angle), thickness, unit_weight, depth, voussoirs.',
+  doc: 'A masonry ring one strip deep: shape, span + rise of the intrados (or radius of the centreline + half_angle), thickness, unit_weight, depth, voussoirs; optional f_c, friction, gsf.',
   params: [{
     name: 'options',
     type: {
@@ -37,11 +38,12 @@ export const arch_ring = defineCellFunction({
   },
   required: ['shape', 'thickness', 'unit_weight'],
   fn: archRing,
+  reference: ARCH_RING_REFERENCE,
 });
 
 export const arch_limit = defineCellFunction({
   name: 'arch_limit',
-  doc: "Limit analysis of a ring under Heyman's assumptions: thrust range, minimum thickness, geometric factor of safety, hinges, collapse load factor.",
+  doc: "Limit analysis of a ring (Heyman's safe theorem): thrust range, minimum thickness, geometric factor of safety (by name), hinges, collapse load factor and mechanism, with finite strength and friction if the ring gives them.",
   params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'loads', type: LOADS, optional: true }],
   returns: {
     object: {
@@ -51,6 +53,7 @@ export const arch_limit = defineCellFunction({
     },
   },
   fn: (ring, loads) => archLimit(ring, loads ?? {}),
+  reference: ARCH_LIMIT_REFERENCE,
 });
 
 export const thrust_line = defineCellFunction({
@@ -59,6 +62,7 @@ export const thrust_line = defineCellFunction({
   params: [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'loads', type: LOADS }, { name: 'H', type: 'N' }],
   returns: { list: { object: { x: 'm', y: 'm' } } },
   fn: thrustLine,
+  reference: THRUST_LINE_REFERENCE,
 });
 
 export const arch_scan = defineCellFunction({
@@ -76,4 +80,5 @@ export const arch_scan = defineCellFunction({
     },
   },
   fn: (ring, loads, vehicle) => archScan(ring, loads, vehicle),
+  reference: ARCH_SCAN_REFERENCE,
 });
