@@ -82,8 +82,11 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
   const fillLevel = loads.fill_level !== undefined && (loads.fill_unit_weight ?? 0) > 0 ? loads.fill_level : undefined;
   const crownTop = fig.extrados.reduce((m, p) => (p.y > m.y ? p : m));
   const surface = Math.max(fillLevel ?? crownTop.y, crownTop.y);
-  const loadTop = surface + 0.16 * ring.span;
-  const bounds = boundsOf([fig.extrados, fig.intrados, [{ x: -s - abutment, y: -0.05 * ring.span }, { x: s + abutment, y: loadTop }]], 0.02 * ring.span);
+  const wheels = [...(loads.P ? [{ W: loads.P, at: loads.P_at! }] : []), ...(loads.axles ?? [])];
+  // Room above the surface for arrows only where there are loads to draw.
+  const loadTop = surface + (wheels.length ? 0.16 : loads.live ? 0.08 : 0.02) * ring.span;
+  const wheelXs = wheels.map((w) => ({ x: w.at - s, y: loadTop }));
+  const bounds = boundsOf([fig.extrados, fig.intrados, wheelXs, [{ x: -s - abutment, y: -0.05 * ring.span }, { x: s + abutment, y: loadTop }]], 0.04 * ring.span);
   const aspect = (bounds.yMax - bounds.yMin) / (bounds.xMax - bounds.xMin);
   const drawH = Math.min(115, Math.max(40, 150 * aspect));
   const top = 30;
@@ -143,7 +146,6 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
     }
     labels.place((a + b) / 2, y0 - 1.2, `live ${(loads.live / 1000).toFixed(2)} kN/m² (× λ)`, 'middle', -3.2, { fill: LOAD });
   }
-  const wheels = [...(loads.P ? [{ W: loads.P, at: loads.P_at! }] : []), ...(loads.axles ?? [])];
   const reach = ringPoint(ring.centreline, Math.min(ring.centreline.phiSpringing, Math.PI / 2), t / 2).x;
   wheels.forEach((w) => {
     const x = w.at - s;
