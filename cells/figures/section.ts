@@ -151,7 +151,10 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
     const x = w.at - s;
     const X = frame.x(x);
     const off = Math.abs(x) > reach;
-    body += arrow({ x: X, y: loadRow }, { x: X, y: surfaceY - 0.2 }, '', off ? MUTED : LOAD);
+    // The load acts on the road surface: the fill level, or the extrados where it stands above the fill.
+    const th0 = off ? null : extradosAngle(ring.centreline, x, t / 2);
+    const onTop = th0 === null ? surface : Math.max(fillLevel ?? -Infinity, ringPoint(ring.centreline, th0, t / 2).y);
+    body += arrow({ x: X, y: loadRow }, { x: X, y: frame.y(onTop) - 0.2 }, '', off ? MUTED : LOAD);
     labels.place(X, loadRow - 1.2, `${kilonewtons(w.W)}${off ? ' (off the ring)' : ''}`, 'middle', -3.2, { fill: off ? MUTED : LOAD, 'font-weight': 'bold' });
     // Spread through the fill to the extrados, as analysed.
     const th = off ? null : extradosAngle(ring.centreline, x, t / 2);
