@@ -64,6 +64,34 @@ describe('archLimit with seidelLP agrees with the same programmes solved by java
   });
 });
 
+describe('friction rows and stress-block tangents give the same answers with javascript-lp-solver', () => {
+  it('archLimit(random rings, loads with spread and axles, friction μ and strength f_c): H_min, H_max, λ, t_min to 1e-6, sigma_max (bisection to 1e-4) to 3e-4, same verdicts and governs', () => {
+    const rand = lcg(1618);
+    let compared = 0;
+    for (let k = 0; k < 5; k++) {
+      const [options, loads] = randomCase(rand);
+      const ring = archRing({ ...options, voussoirs: 24, friction: 0.35 + 0.4 * rand(), f_c: (2 + 8 * rand()) * 1e6 });
+      const extra: ArchLoads = { ...loads, spread: rand() < 0.5 ? 0.5 : 0, axles: [{ W: 2e4 * rand(), at: options.span! * rand() }] };
+      if (!extra.fill_level) delete extra.spread;
+      const ours = archLimit(ring, extra);
+      const theirs = archLimit(ring, extra, simplexLP);
+      const label = JSON.stringify({ options, extra });
+      expect(ours.safe, label).toBe(theirs.safe);
+      expect(String(ours.governs), label).toBe(String(theirs.governs));
+      for (const key of ['H_min', 'H_max', 'load_factor', 't_min', 'sigma_max'] as const) {
+        const finite = (v: unknown) => typeof v === 'number' && Number.isFinite(v);
+        expect(finite(ours[key]), `${key} of ${label}`).toBe(finite(theirs[key]));
+        if (finite(ours[key])) {
+          // sigma_max is found by bisection to 1e-4 on both sides.
+          expectClose(ours[key], theirs[key], key === 'sigma_max' ? 3e-4 : 1e-6);
+          compared++;
+        }
+      }
+    }
+    expect(compared).toBeGreaterThan(8);
+  }, 120_000);
+});
+
 describe('minimumThickness against plain bisection on the feasibility LP', () => {
   it('minimumThickness(random rings and loads) is where a thrust line stops fitting, as bisection finds it to 1e-7', () => {
     const rand = lcg(2718);
