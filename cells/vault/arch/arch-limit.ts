@@ -31,10 +31,11 @@ export interface Collapse {
  * @param p the programme at the ring as built
  * @param solve LP solver
  * @param x0 the left springing's x in the kernel frame, negated (span / 2)
+ * @param judge find what governs (with f_c this solves the rigid programme too); false: λ and mechanism only
  * @returns λ, mechanism, governs
  * @example collapse(thrustProgram(ring, ring.thickness, {P: 5e4, P_at: 2}), seidelLP, ring.span / 2).load_factor
  */
-export function collapse(p: ThrustProgram, solve: LpSolver, x0: number): Collapse {
+export function collapse(p: ThrustProgram, solve: LpSolver, x0: number, judge = true): Collapse {
   if (!(p.live > 0)) {
     const why = 'there is no live or point load for λ to multiply';
     return { load_factor: notAvailable(why), mechanism: notAvailable(why), governs: notAvailable(why), rounds: 0 };
@@ -52,6 +53,7 @@ export function collapse(p: ThrustProgram, solve: LpSolver, x0: number): Collaps
   const mechanism = touchingJoints(p, state, x0);
   let governs = 'hinges';
   let lambdaRigid = state.lambda;
+  if (!judge) return { load_factor: state.lambda, mechanism, governs: notAvailable('not judged'), state, rounds: r.rounds };
   if (Number.isFinite(p.mu) && slidingBinds(p, state)) governs = 'sliding';
   else if (Number.isFinite(p.fb)) {
     const rigid = solveAdmissible({ ...p, fb: Infinity }, [0, 0, 0, 1], { lambdaFree: true }, solve);

@@ -76,8 +76,10 @@ export function archScan(ring: ArchRing, loads: ArchLoads, o: ArchScanOptions, s
       return { W, at };
     });
   };
+  const program = (x: Metres) => thrustProgram(ring, ring.thickness, { ...loads, axles: [...(loads.axles ?? []), ...train(x)] });
   const evaluate = (x: Metres) => {
-    const c = collapse(thrustProgram(ring, ring.thickness, { ...loads, axles: [...(loads.axles ?? []), ...train(x)] }), solve, x0);
+    // λ only at each position; what governs is judged at the worst one.
+    const c = collapse(program(x), solve, x0, false);
     return { c, lambda: typeof c.load_factor === 'number' ? c.load_factor : Infinity };
   };
   const curve: { x: Metres; lambda: number }[] = [];
@@ -121,7 +123,7 @@ export function archScan(ring: ArchRing, loads: ArchLoads, o: ArchScanOptions, s
     const why = 'the vehicle never causes collapse at any position scanned';
     return { lambda_min: Infinity, x_worst: notAvailable(why), curve, mechanism: notAvailable(why), governs: notAvailable(why), load_spread: spread, notes: [why] };
   }
-  const c = seen.get(worst.x)!.c;
+  const c = collapse(program(worst.x), solve, x0);
   if (minima.length > 1) notes.push(`a second local minimum λ = ${lam[minima[1]!]!.toPrecision(4)} near x = ${xs[minima[1]!]!.toFixed(2)} m`);
   return { lambda_min: worst.lambda, x_worst: worst.x, curve, mechanism: c.mechanism, governs: c.governs, load_spread: spread, notes };
 }
