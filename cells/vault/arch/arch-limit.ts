@@ -52,7 +52,7 @@ export function collapse(p: ThrustProgram, solve: LpSolver, x0: number, judge = 
   const state = thrustState(p, r.x, true);
   const mechanism = touchingJoints(p, state, x0);
   let governs = 'hinges';
-  let lambdaRigid = state.lambda;
+  let lambdaRigid: number | undefined;
   if (!judge) return { load_factor: state.lambda, mechanism, governs: notAvailable('not judged'), state, rounds: r.rounds };
   if (Number.isFinite(p.mu) && slidingBinds(p, state)) governs = 'sliding';
   else if (Number.isFinite(p.fb)) {
@@ -60,8 +60,9 @@ export function collapse(p: ThrustProgram, solve: LpSolver, x0: number, judge = 
     lambdaRigid = rigid.feasible && rigid.x[3]! < LIVE_BOX / 2 ? thrustState(p, rigid.x, true).lambda : Infinity;
     // Crushing governs where the rigid ring would never collapse, or where the stress blocks cost more than 5 %.
     if (state.lambda < 0.95 * lambdaRigid) governs = 'crushing';
+    return { load_factor: state.lambda, mechanism, governs, state, rounds: r.rounds, lambdaRigid };
   }
-  return { load_factor: state.lambda, mechanism, governs, state, rounds: r.rounds, lambdaRigid };
+  return { load_factor: state.lambda, mechanism, governs, state, rounds: r.rounds };
 }
 
 function slidingBinds(p: ThrustProgram, s: ThrustState): boolean {
@@ -117,7 +118,7 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
       H_max = Infinity;
       notes.push('H_max is unbounded: a straight line of thrust fits within the ring');
     }
-    if (symmetricFive(hinges, ring.span)) notes.push('the least-thrust state is symmetric and shows five hinges (a pair on each side and one at the crown): a symmetric state may, where four hinges suffice for a mechanism');
+    if (symmetricFive(hinges, ring.span)) notes.push('the least-thrust state is symmetric and shows five hinges (a pair on each side and one at the crown); four suffice for a mechanism, a symmetric state may show five');
   } else {
     notes.push(`${unsafe}: it is not safe`);
   }

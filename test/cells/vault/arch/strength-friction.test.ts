@@ -41,6 +41,8 @@ describe('finite compressive strength: a stress block of depth N/(f_c·b) inside
     const strong = archLimit(archRing({ ...segment, f_c: 1e13 }), loads);
     for (const k of ['load_factor', 'H_min', 'H_max', 'gsf'] as const) expectClose(strong[k], rigid[k], 1e-6);
     expect(strong.governs).toBe('hinges');
+    expect(rigid.notes.join(' ')).not.toMatch(/f_c/);
+    expect(strong.notes.join(' ')).toMatch(/finite strength: λ/);
   });
 
   it('λ falls as f_c falls, and the least peak stress the loads need is the same whatever f_c above it', () => {
