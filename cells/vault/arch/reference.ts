@@ -108,8 +108,7 @@ export const ARCH_LIMIT_REFERENCE: CellFunctionReference = {
 export const THRUST_LINE_REFERENCE: CellFunctionReference = {
   params: { ring: 'The result of arch_ring.', loads: 'Symmetric loads (as for arch_limit).', ...LOADS_REFERENCE, H: 'Horizontal thrust of the line (force, > 0, whole strip).' },
   fields: {
-    '': 'The centres of pressure on every joint (and vertical cut), left to right: points {x, y}.',
-    x: 'Horizontal position from the crown axis (m; negative on the left).',
+    x: 'Horizontal position of the centre of pressure from the crown axis (m; negative on the left). The result is a list of points {x, y}, one per joint (and vertical cut), left to right.',
     y: 'Height above the springing of the intrados (m).',
   },
   method: 'Symmetry fixes V; of the lines with this H the best centred one (least largest |e|/half-thickness) is returned, a two-variable linear programme. Within [H_min, H_max] it lies in the ring.',
