@@ -4,8 +4,8 @@
  */
 export { interp, clamp } from './table/register.js';
 export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin.js';
-export { arch_ring, arch_limit, thrust_line } from './vault/register-arch.js';
+export { arch_ring, arch_limit, thrust_line, arch_scan } from './vault/register-arch.js';
 export { buttress, tie } from './supports/register.js';
 export { barrel_membrane, membrane_at } from './vault/register-membrane.js';
 export { masonry_fk, masonry_fd, unit_weight } from './materials/register.js';
-export { section, force_polygon, membrane_plot, vault_plan, support_figure } from './figures/register.js';
+export { section, force_polygon, membrane_plot, vault_plan, support_figure, scan_plot } from './figures/register.js';

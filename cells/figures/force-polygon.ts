@@ -24,14 +24,14 @@ const GROUPS = 12;
  * @example force_polygon(r, a)
  */
 export function forcePolygon(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}): string {
-  if (limit.H_min === undefined || limit.V_left === undefined || limit.V_right === undefined) {
+  const { H_min: H, V_left: Vl, V_right: Vr } = limit;
+  if (typeof H !== 'number' || typeof Vl !== 'number' || typeof Vr !== 'number') {
     throw new RangeError('force_polygon: no line of thrust fits within this ring, so there is no force polygon to draw');
   }
   checkLoads('force_polygon', ring, loads);
   const { fixed, live } = voussoirLoads(ring, ring.thickness, loads);
   const perVoussoir = fixed.map((f, i) => f.W + live[i]!.W);
   const total = perVoussoir.reduce((a, b) => a + b, 0);
-  const H = limit.H_min, Vl = limit.V_left, Vr = limit.V_right;
   if (Math.abs(total - (Vl + Vr)) > 1e-6 * total) {
     throw new RangeError('force_polygon: the reactions of arch_limit do not add up to the loads on this ring; '
       + 'pass force_polygon(r, a, loads) with the same ring and loads as arch_limit');

@@ -12,8 +12,10 @@ import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
-import { LOADS_REFERENCE } from '../vault/register-arch.js';
+import { LOADS_REFERENCE } from '../vault/arch/reference.js';
 import { BUTTRESS_OPTIONS } from '../supports/register.js';
+import { scanPlot } from './scan-plot.js';
+import { ARCH_LOADS } from '../vault/register-arch.js';
 
 const SVG = 'An SVG drawing to scale, recorded as the figure of a ```figure cell and printed on the sheet.';
 const HEYMAN_BOOK = 'J. Heyman, The Stone Skeleton, Cambridge University Press, 1995.';
@@ -23,15 +25,9 @@ const RING_FIGURE_REFERENCE = {
   ring: 'The ring, from arch_ring.',
   limit: 'Its limit analysis, from arch_limit on the same ring; drawn with the loads it was computed for.',
   ...LOADS_REFERENCE,
-  loads: 'Other loads to draw instead of those arch_limit was given (rarely needed). ' + LOADS_REFERENCE.loads,
+  loads: 'Other loads to draw instead of those arch_limit was given (rarely needed); the same record as arch_limit\'s loads.',
 };
 
-/** The loads record of arch_limit, so a figure can be drawn for the same loads. */
-const ARCH_LOADS: FieldType = {
-  object: {
-    fill_unit_weight: 'N/m^3', fill_level: 'm', dead: 'Pa', live: 'Pa', live_from: 'm', live_to: 'm', P: 'N', P_at: 'm',
-  },
-};
 
 /** section and force_polygon: the ring, its arch_limit result, and optionally other loads to draw. */
 const RING_FIGURE_PARAMS = [{ name: 'ring', type: { ref: 'arch_ring' } }, { name: 'limit', type: { refWithArgs: 'arch_limit' } }, { name: 'loads', type: ARCH_LOADS, optional: true }];
@@ -123,5 +119,18 @@ export const support_figure = defineCellFunction({
     fields: { result: SVG },
     method: 'Draws the support in elevation with the thrust, the path of the resultant through every level and the middle third of each section.',
     sources: [HEYMAN_BOOK + ' (buttresses).'],
+  },
+});
+
+export const scan_plot = defineCellFunction({
+  name: 'scan_plot',
+  doc: 'Figure: the collapse load factor of a vehicle against the position of its lead axle, the worst position marked: scan_plot(s) with s from arch_scan.',
+  params: [{ name: 'scan', type: { ref: 'arch_scan' } }],
+  returns: 'text',
+  fn: scanPlot,
+  reference: {
+    params: { scan: 'A vehicle scan made by arch_scan.' },
+    fields: { result: SVG },
+    method: 'Plots the collapse load factor λ against the position of the lead axle (from the left springing of the intrados) and marks the least value and its position.',
   },
 });

@@ -38,7 +38,7 @@ describe('reference text for every declaration', () => {
 
   it('declaredParams(arch_limit) lists the loads record option by option, none required', () => {
     const entries = declaredParams(cellFunctions.get('arch_limit')!);
-    expect(entries.map((e) => e.path)).toEqual(['ring', 'loads', 'loads.fill_unit_weight', 'loads.fill_level', 'loads.dead', 'loads.live', 'loads.live_from', 'loads.live_to', 'loads.P', 'loads.P_at']);
+    expect(entries.map((e) => e.path)).toEqual(['ring', 'loads', 'loads.fill_unit_weight', 'loads.fill_level', 'loads.dead', 'loads.live', 'loads.live_from', 'loads.live_to', 'loads.P', 'loads.P_at', 'loads.spread', 'loads.fill_pressure', 'loads.axles', 'loads.axles.W', 'loads.axles.at']);
     expect(entries.filter((e) => e.required).map((e) => e.path)).toEqual(['ring']);
   });
 
@@ -82,9 +82,9 @@ describe('vaultbook help', () => {
     for (const e of [...declaredParams(fn), ...declaredFields(fn)]) expect(r.out).toContain(`- \`${e.path}\` — `);
     expect(r.out).toMatch(/`loads\.P` — force, N \(shown in kN\); optional\./);
     expect(r.out).toMatch(/`hinges\.angle` — angle .*0 at the crown, negative on the left half/);
-    expect(r.out).toMatch(/### Method\n\nLimit analysis/);
-    expect(r.out).toMatch(/### Assumptions\n\n- Masonry has no tensile strength/);
-    expect(r.out).toMatch(/### Sources\n\n- J\. Heyman/);
+    expect(r.out).toMatch(/### Method\n\nLower-bound \(safe theorem\) limit analysis/);
+    expect(r.out).toMatch(/### Assumptions\n\n- No tensile strength/);
+    expect(r.out).toMatch(/### Sources\n\n- Heyman/);
   });
 
   it('help groin_vault says where z_thrust is measured from', async () => {

@@ -17,6 +17,12 @@ export interface ArchRingOptions {
   unit_weight: number;
   depth?: Metres;
   voussoirs?: number;
+  /** Design compressive strength (Pa) over the whole depth; none: uncrushable. */
+  f_c?: number;
+  /** Coefficient of friction μ at the joints; none: no sliding. */
+  friction?: number;
+  /** Definition of the geometric factor of safety: 'loads_as_built' (default, Heyman) or 'ring_scaled'. */
+  gsf?: string;
   /** Kernel only: 'centreline' puts each voussoir's weight on the centreline, as the simplified published solutions do. */
   centroids?: 'exact' | 'centreline';
 }
@@ -30,7 +36,7 @@ export const DEFAULT_VOUSSOIRS = 200;
  * from the crown to the springing joint. The centreline is the parallel curve
  * at t/2 outside the intrados (offsetProfile); the ring's frame has y = 0 at
  * the springing of the intrados and x = 0 on the crown axis.
- * @param o options (SI): shape, span + rise or radius + half_angle, thickness, unit_weight, depth (1 m), voussoirs
+ * @param o options (SI): shape, span + rise or radius + half_angle, thickness, unit_weight, depth (1 m), voussoirs, f_c, friction, gsf
  * @returns the ring, with its centreline and joints attached but hidden from documents
  * @example archRing({shape: 'circular', radius: 5, half_angle: Math.PI / 2, thickness: 0.5, unit_weight: 2e4}).span // 9.5
  */
@@ -39,6 +45,12 @@ export function archRing(o: ArchRingOptions): ArchRing {
   positive('thickness', t, 'm');
   positive('unit_weight', unit_weight, 'N/m^3');
   positive('depth', depth, 'm');
+  if (o.f_c !== undefined) positive('f_c', o.f_c, 'Pa');
+  if (o.friction !== undefined) positive('friction', o.friction, '');
+  const gsf = o.gsf ?? 'loads_as_built';
+  if (gsf !== 'loads_as_built' && gsf !== 'ring_scaled') {
+    throw new RangeError(`arch_ring: gsf must be "loads_as_built" (Heyman: loads as built, the default) or "ring_scaled" (the ring shrinks with its weight, fill replacing it), got "${gsf}"`);
+  }
   if (!Number.isInteger(voussoirs) || voussoirs < 2) {
     throw new RangeError(`arch_ring: voussoirs must be a whole number ≥ 2, got ${voussoirs}`);
   }
@@ -74,6 +86,7 @@ export function archRing(o: ArchRingOptions): ArchRing {
   const ring = {
     shape: typeof o.shape === 'number' ? `power n = ${o.shape}` : o.shape, span, rise, ...(byRadius ? { radius: o.radius } : {}), half_angle: phiS,
     thickness: t, unit_weight, depth, voussoirs, weight: unit_weight * depth * area,
+    f_c: o.f_c ?? Infinity, friction: o.friction ?? Infinity, gsf_definition: gsf,
   };
   Object.defineProperty(ring, 'centreline', { value: centreline, enumerable: false });
   Object.defineProperty(ring, 'joints', { value: joints, enumerable: false });

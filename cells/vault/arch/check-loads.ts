@@ -13,18 +13,24 @@ import { ringPoint } from './ring-point.js';
  * @example checkLoads('arch_limit', ring, {dead: -1}) // RangeError: arch_limit: dead must be ≥ 0, got -1 N/m^2
  */
 export function checkLoads(fn: string, ring: ArchRing, loads: ArchLoads): void {
-  const units: Record<string, string> = { fill_unit_weight: 'N/m^3', dead: 'N/m^2', live: 'N/m^2', P: 'N' };
+  const units: Record<string, string> = { fill_unit_weight: 'N/m^3', dead: 'N/m^2', live: 'N/m^2', P: 'N', spread: '', fill_pressure: '' };
   for (const [key, unit] of Object.entries(units)) {
     const v = loads[key as keyof ArchLoads];
-    if (v !== undefined && !(v >= 0 && Number.isFinite(v))) throw new RangeError(`${fn}: ${key} must be ≥ 0, got ${v} ${unit}`);
+    if (v !== undefined && !(typeof v === 'number' && v >= 0 && Number.isFinite(v))) throw new RangeError(`${fn}: ${key} must be ≥ 0, got ${v} ${unit}`.trimEnd());
   }
   for (const key of ['fill_level', 'live_from', 'live_to', 'P_at'] as const) {
     const v = loads[key];
     if (v !== undefined && !Number.isFinite(v)) throw new RangeError(`${fn}: ${key} must be a finite length, got ${v} m`);
   }
+  if (loads.axles !== undefined && !Array.isArray(loads.axles)) throw new RangeError(`${fn}: axles must be a list of {W, at}`);
+  (loads.axles ?? []).forEach((a, i) => {
+    if (!(typeof a.W === 'number' && a.W >= 0 && Number.isFinite(a.W))) throw new RangeError(`${fn}: axles[${i + 1}].W must be ≥ 0, got ${a.W} N`);
+    if (!(typeof a.at === 'number' && Number.isFinite(a.at))) throw new RangeError(`${fn}: axles[${i + 1}].at must be a finite length, got ${a.at} m`);
+  });
   if ((loads.fill_unit_weight === undefined) !== (loads.fill_level === undefined)) {
     throw new RangeError(`${fn}: fill needs both fill_unit_weight and fill_level`);
   }
+  if (loads.fill_pressure && loads.fill_level === undefined) throw new RangeError(`${fn}: fill_pressure needs fill (fill_unit_weight and fill_level)`);
   if (loads.fill_level !== undefined && loads.fill_level < 0) {
     throw new RangeError(`${fn}: fill_level must be at or above the springing (≥ 0), got ${loads.fill_level} m`);
   }

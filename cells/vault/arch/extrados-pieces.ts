@@ -1,6 +1,7 @@
-import type { Metres, Point, Profile, Radians } from '../profile.js';
+import type { Metres, Profile, Radians } from '../profile.js';
 import type { Joint } from './types.js';
 import { ringPoint } from './ring-point.js';
+import { axisAngle } from './extrados-angle.js';
 
 /** A stretch of extrados facing upwards, x increasing from `xa` to `xb` as τ goes `from` → `to`. */
 export interface ExtradosPiece {
@@ -8,8 +9,8 @@ export interface ExtradosPiece {
   to: number;
   xa: Metres;
   xb: Metres;
-  /** Point (m) and dx/dτ at τ. */
-  at(tau: number): { x: Metres; y: Metres; dx: number };
+  /** Point (m), dx/dτ and dy/dτ at τ. */
+  at(tau: number): { x: Metres; y: Metres; dx: number; dy: number };
 }
 
 /**
@@ -17,7 +18,7 @@ export interface ExtradosPiece {
  * loads bear. On a half the extrados is e(θ) = c(θ) + (t/2)·u(θ), with
  * dx/dθ = (R + t/2)·cos θ; only |θ| ≤ 90° faces upwards, so a horseshoe ring
  * carries nothing on the overhang. The keystone of a pointed ring bears on the
- * two tangent lines meeting on the axis (as in voussoirSections).
+ * two extrados arcs, continued to where they meet on the axis (as in voussoirSections).
  * @param centreline ring centreline in the ring frame
  * @param joints joints from ringJoints
  * @param t ring thickness (m)
@@ -33,9 +34,9 @@ export function extradosPieces(centreline: Profile, joints: readonly Joint[], t:
   for (let i = 0; i + 1 < joints.length; i++) {
     const [a, b] = [ends[i]!, ends[i + 1]!];
     if (a < 0 && b > 0 && centreline.phiCrown > 0) {
-      const Er = ringPoint(centreline, b, t / 2);
-      const T = { x: 0, y: Er.y + Er.x * Math.tan(b) };
-      out.push([new LinePiece({ x: -Er.x, y: Er.y }, T), new LinePiece(T, Er)]);
+      const top = axisAngle(centreline, t / 2);
+      const xe = xs[i + 1]!;
+      out.push([new CurvePiece(centreline, t, -b, -top, -xe, 0), new CurvePiece(centreline, t, top, b, 0, xe)]);
     } else {
       out.push(a < b ? [new CurvePiece(centreline, t, a, b, xs[i]!, xs[i + 1]!)] : []);
     }
@@ -48,20 +49,7 @@ class CurvePiece implements ExtradosPiece {
     readonly xa: Metres, readonly xb: Metres) {}
   at(th: Radians) {
     const p = ringPoint(this.c, th, this.t / 2);
-    return { x: p.x, y: p.y, dx: (this.c.radius(Math.abs(th)) + this.t / 2) * Math.cos(th) };
-  }
-}
-
-class LinePiece implements ExtradosPiece {
-  readonly from = 0;
-  readonly to = 1;
-  readonly xa: Metres;
-  readonly xb: Metres;
-  constructor(readonly p: Point, readonly q: Point) {
-    this.xa = p.x;
-    this.xb = q.x;
-  }
-  at(s: number) {
-    return { x: this.p.x + s * (this.q.x - this.p.x), y: this.p.y + s * (this.q.y - this.p.y), dx: this.q.x - this.p.x };
+    const r = this.c.radius(Math.abs(th)) + this.t / 2;
+    return { x: p.x, y: p.y, dx: r * Math.cos(th), dy: -r * Math.sin(th) };
   }
 }

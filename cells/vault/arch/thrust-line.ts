@@ -36,7 +36,7 @@ export function thrustLine(ring: ArchRing, loads: ArchLoads, H: Newtons): Point[
   const h = H / p.W;
   const v = total / 2 / p.W;
   // Joint j: M̂ = m + c_j with c_j the part fixed by h and v; N̂_j fixed. Unknowns (m, s): min s, |m + c_j| ≤ s·N̂_j.
-  const base = thrustState(p, [h, v, 0]);
+  const base = thrustState(p, [h, v, 0], false);
   const J = p.joints.length;
   const a = new Float64Array(4 * J);
   const b = new Float64Array(2 * J);
@@ -50,5 +50,5 @@ export function thrustLine(ring: ArchRing, loads: ArchLoads, H: Newtons): Point[
   });
   const best = seidelLP({ a, b, c: [0, -1], lo: [-BOX, 0], hi: [BOX, BOX] });
   if (!best.feasible) throw new RangeError('thrust_line: no line of thrust found for this H');
-  return thrustPoints(p.joints, thrustState(p, [h, v, best.x[0]!]));
+  return thrustPoints(p.joints, thrustState(p, [h, v, best.x[0]!], false));
 }

@@ -2,6 +2,7 @@ import type { Metres, Point, Profile } from '../profile.js';
 import type { Joint } from './types.js';
 import { gaussLegendre } from './gauss-legendre.js';
 import { ringPoint } from './ring-point.js';
+import { axisAngle } from './extrados-angle.js';
 
 /** Area (m^2, per metre depth) and centroid (m) of one voussoir. */
 export interface VoussoirSection {
@@ -23,9 +24,10 @@ export interface VoussoirSection {
  * "weight on the centreline" model (onCentreline = true) leaves out. The
  * θ-integrals do not depend on t: they are done once per set of joints by
  * Gauss–Legendre and kept. The keystone of a pointed ring (between the joints
- * at ±phiCrown) is the polygon bounded by its two joints and the tangents of
- * intrados and extrados extended to the axis (shoelace formula; a
- * self-crossing outline subtracts the part both halves already count).
+ * at ±phiCrown, which cross at the centreline's apex) is bounded by its two
+ * joints and the true arcs of intrados and extrados continued to the axis,
+ * sampled finely (shoelace formula; the self-crossing outline subtracts the
+ * part below the apex that both neighbouring voussoirs already count).
  * @param centreline ring centreline in the ring frame
  * @param joints joints from ringJoints
  * @param t ring thickness (m)
@@ -44,15 +46,27 @@ export function voussoirSections(centreline: Profile, joints: readonly Joint[], 
 
 interface Integrals { R: number; Rx: number; Ry: number; ux: number; uy: number }
 
-const CACHE = new WeakMap<readonly Joint[], (Integrals | null)[]>();
+/** Per centreline, the integrals of each voussoir met so far, keyed by its two joint angles (joints inserted under loads reuse the rest). */
+const CACHE = new WeakMap<Profile, Map<string, Integrals | null>>();
 
 /** ∫R, ∫R·c and ∫u over each voussoir (null for a pointed ring's keystone). */
 function integrals(c: Profile, joints: readonly Joint[]): (Integrals | null)[] {
-  const cached = CACHE.get(joints);
-  if (cached) return cached;
-  const out = joints.slice(1).map((jb, i) => {
+  let cache = CACHE.get(c);
+  if (!cache) CACHE.set(c, (cache = new Map()));
+  return joints.slice(1).map((jb, i) => {
     const a = joints[i]!.angle;
     const b = jb.angle;
+    const key = `${a},${b}`;
+    const hit = cache.get(key);
+    if (hit !== undefined) return hit;
+    const v = voussoirIntegrals(c, a, b);
+    cache.set(key, v);
+    return v;
+  });
+}
+
+function voussoirIntegrals(c: Profile, a: number, b: number): Integrals | null {
+  {
     if (a < 0 && b > 0 && c.phiCrown > 0) return null;
     const s = { R: 0, Rx: 0, Ry: 0, ux: 0, uy: 0 };
     gaussLegendre(a, b, (th, w) => {
@@ -65,18 +79,22 @@ function integrals(c: Profile, joints: readonly Joint[]): (Integrals | null)[] {
       s.uy += w * Math.cos(th);
     });
     return s;
-  });
-  CACHE.set(joints, out);
-  return out;
+  }
 }
 
-/** Keystone of a pointed ring: polygon B, I_r, E_r, T, E_l, I_l (B, T on the axis, x̄ = 0 by symmetry). */
+/**
+ * Keystone of a pointed ring: the outline B → (intrados arc) → I_r → E_r →
+ * (extrados arc) → T → E_l → I_l → (intrados arc) → B, with B and T where the
+ * right-hand intrados and extrados arcs, continued, meet the axis (x̄ = 0 by symmetry).
+ */
 function keystone(c: Profile, phi: number, t: Metres): VoussoirSection {
-  const toAxis = (p: Point): Point => ({ x: 0, y: p.y + p.x * Math.tan(phi) });
-  const Ir = ringPoint(c, phi, -t / 2);
-  const Er = ringPoint(c, phi, t / 2);
+  const n = 64;
+  const arc = (d: number, from: number, to: number): Point[] =>
+    Array.from({ length: n + 1 }, (_, k) => ringPoint(c, from + ((to - from) * k) / n, d));
   const mirror = (p: Point): Point => ({ x: -p.x, y: p.y });
-  const poly = [toAxis(Ir), Ir, Er, toAxis(Er), mirror(Er), mirror(Ir)];
+  const lower = arc(-t / 2, axisAngle(c, -t / 2), phi); // B … I_r
+  const upper = arc(t / 2, phi, axisAngle(c, t / 2)); // E_r … T
+  const poly = [...lower, ...upper, ...[...upper].reverse().map(mirror), ...[...lower].reverse().map(mirror)];
   let A = 0;
   let Sy = 0;
   poly.forEach((p, k) => {
@@ -85,5 +103,5 @@ function keystone(c: Profile, phi: number, t: Metres): VoussoirSection {
     A += cross / 2;
     Sy += ((p.y + q.y) * cross) / 6;
   });
-  return { area: A, x: 0, y: A === 0 ? Ir.y : Sy / A };
+  return { area: A, x: 0, y: A === 0 ? lower[n]!.y : Sy / A };
 }

@@ -8,7 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { parse } from 'node-html-parser';
 import { archRing } from '../../../cells/vault/arch/arch-ring.js';
-import { archLimit } from '../../../cells/vault/arch/arch-limit.js';
+import { archLimit } from '../vault/arch/loose-limit.js';
 import { barrelMembrane } from '../../../cells/vault/barrel-membrane.js';
 import { groinVault } from '../../../cells/vault/groin/groin-vault.js';
 import { buttress } from '../../../cells/supports/buttress.js';

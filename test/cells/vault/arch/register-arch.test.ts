@@ -6,6 +6,7 @@ import { math } from '../../../../cells/math.js';
 import { arch_ring, arch_limit, thrust_line } from '../../../../cells/index.js';
 import { UnitMismatchError } from '../../../../cells/units.js';
 import { CellArgumentError } from '../../../../cells/define.js';
+import { isNotAvailable } from '../../../../cells/not-available.js';
 
 const u = (value: number, unit: string) => math.unit(value, unit);
 const num = (value: unknown, unit: string) => (value as Unit).toNumber(unit);
@@ -53,5 +54,19 @@ describe('arch_ring, arch_limit, thrust_line as cells call them', () => {
     expect(() => arch_ring.call({ ...ringOptions, colour: 'red' })).toThrow(CellArgumentError);
     expect(() => arch_limit.call({ span: u(5, 'm') })).toThrow(CellArgumentError);
     expect(() => arch_limit.call(arch_ring.call(ringOptions), { dead: u(-1, 'kN/m^2') })).toThrow(/dead must be ≥ 0/);
+  });
+
+  it('arch_ring takes f_c, friction and gsf with units; arch_limit then reports every field, Infinity and "not available" included', () => {
+    const ring = arch_ring.call({ ...ringOptions, f_c: u(3, 'MPa'), friction: 0.7, gsf: 'ring_scaled' }) as Record<string, unknown>;
+    expect(num(ring.f_c, 'MPa')).toBeCloseTo(3, 12);
+    expect(ring.gsf_definition).toBe('ring_scaled');
+    const a = arch_limit.call(ring) as Record<string, unknown>;
+    expect(String(a.gsf_definition)).toMatch(/ring scaled/);
+    expect(num(a.sigma_max, 'MPa')).toBeGreaterThan(0);
+    // Self-weight only: no live load for λ to multiply, so λ, mechanism and governs are "not available".
+    for (const k of ['load_factor', 'mechanism', 'governs']) expect(isNotAvailable(a[k]), k).toBe(true);
+    const plain = arch_limit.call(arch_ring.call(ringOptions)) as Record<string, unknown>;
+    expect(isNotAvailable(plain.sigma_max)).toBe(true);
+    expect((plain.sliding as unknown[]).length).toBe(2);
   });
 });

@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { archRing } from '../../../../cells/vault/arch/arch-ring.js';
-import { archLimit } from '../../../../cells/vault/arch/arch-limit.js';
+import { archLimit } from './loose-limit.js';
 import { thrustLine } from '../../../../cells/vault/arch/thrust-line.js';
 import { archFigure } from '../../../../cells/vault/arch/arch-figure.js';
 import type { Point } from '../../../../cells/vault/profile.js';

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { groinVault } from '../../../../cells/vault/groin/groin-vault.js';
 import { archRing } from '../../../../cells/vault/arch/arch-ring.js';
-import { archLimit } from '../../../../cells/vault/arch/arch-limit.js';
+import { archLimit } from '../arch/loose-limit.js';
 import { expectClose } from '../../../helpers/close.js';
 
 /**

@@ -1,0 +1,52 @@
+/**
+ * scan_plot(s): the collapse load factor λ of a vehicle against the
+ * position of its lead axle (from arch_scan), with the worst position marked
+ * and the level λ = 1 drawn.
+ */
+import type { ArchScan } from '../vault/arch/arch-scan.js';
+import { el, svgDocument, text, INK, MUTED } from './svg.js';
+import { panel } from './axes.js';
+import { markFigure } from './registry.js';
+
+const WIDTH = 170;
+const CURVE = { stroke: '#2c4a6b', 'stroke-width': 0.6, fill: 'none' };
+
+/**
+ * Draws λ(x) of a vehicle scan.
+ * @param s from arch_scan (SI)
+ * @returns an SVG string, recorded as a figure
+ * @example scanPlot(archScan(ring, loads, {axles: [5e4]}))
+ */
+export function scanPlot(s: ArchScan): string {
+  const finite = s.curve.filter((p) => Number.isFinite(p.lambda));
+  const xs = s.curve.map((p) => p.x);
+  const top = finite.length ? Math.max(...finite.map((p) => p.lambda)) : 1;
+  // Where λ is unbounded (the vehicle off the ring, or never a mechanism) the curve is cut.
+  const clip = Math.max(1.2, Math.min(top, 4 * (typeof s.lambda_min === 'number' && Number.isFinite(s.lambda_min) ? s.lambda_min : 1)));
+  const p = panel({ left: 24, top: 16, width: 136, height: 62 }, [Math.min(...xs), Math.max(...xs)], [0, clip * 1.05],
+    'position of the lead axle from the left springing of the intrados (m)', 'collapse load factor λ');
+  let body = p.frame;
+  // λ = 1: the vehicle as given just causes collapse.
+  body += el('line', { x1: p.x(Math.min(...xs)), y1: p.y(1), x2: p.x(Math.max(...xs)), y2: p.y(1), stroke: '#a3162b', 'stroke-width': 0.3, 'stroke-dasharray': '1.2 0.8' });
+  body += text(p.x(Math.max(...xs)) - 1, p.y(1) - 1, 'λ = 1', { 'text-anchor': 'end', fill: '#a3162b' });
+  // The curve in runs of finite λ below the clip.
+  let run: Array<[number, number]> = [];
+  const flush = () => { if (run.length > 1) body += p.curve(run, CURVE); run = []; };
+  for (const q of s.curve) {
+    if (Number.isFinite(q.lambda) && q.lambda <= clip * 1.05) run.push([q.x, q.lambda]);
+    else flush();
+  }
+  flush();
+  let title = 'Vehicle rolled across the span: collapse load factor against position';
+  if (typeof s.lambda_min === 'number' && typeof s.x_worst === 'number' && Number.isFinite(s.lambda_min)) {
+    const cx = p.x(s.x_worst), cy = p.y(s.lambda_min);
+    body += el('circle', { cx, cy, r: 1.1, fill: '#a3162b' });
+    body += el('line', { x1: cx, y1: cy, x2: cx, y2: p.y(0), stroke: '#a3162b', 'stroke-width': 0.25, 'stroke-dasharray': '0.8 0.6' });
+    const right = cx < 24 + 136 * 0.6;
+    body += text(cx + (right ? 2 : -2), cy + 4.2, `worst: λ = ${s.lambda_min.toFixed(2)} at x = ${s.x_worst.toFixed(2)} m`, { 'text-anchor': right ? 'start' : 'end', fill: '#a3162b', 'font-weight': 'bold' });
+  } else {
+    title += ' (no position causes collapse)';
+  }
+  body = text(10, 6, title, { fill: INK, 'font-weight': 'bold' }) + text(10, 10.5, s.load_spread, { fill: MUTED, 'font-size': 2.2 }) + body;
+  return markFigure(svgDocument(WIDTH, 94, 'Collapse load factor of a vehicle against the position of its lead axle', body));
+}
