@@ -24,7 +24,7 @@ const GROUPS = 12;
  * @example force_polygon(r, a)
  */
 export function forcePolygon(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}): string {
-  if (limit.H_min === undefined || limit.V_left === undefined || limit.V_right === undefined) {
+  if (typeof limit.H_min !== 'number' || typeof limit.V_left !== 'number' || typeof limit.V_right !== 'number') {
     throw new RangeError('force_polygon: no line of thrust fits within this ring, so there is no force polygon to draw');
   }
   checkLoads('force_polygon', ring, loads);

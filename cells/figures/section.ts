@@ -42,8 +42,8 @@ function hingePoints(ring: ArchRing, hinges: readonly Hinge[], line: readonly P[
  */
 export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}): string {
   const fig = archFigure(ring, loads);
-  const hinges = hingePoints(ring, limit.hinges ?? [], fig.thrust_min, 'hinges');
-  const mechanism = hingePoints(ring, limit.mechanism ?? [], undefined, 'mechanism hinges');
+  const hinges = hingePoints(ring, Array.isArray(limit.hinges) ? limit.hinges : [], fig.thrust_min, 'hinges');
+  const mechanism = hingePoints(ring, Array.isArray(limit.mechanism) ? limit.mechanism : [], undefined, 'mechanism hinges');
   const s = ring.span / 2;
   const abutment = 0.06 * ring.span + ring.thickness;
   const bounds = boundsOf([fig.extrados, fig.intrados, [{ x: -s - abutment, y: -0.05 * ring.span }, { x: s + abutment, y: 0 }]], 0.02 * ring.span);
@@ -81,11 +81,11 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
   // Legend.
   let legend = '';
   let y = 5;
-  if (fig.thrust_min) { legend += legendItem({ x: 10, y }, LEAST, `line of least thrust${limit.H_min !== undefined ? `, H_min = ${kilonewtons(limit.H_min)}` : ''}`); y += 4; }
-  if (fig.thrust_max) { legend += legendItem({ x: 10, y }, GREATEST, `line of greatest thrust${limit.H_max !== undefined ? `, H_max = ${kilonewtons(limit.H_max)}` : ''}`); y += 4; }
+  if (fig.thrust_min) { legend += legendItem({ x: 10, y }, LEAST, `line of least thrust${typeof limit.H_min === 'number' ? `, H_min = ${kilonewtons(limit.H_min)}` : ''}`); y += 4; }
+  if (fig.thrust_max) { legend += legendItem({ x: 10, y }, GREATEST, `line of greatest thrust${typeof limit.H_max === 'number' && Number.isFinite(limit.H_max) ? `, H_max = ${kilonewtons(limit.H_max)}` : ''}`); y += 4; }
   if (!fig.thrust_min) { legend += text(10, y + 0.9, 'no line of thrust fits within the ring: NOT SAFE', { fill: '#a3162b', 'font-weight': 'bold' }); y += 4; }
   if (hinges.length) { legend += el('circle', { cx: 14, cy: y, r: 1.1, fill: '#fff', stroke: INK, 'stroke-width': 0.4 }) + text(20, y + 0.9, 'hinge of the least-thrust line', { fill: INK }); y += 4; }
-  if (mechanism.length) legend += el('circle', { cx: 14, cy: y, r: 0.8, fill: INK }) + text(20, y + 0.9, `hinge of the collapse mechanism${limit.load_factor !== undefined ? ` (load factor ${limit.load_factor.toFixed(2)})` : ''}`, { fill: INK });
+  if (mechanism.length) legend += el('circle', { cx: 14, cy: y, r: 0.8, fill: INK }) + text(20, y + 0.9, `hinge of the collapse mechanism${typeof limit.load_factor === 'number' ? ` (load factor ${limit.load_factor.toFixed(2)})` : ''}`, { fill: INK });
   legend += text(WIDTH - 10, 5.9, `geometric factor of safety ${limit.gsf.toFixed(2)}`, { 'text-anchor': 'end', fill: INK, 'font-weight': 'bold' });
   const height = base + 22;
   body += scaleBar(frame.scale, { x: 10, y: height - 9 });

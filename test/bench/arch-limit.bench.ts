@@ -42,13 +42,13 @@ export async function run(): Promise<string[]> {
   lines.push(`  one collapse LP (${lp.b.length} rows, 4 unknowns): seidelLP ${lSeidel.toFixed(3)} ms, javascript-lp-solver ${lSimplex.toFixed(3)} ms, ratio ${(lSimplex / lSeidel).toFixed(1)}x`);
   const a = archLimit(ring, loads, seidelLP);
   const b = archLimit(ring, loads, simplexLP);
-  const rel = (x?: number, y?: number) => Math.abs(x! - y!) / Math.abs(y!);
+  const rel = (x: unknown, y: unknown) => (typeof x === 'number' && typeof y === 'number' ? (x === y ? 0 : Math.abs(x - y) / Math.abs(y)) : x === y ? 0 : Infinity);
   const worst = Math.max(rel(a.H_min, b.H_min), rel(a.H_max, b.H_max), rel(a.load_factor, b.load_factor), rel(a.t_min, b.t_min));
   lines.push(`  answers agree: largest relative difference in H_min, H_max, load_factor, t_min = ${worst.toExponential(1)} ${worst < 1e-6 ? '(ok)' : '(DISAGREE)'}`);
   lines.push('  semicircle under self-weight, t_min / R by voussoir count (exact centroids | weight on centreline):');
   for (const n of [20, 50, 100, 200, 400, 800, 1600]) {
     const row = (['exact', 'centreline'] as const).map((centroids) =>
-      archLimit(archRing({ shape: 'circular', radius: 1, half_angle: Math.PI / 2, thickness: 0.15, unit_weight: 1, voussoirs: n, centroids })).t_min!.toFixed(7));
+      (archLimit(archRing({ shape: 'circular', radius: 1, half_angle: Math.PI / 2, thickness: 0.15, unit_weight: 1, voussoirs: n, centroids })).t_min as number).toFixed(7));
     lines.push(`    ${String(n).padStart(5)}  ${row.join('  |  ')}`);
   }
   return lines;

@@ -6,6 +6,7 @@ import { thrustState } from './thrust-state.js';
 import { touchingJoints } from './touching-joints.js';
 import { minimumThickness } from './minimum-thickness.js';
 import { checkLoads } from './check-loads.js';
+import { notAvailable } from '../../not-available.js';
 
 /**
  * Limit analysis of a masonry ring under Heyman's assumptions — no tensile
@@ -18,8 +19,9 @@ import { checkLoads } from './check-loads.js';
  * - load_factor: the largest multiplier λ on live and point loads (an LP in
  *   (H, V, M0, λ); by the uniqueness theorem the collapse multiplier), with
  *   the hinges of the mechanism where the line touches the faces.
- * All solved exactly by seidelLP. Fields that do not exist are left out and
- * the reason is given in `notes`.
+ * All solved exactly by seidelLP. Every field is returned: an unbounded one
+ * (H_max, load_factor) is Infinity, one that does not exist is notAvailable
+ * with the reason, which `notes` also gives.
  * @param ring from archRing
  * @param loads fill, plan and point loads (all optional)
  * @param solve LP solver (tests pass another to cross-check)
@@ -44,19 +46,27 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   }
   const t_min = minimumThickness(ring, loads, solve);
   if (t_min === undefined) notes.push('no thickness up to the span fits a line of thrust: gsf is set to 0');
+  let noLambda = p.live > 0 ? undefined : notAvailable('no live or point load is given to scale');
   if (p.live > 0) {
     const collapse = solve(admissibleProgram(p, [0, 0, 0, 1], true));
-    if (!collapse.feasible) notes.push('the ring cannot carry its dead loads alone: no load factor');
-    else if (collapse.x[3]! >= LIVE_BOX / 2 || collapse.x.some((x) => Math.abs(x) >= BOX / 2)) notes.push('the live load never causes collapse: no load factor');
+    if (!collapse.feasible) {
+      notes.push('the ring cannot carry its dead loads alone: no load factor');
+      noLambda = notAvailable('the ring cannot carry its dead loads alone');
+    } else if (collapse.x[3]! >= LIVE_BOX / 2 || collapse.x.some((x) => Math.abs(x) >= BOX / 2)) notes.push('the live load never causes collapse: load_factor is ∞');
     else [load_factor, mechanism] = [thrustState(p, collapse.x).lambda, hinges(collapse.x)];
   }
-  const result = {
-    H_min, H_max, V_left, V_right, t_min,
-    gsf: t_min === undefined ? 0 : ring.thickness / t_min,
-    hinges: minHinges, load_factor, mechanism,
+  const gsf = t_min === undefined ? 0 : ring.thickness / t_min;
+  // Every field is always returned: unbounded is Infinity, what does not exist says why.
+  const unsafe = notAvailable(`the ring holds no line of thrust (gsf ${gsf.toFixed(2)} < 1)`);
+  return {
+    H_min: H_min ?? unsafe, H_max: H_max ?? (least.feasible ? Infinity : unsafe),
+    V_left: V_left ?? unsafe, V_right: V_right ?? unsafe,
+    t_min: t_min ?? notAvailable('no thickness up to the span fits a line of thrust'),
+    gsf,
+    hinges: minHinges ?? unsafe,
+    load_factor: load_factor ?? noLambda ?? Infinity,
+    mechanism: mechanism ?? noLambda ?? notAvailable('the live load never causes collapse: there is no mechanism'),
     safe: least.feasible,
     notes,
   };
-  // Absent means absent: a document reading a.H_max then gets a clear error, not "undefined".
-  return Object.fromEntries(Object.entries(result).filter(([, v]) => v !== undefined)) as unknown as ArchLimit;
 }

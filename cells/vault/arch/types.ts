@@ -4,6 +4,7 @@
  * axis (right positive), y above the springing point of the intrados.
  */
 import type { Metres, Point, Profile, Radians } from '../profile.js';
+import type { NotAvailable } from '../../not-available.js';
 
 export type Newtons = number;
 
@@ -13,8 +14,8 @@ export interface ArchRing {
   /** Clear span and rise of the intrados (m). */
   span: Metres;
   rise: Metres;
-  /** Centreline radius of a circular ring (m); absent for other shapes. */
-  radius?: Metres;
+  /** Centreline radius of a circular ring (m); not available for other shapes. */
+  radius: Metres | NotAvailable;
   /** Angle from the crown to the springing joint (rad). */
   half_angle: Radians;
   thickness: Metres;
@@ -68,17 +69,20 @@ export interface Hinge {
   face: 'intrados' | 'extrados';
 }
 
-/** What arch_limit reports; fields are absent where the quantity does not exist (see notes). */
+/**
+ * What arch_limit reports. Every field is present: an unbounded quantity is Infinity, one that does
+ * not exist in the state found is NotAvailable with the reason (also given in notes).
+ */
 export interface ArchLimit {
-  H_min?: Newtons;
-  H_max?: Newtons;
-  V_left?: Newtons;
-  V_right?: Newtons;
-  t_min?: Metres;
+  H_min: Newtons | NotAvailable;
+  H_max: Newtons | NotAvailable;
+  V_left: Newtons | NotAvailable;
+  V_right: Newtons | NotAvailable;
+  t_min: Metres | NotAvailable;
   gsf: number;
-  hinges?: Hinge[];
-  load_factor?: number;
-  mechanism?: Hinge[];
+  hinges: Hinge[] | NotAvailable;
+  load_factor: number | NotAvailable;
+  mechanism: Hinge[] | NotAvailable;
   safe: boolean;
   notes: string[];
 }
