@@ -60,7 +60,11 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
     const prior = byId.get(cell.id);
     if (prior || (cell.name && failedNames.has(cell.name))) {
       const line = prior ? prior.span.start.line : failedStatements.find((f) => f.name === cell.name)!.diagnostic.line;
-      ctx.diagnostics.push(diag(ctx, cell.span, cell.id, 'graph/duplicate', `"${cell.id}" is already defined on line ${line}`));
+      const d = diag(ctx, cell.span, cell.id, 'graph/duplicate', `"${cell.id}" is defined twice (lines ${line} and ${cell.span.start.line})`,
+        'keep one definition, or rename the other');
+      ctx.diagnostics.push(d);
+      // Which of the two is meant is unknown: the first is not used either, so its dependents say why.
+      if (prior && !failed.has(prior.id)) failed.set(prior.id, d);
       continue;
     }
     byId.set(cell.id, cell);

@@ -5,8 +5,9 @@ import type { EvalFunction, MathNode, Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { Cell, CheckResult } from '../types.js';
 import type { Diagnostic, StageContext } from '../diagnostic.js';
-import { CellFailure } from './failure.js';
+import { CellFailure, NotComputed } from './failure.js';
 import { explainError } from './explain.js';
+import { checkReads } from './reads.js';
 import { formatValue } from '../values/format.js';
 
 type AnyNode = MathNode & { fn?: string; args?: MathNode[] };
@@ -28,6 +29,24 @@ function compiledOf(node: MathNode): EvalFunction {
 
 const OPS: Record<string, CheckResult['op']> = { smallerEq: '<=', largerEq: '>=', smaller: '<', larger: '>' };
 
+/** Does the expression read an infinite value (an input, a field such as a.H_max, or Infinity itself)? */
+function readsInfinity(node: MathNode, scope: Map<string, unknown>): boolean {
+  let found = false;
+  node.traverse((n) => {
+    if (found) return;
+    const any = n as AnyNode & { name?: string };
+    if (any.type === 'SymbolNode' && (any.name === 'Infinity' || (scope.has(any.name!) && isNonFinite(scope.get(any.name!))))) found = true;
+    else if (any.type === 'AccessorNode') {
+      try {
+        found = isNonFinite(compiledOf(n).evaluate(scope));
+      } catch {
+        // An accessor that cannot be evaluated on its own reads nothing infinite.
+      }
+    }
+  });
+  return found;
+}
+
 function isNonFinite(v: unknown): boolean {
   if (typeof v === 'number') return !Number.isFinite(v);
   if (math.isUnit(v)) {
@@ -35,6 +54,11 @@ function isNonFinite(v: unknown): boolean {
     return typeof x === 'number' && !Number.isFinite(x);
   }
   return false;
+}
+
+function isInfinite(v: unknown): boolean {
+  const x = math.isUnit(v) ? (v as Unit).value : v;
+  return x === Infinity || x === -Infinity;
 }
 
 /** A figure is SVG text from a figure function (or an object carrying it). */
@@ -86,11 +110,14 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
   cell.uses.forEach((name, i) => scope.set(name, inputs[i]));
   let value: unknown;
   try {
+    checkReads(cell, (node) => compiledOf(node).evaluate(scope), ctx.file);
     value = cell.kind === 'check' ? evaluateCheck(cell, scope) : compiledOf(cell.node).evaluate(scope);
   } catch (err) {
+    if (err instanceof CellFailure || err instanceof NotComputed) throw err;
     throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
   }
-  if (isNonFinite(value)) {
+  // ∞ read from an input (a ring that never collapses) is a value; ∞ or NaN made here is an error.
+  if (isNonFinite(value) && !(isInfinite(value) && readsInfinity(cell.node, scope))) {
     const d: Diagnostic = {
       message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, file: ctx.file,
       line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
