@@ -4,7 +4,7 @@
 export type Severity = 'error' | 'warning' | 'info';
 
 export type RuleId =
-  | 'parse/syntax' | 'parse/front-matter' | 'parse/cell'
+  | 'parse/syntax' | 'parse/front-matter' | 'parse/cell' | 'parse/name'
   | 'graph/cycle' | 'graph/unknown-name' | 'graph/unknown-field' | 'graph/duplicate' | 'graph/shadow-unit' | 'graph/shadow-function'
   | 'units/mismatch' | 'kernel/domain' | 'kernel/argument' | 'value/non-finite' | 'value/range'
   | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read';

@@ -24,6 +24,8 @@ export interface CheckEntry {
   utilization: number | null;
   /** Why no verdict, when the check could not be evaluated. */
   blocked_by?: string;
+  /** The reason in full, when it is not a failure upstream (a field that is not available, a name defined twice). */
+  reason?: string;
 }
 
 export interface Summary {
@@ -57,6 +59,7 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
         name: cell.name, source: cell.source, description: cell.description, line: cell.span.start.line,
         pass: result ? result.pass : null, utilization: result ? result.utilization : null,
         ...(blockedBy ? { blocked_by: blockedBy } : {}),
+        ...(state.status === 'blocked' && state.note ? { reason: state.note } : {}),
       });
     }
     if (!cell.name) continue;
@@ -66,6 +69,7 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
     values[cell.name] = {
       ...json, kind: cell.kind, line: cell.span.start.line,
       ...(state.status === 'blocked' ? { blocked_by: state.by } : {}),
+      ...(state.status === 'blocked' && state.note ? { reason: state.note } : {}),
       ...(cell.overridden && cell.originalSource !== null ? { overridden_from: cell.originalSource } : {}),
     };
   }
