@@ -28,6 +28,8 @@ export interface Diagnostic {
 export interface StageContext {
   file: string;
   diagnostics: Diagnostic[];
+  /** Significant figures for numbers quoted in messages (the document's, default 4). */
+  sigfigs?: number;
 }
 
 /**

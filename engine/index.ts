@@ -75,7 +75,8 @@ export function compile(source: string, options: CompileOptions = {}): CompiledD
 
 /** Starts a live session on a compiled document. */
 export function startSession(doc: CompiledDocument): Session {
-  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics });
+  const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : undefined;
+  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics, ...(sigfigs ? { sigfigs } : {}) });
 }
 
 export interface Evaluation {

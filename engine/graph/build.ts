@@ -111,7 +111,8 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
         }
         continue;
       }
-      if (defined.has(use.name)) {
+      // A call of a vault function stays one even where the document wrongly defines that name too.
+      if (defined.has(use.name) && !(use.role === 'call' && lib.functions.has(use.name))) {
         if (use.role === 'call') {
           fail(diag(ctx, cell.span, cell.id, 'eval/error', `"${use.name}" is a value defined in this document, not a function`));
         } else if (!cell.uses.includes(use.name)) {
