@@ -27,7 +27,9 @@ instance.import({
   atan2: instance.typed('atan2', {
     'Unit, Unit': (y: Unit, x: Unit) => {
       if (!y.equalBase(x)) throw new TypeError(`atan2 needs two values of the same kind, got ${y.formatUnits()} and ${x.formatUnits()}`);
-      return instance.unit(Math.atan2(y.toSI().toNumber(), x.toSI().toNumber()), 'rad');
+      const angle = instance.unit(Math.atan2(y.toSI().toNumber(), x.toSI().toNumber()), 'rad');
+      // A computed angle, not one written in rad: shown in degrees like every other angle.
+      return Object.assign(angle, { skipAutomaticSimplification: false });
     },
   }),
 });
