@@ -11,11 +11,11 @@ import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 
-export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string }): string {
+export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; reason?: string }): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
   const u = c.utilization === null ? '     ' : formatNumber(c.utilization, 3).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
-  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}`;
+  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}${c.reason ? `\n                     ${c.reason}` : ''}`;
 }
 
 export function exitCodeFor(results: Loaded[]): number {

@@ -125,6 +125,15 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     };
     throw new CellFailure(cell.id, d);
   }
+  if (value === undefined) {
+    // Never a silent "—": an index by a name (a[k]) can reach a field that is not there.
+    const d: Diagnostic = {
+      message: 'this line gives no value: it reads something that does not exist (a field or an item that is not there)', file: ctx.file,
+      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
+      cellId: cell.id, ruleId: 'value/type', severity: 'error',
+    };
+    throw new CellFailure(cell.id, d);
+  }
   if (cell.kind === 'figure' && !isFigureValue(value)) {
     const d: Diagnostic = {
       message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, file: ctx.file,
