@@ -125,6 +125,14 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     };
     throw new CellFailure(cell.id, d);
   }
+  if (math.isComplex(value)) {
+    const d: Diagnostic = {
+      message: `the result is the complex number ${formatValue(String(value))}: a square root, power or logarithm of a negative value`, file: ctx.file,
+      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
+      cellId: cell.id, ruleId: 'value/non-finite', severity: 'error',
+    };
+    throw new CellFailure(cell.id, d);
+  }
   if (value === undefined) {
     // Never a silent "—": an index by a name (a[k]) can reach a field that is not there.
     const d: Diagnostic = {

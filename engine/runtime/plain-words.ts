@@ -45,7 +45,9 @@ export function plainWords(message: string): string {
     return `cannot use ${typeWords(m[3]!)} in ${functionWords(m[1]!)}${expected ? `; it takes ${expected}` : ''}`;
   }
   m = /Too few arguments in function (\w+)/.exec(message);
-  if (m) return `${functionWords(m[1]!)} needs more arguments`;
+  if (m) return `${functionWords(m[1]!)} needs more arguments, or arguments of another kind`;
+  m = /Unit in function (\w+) is no angle/.exec(message);
+  if (m) return `${functionWords(m[1]!)} needs an angle (e.g. 30 deg) or a plain number`;
   m = /Too many arguments in function (\w+) \(expected: (\d+), actual: (\d+)\)/.exec(message);
   if (m) return `${functionWords(m[1]!)} takes ${m[2]} argument${m[2] === '1' ? '' : 's'}, got ${m[3]}`;
   m = /Index out of range \((-?\d+) [<>] (-?\d+)\)/.exec(message);
