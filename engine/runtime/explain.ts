@@ -102,6 +102,12 @@ export function explainError(err: unknown, cell: Cell, scope: Map<string, unknow
     }
   }
   message = plainWords(message);
+  // mathjs names the wrong trigonometric function in its message (cot for cos): name the one written.
+  const trig = /^(\w+)\(…\) needs an angle/.exec(message);
+  if (trig) {
+    const written = (cell.node as MathNode).filter((n) => n.type === 'FunctionNode' && /^(a?(sin|cos|tan|sec|csc|cot)h?)$/.test(String((n as AnyNode & { name?: string }).name)));
+    if (written.length === 1) message = message.replace(trig[1]!, String((written[0] as AnyNode & { name?: string }).name));
+  }
   return {
     message, file: ctx.file, line: cell.span.start.line, column: cell.span.start.column,
     endLine: cell.span.end.line, endColumn: cell.span.end.column, cellId: cell.id, ruleId: c.ruleId, severity: 'error',
