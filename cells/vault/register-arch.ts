@@ -32,6 +32,34 @@ export const arch_ring = defineCellFunction({
   },
   required: ['shape', 'thickness', 'unit_weight'],
   fn: archRing,
+  reference: {
+    params: {
+      'options.shape': 'profile family of the intrados in quotes ("circular", "pointed", "elliptical", "parabolic", "catenary", "cycloid"), or the exponent n of the R0·cos^n φ family',
+      'options.span': 'clear span of the intrados between the springings (length); give span and rise, or radius and half_angle',
+      'options.rise': 'rise of the intrados from the springing line to the crown (length); not needed for "pointed"',
+      'options.radius': 'centreline radius of a circular ring (length), with half_angle instead of span and rise',
+      'options.half_angle': 'angle from the crown to the springing joint (angle; 90 deg for a semicircle), with radius',
+      'options.thickness': 'ring thickness, constant, measured along the joints (length)',
+      'options.unit_weight': 'unit weight of the masonry (force per volume, e.g. 18 kN/m^3; lb/ft^3 is a mass density: write lbf/ft^3)',
+      'options.depth': 'width of the strip along the barrel (length), default 1 m',
+      'options.voussoirs': 'number of voussoirs the ring is cut into for the analysis (whole number ≥ 2), default 200',
+    },
+    fields: {
+      shape: 'the profile family, as given (an exponent n shows as "power n = …")',
+      span: 'clear span of the intrados (m)',
+      rise: 'rise of the intrados from the springing to the crown (m)',
+      radius: 'centreline radius of a circular ring (m); not available for other shapes, which have no single radius',
+      half_angle: 'angle of the springing joint from the crown, measured from the vertical (rad, shown in degrees)',
+      thickness: 'ring thickness (m)',
+      unit_weight: 'unit weight of the masonry (N/m^3)',
+      depth: 'width of the strip (m)',
+      voussoirs: 'number of voussoirs',
+      weight: 'self-weight of the whole ring strip (N)',
+    },
+    method: 'The centreline is the parallel curve at t/2 outside the intrados; the ring is cut into voussoirs by joints normal to the centreline. The ring frame has y = 0 at the springing of the intrados and x = 0 on the crown axis.',
+    assumptions: ['constant thickness', 'symmetric about the crown', 'joints normal to the centreline'],
+    sources: ['J. Heyman, The Stone Skeleton, Cambridge University Press, 1995 (the ring as an assembly of voussoirs)'],
+  },
 });
 
 export const arch_limit = defineCellFunction({
