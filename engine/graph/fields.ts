@@ -120,6 +120,11 @@ function resolve(node: AnyNode, graph: CellGraph, scopeNames: ReadonlySet<string
   if (node.type === 'SymbolNode') {
     return { shape: scopeNames.has(node.name!) ? shapeOfCell(graph.byId.get(node.name!), graph) : null };
   }
+  if (node.type === 'ParenthesisNode') return resolve((node as AnyNode & { content: AnyNode }).content, graph, scopeNames);
+  if (node.type === 'ObjectNode' || node.type === 'FunctionNode') {
+    const type = literalType(node);
+    return { shape: type === 'any' ? null : { label: node.type === 'ObjectNode' ? 'this record' : `${(node.fn as AnyNode).name} result`, type } };
+  }
   if (node.type !== 'AccessorNode') return { shape: null };
   const parent = resolve(node.object!, graph, scopeNames);
   if (parent.problem || !parent.shape) return parent;
@@ -133,6 +138,19 @@ function resolve(node: AnyNode, graph: CellGraph, scopeNames: ReadonlySet<string
   if (!fields) return { shape: null };
   if (!fields.includes(field)) return { shape: null, problem: { node, message: missingFieldMessage(label, field, fields) } };
   return { shape: { label: `${node.object!.toString()}.${field}`, type: (type as { object: Record<string, FieldType> }).object[field]! } };
+}
+
+/**
+ * Is this accessor a plain chain from a name (`a.hinges[1].angle`), cheap to look into before the
+ * expression runs? A chain from a call (`arch_limit(r).gsf`) would run the call twice.
+ */
+export function isNameChain(node: MathNode): boolean {
+  let n = node as AnyNode;
+  while (n.type === 'AccessorNode' || n.type === 'ParenthesisNode') {
+    if (n.type === 'AccessorNode' && !n.index!.dimensions.every((d) => d.type === 'ConstantNode')) return false;
+    n = (n.type === 'AccessorNode' ? n.object : (n as AnyNode & { content: AnyNode }).content) as AnyNode;
+  }
+  return n.type === 'SymbolNode';
 }
 
 /**

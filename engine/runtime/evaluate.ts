@@ -7,7 +7,8 @@ import type { Cell, CheckResult } from '../types.js';
 import type { Diagnostic, StageContext } from '../diagnostic.js';
 import { CellFailure, NotComputed } from './failure.js';
 import { explainError } from './explain.js';
-import { checkReads } from './reads.js';
+import { checkReads, checkCalledReads } from './reads.js';
+import { isNotAvailable } from '../../cells/not-available.js';
 import { formatValue } from '../values/format.js';
 
 type AnyNode = MathNode & { fn?: string; args?: MathNode[] };
@@ -114,6 +115,7 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     value = cell.kind === 'check' ? evaluateCheck(cell, scope) : compiledOf(cell.node).evaluate(scope);
   } catch (err) {
     if (err instanceof CellFailure || err instanceof NotComputed) throw err;
+    checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
     throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
   }
   // ∞ read from an input (a ring that never collapses) is a value; ∞ or NaN made here is an error.
@@ -125,6 +127,7 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     };
     throw new CellFailure(cell.id, d);
   }
+  if (isNotAvailable(value)) checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
   if (math.isComplex(value)) {
     const d: Diagnostic = {
       message: `the result is the complex number ${formatValue(String(value))}: a square root, power or logarithm of a negative value`, file: ctx.file,

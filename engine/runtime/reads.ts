@@ -9,7 +9,7 @@ import { KERNEL_SOURCE, isKernelResult } from '../../cells/define.js';
 import { isNotAvailable } from '../../cells/not-available.js';
 import { describeDimension } from '../../cells/units.js';
 import type { Cell } from '../types.js';
-import { accessorsOf, fieldDiagnostic, fieldOf, missingFieldMessage } from '../graph/fields.js';
+import { accessorsOf, fieldDiagnostic, fieldOf, isNameChain, missingFieldMessage } from '../graph/fields.js';
 import { CellFailure, NotComputed } from './failure.js';
 
 type AnyNode = MathNode & { object?: MathNode; name?: string };
@@ -44,7 +44,7 @@ function rootName(node: AnyNode): string | null {
 export function checkReads(cell: Cell, evaluate: (node: MathNode) => unknown, file: string): void {
   let list = accessors.get(cell.node);
   if (!list) {
-    list = accessorsOf(cell.node).filter((n) => fieldOf(n) !== null);
+    list = accessorsOf(cell.node).filter((n) => fieldOf(n) !== null && isNameChain(n));
     accessors.set(cell.node, list);
   }
   for (const node of list) {
@@ -65,6 +65,26 @@ export function checkReads(cell: Cell, evaluate: (node: MathNode) => unknown, fi
     const value = object[field];
     if (isNotAvailable(value)) {
       throw new NotComputed(cell.id, rootName(node as AnyNode) ?? cell.id, `not computed: ${node.toString()} is not available — ${value.reason}`);
+    }
+  }
+}
+
+/**
+ * After a failure (or a value that is not available), the field read through a call that was not
+ * looked into beforehand (`arch_limit(r).H_min`): throws NotComputed with its reason when it is
+ * not available. Runs only on that path, so a kernel is never called twice on a good line.
+ */
+export function checkCalledReads(cell: Cell, evaluate: (node: MathNode) => unknown): void {
+  for (const node of accessorsOf(cell.node)) {
+    if (fieldOf(node) === null || isNameChain(node)) continue;
+    let value: unknown;
+    try {
+      value = evaluate(node);
+    } catch {
+      continue;
+    }
+    if (isNotAvailable(value)) {
+      throw new NotComputed(cell.id, cell.uses[0] ?? cell.id, `not computed: ${node.toString()} is not available — ${value.reason}`);
     }
   }
 }

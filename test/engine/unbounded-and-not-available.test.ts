@@ -62,6 +62,12 @@ describe('Infinity is a value; "not available" blocks with its reason', async ()
     expect(summary.checks.find((c) => c.name === 'c_H')).toMatchObject({ pass: null, utilization: null, blocked_by: 'b', reason: note });
   });
 
+  it('a field read through a call is stopped the same way', async () => {
+    const text = fence('calc', 'thin = arch_ring({shape: "circular", span: 6 m, rise: 3 m, thickness: 0.1 m, unit_weight: 20 kN/m^3})', 'H = arch_limit(thin).H_min * 2');
+    const { states: s } = await evaluateDocument(text);
+    expect(s.get('H')).toEqual({ status: 'blocked', by: 'thin', note: 'not computed: arch_limit(thin).H_min is not available — the ring holds no line of thrust (gsf 0.31 < 1)' });
+  });
+
   it('the sheet prints ∞ and "not available — reason" in place', async () => {
     const { html } = await renderText(DOC);
     expect(html).toContain('not computed: b.H_min is not available — the ring holds no line of thrust (gsf 0.31 &lt; 1)');
