@@ -52,18 +52,25 @@ export function describeDimension(value: unknown): string {
   return `a quantity in ${own ?? dimensionUnits(u)}`;
 }
 
+/** Force units to suggest, by dimension, when a mass was written instead. */
+const FORCE_UNITS: Array<[string, string]> = [['N', 'kN'], ['N/m', 'kN/m'], ['Pa', 'kN/m^2'], ['N/m^3', 'kN/m^3']];
+
 /**
  * What to write instead, when a mass stands where a force is meant (lb/ft^3 for a unit weight,
  * kg for a load), or the other way round; '' when that is not the mix-up.
+ * @param expected the SI unit expected ('N/m^3'), or a value of the expected dimension
  */
-export function massForceHint(value: unknown, si: string): string {
-  if (!math.isUnit(value) || si === '' || si === '1') return '';
-  const u = value as Unit, target = math.unit(1, si), gravity = math.unit(9.80665, 'm/s^2');
+export function massForceHint(value: unknown, expected: string | Unit): string {
+  if (!math.isUnit(value) || expected === '' || expected === '1') return '';
+  const u = value as Unit, gravity = math.unit(9.80665, 'm/s^2');
+  const target = typeof expected === 'string' ? math.unit(1, expected) : expected;
   if ((math.multiply(u, gravity) as Unit).equalBase(target)) {
     const own = ownUnits(u) ?? '';
-    const force = own.replace(/\blbm?\b/, 'lbf').replace(/\bkg\b/, 'kgf').replace(/\bt\b/, 'kN');
-    const suggestion = force !== own && /lbf/.test(force) ? `write ${force}` : `write it as a force (${si === 'N/m^3' ? 'kN/m^3' : si === 'N' ? 'kN' : 'kN-based units'})`;
-    return `: ${own || 'this'} is a mass${si === 'N/m^3' ? ' density' : ''}, not a weight; ${suggestion}, or multiply by gravity`;
+    const force = own.replace(/\blbm?\b/, 'lbf');
+    const unit = FORCE_UNITS.find(([si]) => target.equalBase(math.unit(1, si)));
+    const what = unit?.[0] === 'N/m^3' ? 'a mass density' : unit?.[0] === 'N' ? 'a mass' : 'a mass per area or length';
+    const suggestion = force !== own ? `write ${force}` : `write it as a force${unit ? ` (${unit[1]})` : ''}`;
+    return `: ${own || 'this'} is ${what}, not a weight; ${suggestion}, or multiply by gravity`;
   }
   if ((math.divide(u, gravity) as Unit).equalBase(target)) return ': this is a weight (a force), not a mass; divide by gravity';
   return '';

@@ -55,15 +55,10 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
   if (node.type === 'OperatorNode' && typeof node.fn === 'string' && VERBS[node.fn] && node.args?.length === 2) {
     const a = node.args[0]!.compile().evaluate(scope);
     const b = node.fn === 'to' ? math.unit(node.args[1]!.toString()) : node.args[1]!.compile().evaluate(scope);
-    const hint = math.isUnit(a) && math.isUnit(b) ? massForceHint(a, siOf(b)) || massForceHint(b, siOf(a)) : '';
+    const hint = math.isUnit(a) && math.isUnit(b) ? massForceHint(a, b as Unit) || massForceHint(b, a as Unit) : '';
     return `${VERBS[node.fn](unitLabel(a), unitLabel(b))} in "${node.toString()}"${hint}`;
   }
   return null;
-}
-
-/** The SI unit string of a quantity's dimension ('N/m^3'), for the mass/force hint. */
-function siOf(u: unknown): string {
-  return (u as Unit).clone().toSI().formatUnits().replace(/\s*\/\s*/g, '/') || '1';
 }
 
 /** "did you mean" for an unknown option, from the list the message gives. */
