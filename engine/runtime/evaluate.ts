@@ -102,6 +102,25 @@ function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
   return { isCheck: true, source: cell.source, op: null, demand: null, capacity: null, utilization: null, pass: value };
 }
 
+/** What is wrong with a value a line gives, when something is: never a silent NaN, "—" or complex number. */
+function valueProblem(cell: Cell, value: unknown, scope: Map<string, unknown>): { message: string; ruleId: Diagnostic['ruleId'] } | null {
+  // ∞ read from an input (a ring that never collapses) is a value; ∞ or NaN made here is an error.
+  if (isNonFinite(value) && !(isInfinite(value) && readsInfinity(cell.node, scope))) {
+    return { message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, ruleId: 'value/non-finite' };
+  }
+  if (math.isComplex(value)) {
+    return { message: `the result is the complex number ${String(value)}: a square root, power or logarithm of a negative value`, ruleId: 'value/non-finite' };
+  }
+  if (value === undefined) {
+    // An index by a name (a[k]) can reach a field that is not there.
+    return { message: 'this line gives no value: it reads something that does not exist (a field or an item that is not there)', ruleId: 'value/type' };
+  }
+  if (cell.kind === 'figure' && !isFigureValue(value)) {
+    return { message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, ruleId: 'value/type' };
+  }
+  return null;
+}
+
 /**
  * Evaluates a cell. Throws CellFailure (with a located diagnostic) when it fails.
  * @param inputs values of cell.uses, in the same order
@@ -118,40 +137,16 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
     throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
   }
-  // ∞ read from an input (a ring that never collapses) is a value; ∞ or NaN made here is an error.
-  if (isNonFinite(value) && !(isInfinite(value) && readsInfinity(cell.node, scope))) {
-    const d: Diagnostic = {
-      message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, file: ctx.file,
-      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
-      cellId: cell.id, ruleId: 'value/non-finite', severity: 'error',
-    };
-    throw new CellFailure(cell.id, d);
+  if (isNotAvailable(value)) {
+    checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
+    throw new NotComputed(cell.id, cell.uses[0] ?? cell.id, `not computed: ${value.toString().replace(/^not available/, 'a value it reads is not available')}`);
   }
-  if (isNotAvailable(value)) checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
-  if (math.isComplex(value)) {
-    const d: Diagnostic = {
-      message: `the result is the complex number ${formatValue(String(value))}: a square root, power or logarithm of a negative value`, file: ctx.file,
-      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
-      cellId: cell.id, ruleId: 'value/non-finite', severity: 'error',
-    };
-    throw new CellFailure(cell.id, d);
-  }
-  if (value === undefined) {
-    // Never a silent "—": an index by a name (a[k]) can reach a field that is not there.
-    const d: Diagnostic = {
-      message: 'this line gives no value: it reads something that does not exist (a field or an item that is not there)', file: ctx.file,
-      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
-      cellId: cell.id, ruleId: 'value/type', severity: 'error',
-    };
-    throw new CellFailure(cell.id, d);
-  }
-  if (cell.kind === 'figure' && !isFigureValue(value)) {
-    const d: Diagnostic = {
-      message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, file: ctx.file,
-      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
-      cellId: cell.id, ruleId: 'value/type', severity: 'error',
-    };
-    throw new CellFailure(cell.id, d);
+  const problem = valueProblem(cell, value, scope);
+  if (problem) {
+    throw new CellFailure(cell.id, {
+      message: problem.message, file: ctx.file, line: cell.span.start.line, column: cell.span.start.column,
+      endLine: cell.span.end.line, endColumn: cell.span.end.column, cellId: cell.id, ruleId: problem.ruleId, severity: 'error',
+    });
   }
   return value;
 }
