@@ -84,7 +84,7 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
 
   for (const cell of kept) {
     if (cell.name && lib.functions.has(cell.name)) {
-      fail(diag(ctx, cell.span, cell.id, 'graph/shadow-function', `"${cell.name}" is the name of a vault function; choose another name`));
+      fail(diag(ctx, cell.span, cell.id, 'graph/shadow-function', `"${cell.name}" is the name of a vault function; choose another name, e.g. "${cell.name}_1" or a descriptive one`));
       continue;
     }
     const user = cell.name ? unitUses.get(cell.name) : undefined;
