@@ -4,7 +4,7 @@
  * by the value the document gave for it when one matches, else by the same quantity in the display
  * unit of its dimension; long plain numbers are rounded to the document's significant figures.
  */
-import { math } from '../../cells/math.js';
+import { fromSI } from '../../cells/units.js';
 import type { GivenQuantity } from '../../cells/define.js';
 import { formatNumber, formatValue } from '../values/format.js';
 
@@ -26,6 +26,6 @@ export function quoteInUserUnits(message: string, given: GivenQuantity[], sigfig
     if (!Number.isFinite(x)) return whole;
     if (!si) return digits.replace(/^-/, '').replace('.', '').replace(/^0+/, '').length > sigfigs + 2 ? formatNumber(x, sigfigs) : whole;
     const mine = given.find((g) => g.si === si && sameNumber(g.number, x));
-    return formatValue(mine ? mine.value : math.unit(x, si), { sigfigs });
+    return formatValue(mine ? mine.value : fromSI(x, si), { sigfigs });
   });
 }
