@@ -8,8 +8,12 @@
 /** mathjs's letters (its parser's isAlpha: Latin, Latin-1 and Latin Extended, Greek, letter-like symbols). */
 const LETTER = 'A-Za-z_$\\u00C0-\\u02AF\\u0370-\\u03FF\\u2100-\\u214F';
 
+/** Mathematical alphanumeric letters (𝑥, 𝛾), which mathjs also reads as letters: one surrogate pair each. */
+const MATH_LETTER = '\\uD835[\\uDC00-\\uDFFF]';
+const NAME_CHAR = new RegExp(`^(?:[${LETTER}0-9]|${MATH_LETTER})$`);
+
 /** `name =` at the start of a statement (not `==`). */
-export const NAME_PREFIX = new RegExp(`^\\s*([${LETTER}][${LETTER}0-9]*)\\s*=(?!=)`);
+export const NAME_PREFIX = new RegExp(`^\\s*((?:[${LETTER}]|${MATH_LETTER})(?:[${LETTER}0-9]|${MATH_LETTER})*)\\s*=(?!=)`);
 
 /** A statement that defines something that looks like a name: `σ₁ = …`, `L' = …`, `2x = …`. */
 const ANY_LEFT = /^\s*([^=\s(){}[\]"',;#<>!][^=(){}[\]",;#<>!]*?)\s*=(?!=)/;
@@ -31,7 +35,7 @@ function respell(name: string): string {
     if (sub >= 0) out += `_${sub}`;
     else if (sup >= 0) out += `_${sup}`;
     else if (c === "'" || c === '′') out += '_p';
-    else if (new RegExp(`[${LETTER}0-9]`).test(c)) out += c;
+    else if (NAME_CHAR.test(c)) out += c;
     else out += '_';
   }
   out = out.replace(/_+/g, '_').replace(/^_|_$/g, '');
@@ -52,7 +56,7 @@ export function nameProblem(statement: string): string | null {
   }
   const left = ANY_LEFT.exec(statement)?.[1];
   if (!left) return null;
-  const bad = [...left].find((c) => !new RegExp(`[${LETTER}0-9]`).test(c));
+  const bad = [...left].find((c) => !NAME_CHAR.test(c));
   if (/^\d/.test(left)) return `"${left}" cannot be a name: a name starts with a letter or _; write "${respell(left)}"`;
   if (!bad) return null;
   const shown = bad === ' ' ? 'a space' : `"${bad}"`;
