@@ -20,7 +20,7 @@ export function parse(args: string[], options: NonNullable<ParseArgsConfig['opti
 export function readOverrides(sets: string[] | undefined): Record<string, string> {
   const out: Record<string, string> = {};
   for (const s of sets ?? []) {
-    const m = /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(.*)$/s.exec(s);
+    const m = /^\s*([\p{L}_$][\p{L}\p{N}_$]*)\s*=(.*)$/su.exec(s);
     if (!m || m[2]!.trim() === '') throw new UsageError(`--set expects NAME=EXPR, e.g. --set "L=7.2 m"; got "${s}"`);
     out[m[1]!] = m[2]!.trim();
   }

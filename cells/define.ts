@@ -86,6 +86,49 @@ export class CellArgumentError extends Error {
   override name = 'CellArgumentError';
 }
 
+/**
+ * A kernel refused its arguments (a RangeError at the edge of its domain). It carries the values as
+ * the document gave them, so that the message can quote them in the document's units rather than
+ * in the kernel's SI numbers.
+ */
+export class KernelDomainError extends RangeError {
+  override name = 'KernelDomainError';
+  constructor(message: string, readonly given: GivenQuantity[]) {
+    super(message);
+  }
+}
+
+/** One quantity handed to a kernel: its SI unit and number, and the value as the document gave it. */
+export interface GivenQuantity {
+  si: string;
+  number: number;
+  value: unknown;
+}
+
+/** The quantities among a call's arguments (options and lists included), as the kernel saw them and as written. */
+function givenQuantities(value: unknown, type: FieldType, out: GivenQuantity[]): void {
+  if (typeof type === 'string') {
+    if (!KEYWORDS.has(type) && type !== '1' && math.isUnit(value)) {
+      try {
+        out.push({ si: type, number: (value as { toNumber(u: string): number }).toNumber(type), value });
+      } catch {
+        // A value of the wrong dimension never reaches the kernel.
+      }
+    }
+    return;
+  }
+  if ('list' in type) {
+    const items = math.isMatrix(value) ? (value as { toArray(): unknown[] }).toArray() : value;
+    if (Array.isArray(items)) for (const item of items) givenQuantities(item, type.list, out);
+    return;
+  }
+  if ('object' in type && typeof value === 'object' && value !== null) {
+    for (const [key, field] of Object.entries(value as Record<string, unknown>)) {
+      if (type.object[key]) givenQuantities(field, type.object[key]!, out);
+    }
+  }
+}
+
 /** Hidden keys on returned objects: not reachable from an expression. */
 export const KERNEL_VALUE = Symbol('vaultbook.kernelValue');
 export const KERNEL_SOURCE = Symbol('vaultbook.kernelSource');
@@ -150,17 +193,17 @@ function toKernel(value: unknown, type: FieldType, what: string): unknown {
   const known = Object.keys(type.object);
   for (const [key, field] of Object.entries(value as Record<string, unknown>)) {
     if (!(key in type.object)) {
-      throw new CellArgumentError(`unknown option "${key}" in ${what}; known options: ${known.join(', ')}`);
+      throw new CellArgumentError(`${what.replace(/:$/, '')}: unknown option "${key}"; known options: ${known.join(', ')}`);
     }
-    out[key] = toKernel(field, type.object[key]!, `${what}.${key}`);
+    out[key] = toKernel(field, type.object[key]!, what.endsWith(':') ? `${what} ${key}` : `${what}.${key}`);
   }
   return out;
 }
 
 function fromKernel(value: unknown, type: FieldType | undefined): unknown {
-  // A field that is not available stays itself, whatever its declared type.
-  if (isNotAvailable(value)) return value;
-  if (value === undefined || value === null || math.isUnit(value) || math.isMatrix(value)) return value;
+  // A field that does not exist in this state stays a NotAvailable (frozen, with its reason); an
+  // unbounded one is Infinity and gets its unit below like any other number.
+  if (value === undefined || value === null || math.isUnit(value) || math.isMatrix(value) || isNotAvailable(value)) return value;
   if (type === undefined || (typeof type === 'string' && KEYWORDS.has(type))) {
     if (Array.isArray(value)) return value.map((v) => fromKernel(v, undefined));
     if (typeof value === 'object') return fromKernel(value, { object: {} });
@@ -201,12 +244,24 @@ export function defineCellFunction<K>(spec: CellFunctionSpec<K>): CellFunction {
       const list = spec.params.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(', ');
       throw new CellArgumentError(`${spec.name} takes (${list}), got ${args.length} argument${args.length === 1 ? '' : 's'}`);
     }
-    const kernelArgs = args.map((a, i) => toKernel(a, spec.params[i]!.type, spec.params[i]!.name));
+    // Messages name an option as the document writes it ("arch_ring: thickness"), an argument by its name.
+    const kernelArgs = args.map((a, i) => {
+      const p = spec.params[i]!;
+      return toKernel(a, p.type, typeof p.type === 'object' && 'object' in p.type ? `${spec.name}:` : `${spec.name}: ${p.name}`);
+    });
     for (const name of spec.required ?? []) {
       const opts = kernelArgs[0] as Record<string, unknown>;
       if (opts?.[name] === undefined) throw new CellArgumentError(`${spec.name}: option "${name}" is required`);
     }
-    const raw = spec.fn(...kernelArgs);
+    let raw: unknown;
+    try {
+      raw = spec.fn(...kernelArgs);
+    } catch (err) {
+      if (!(err instanceof RangeError) || err instanceof KernelDomainError) throw err;
+      const given: GivenQuantity[] = [];
+      args.forEach((a, i) => givenQuantities(a, spec.params[i]!.type, given));
+      throw new KernelDomainError(err.message, given);
+    }
     const shown = fromKernel(raw, spec.returns);
     if (typeof shown === 'object' && shown !== null && !Array.isArray(shown) && !math.isUnit(shown)) {
       Object.defineProperty(shown, KERNEL_VALUE, { value: raw, enumerable: false });

@@ -5,7 +5,7 @@
  * that would let a document reach outside plain expressions, following the
  * "security" page of the mathjs documentation: a document is data, not code.
  */
-import { create, all, type MathJsInstance, type MathNode } from 'mathjs';
+import { create, all, type MathJsInstance, type MathNode, type Unit } from 'mathjs';
 
 const instance: MathJsInstance = create(all, { number: 'number', precision: 14, matrix: 'Array' });
 
@@ -18,6 +18,20 @@ instance.createUnit({
   plf: '14.593902937206 N/m',
   klf: '14593.902937206 N/m',
   kipft: '1355.8179483314 N m',
+  ksf: '47880.258980336 Pa',
+  kcf: '157087.46384624 N/m^3',
+});
+
+// atan2 of two quantities of the same dimension (H_y, H_x) is an angle, as in statics.
+instance.import({
+  atan2: instance.typed('atan2', {
+    'Unit, Unit': (y: Unit, x: Unit) => {
+      if (!y.equalBase(x)) throw new TypeError(`atan2 needs two values of the same kind, got ${y.formatUnits()} and ${x.formatUnits()}`);
+      const angle = instance.unit(Math.atan2(y.toSI().toNumber(), x.toSI().toNumber()), 'rad');
+      // A computed angle, not one written in rad: shown in degrees like every other angle.
+      return Object.assign(angle, { skipAutomaticSimplification: false });
+    },
+  }),
 });
 
 /** mathjs's import, captured before it is disabled: the engine registers cell functions with it. */

@@ -4,8 +4,8 @@
 export type Severity = 'error' | 'warning' | 'info';
 
 export type RuleId =
-  | 'parse/syntax' | 'parse/front-matter' | 'parse/cell'
-  | 'graph/cycle' | 'graph/unknown-name' | 'graph/duplicate' | 'graph/shadow-unit' | 'graph/shadow-function'
+  | 'parse/syntax' | 'parse/front-matter' | 'parse/cell' | 'parse/name'
+  | 'graph/cycle' | 'graph/unknown-name' | 'graph/unknown-field' | 'graph/duplicate' | 'graph/shadow-unit' | 'graph/shadow-function'
   | 'units/mismatch' | 'kernel/domain' | 'kernel/argument' | 'value/non-finite' | 'value/range'
   | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read'
   | 'cases/syntax' | 'cases/unknown-input' | 'cases/dimension' | 'cases/empty-family' | 'cases/duplicate' | 'cases/limit' | 'cases/unknown-case';
@@ -29,6 +29,8 @@ export interface Diagnostic {
 export interface StageContext {
   file: string;
   diagnostics: Diagnostic[];
+  /** Significant figures for numbers quoted in messages (the document's, default 4). */
+  sigfigs?: number;
 }
 
 /**

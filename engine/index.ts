@@ -10,6 +10,7 @@ import { readFrontMatter } from './parse/frontmatter.js';
 import { splitBlocks } from './parse/blocks.js';
 import { parseCells, type FailedStatement } from './parse/cell.js';
 import { buildGraph } from './graph/build.js';
+import { checkFields } from './graph/fields.js';
 import { bindGraph, type Session } from './runtime/bind.js';
 import { registerLibrary } from './library.js';
 import { readOverride } from './parse/override.js';
@@ -71,13 +72,15 @@ export function compile(source: string, options: CompileOptions = {}): CompiledD
   });
   applyOverrides(cells, options.overrides ?? {}, ctx);
   const graph = buildGraph(cells, failed, lib, ctx);
+  checkFields(graph, text, ctx);
   const cases = readCaseBook(blocks, graph, lib, ctx);
   return { file: ctx.file, source: text, meta, blocks, graph, diagnostics: ctx.diagnostics, cases };
 }
 
 /** Starts a live session on a compiled document. */
 export function startSession(doc: CompiledDocument): Session {
-  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics });
+  const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : undefined;
+  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics, ...(sigfigs ? { sigfigs } : {}) });
 }
 
 export interface Evaluation {

@@ -24,6 +24,8 @@ export interface CheckEntry {
   utilization: number | null;
   /** Why no verdict, when the check could not be evaluated. */
   blocked_by?: string;
+  /** The reason in full, when it is not a failure upstream (a field that is not available, a name defined twice). */
+  reason?: string;
   /** With cases (engine/cases): the case that sets the verdict, `case: null` for the document as written. */
   governing?: CaseVerdict;
   /** With cases: the check in each case it is judged in, in case order (the document as written first, as `case: null`). */
@@ -80,15 +82,17 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
         name: cell.name, source: cell.source, description: cell.description, line: cell.span.start.line,
         pass: result ? result.pass : null, utilization: result ? result.utilization : null,
         ...(blockedBy ? { blocked_by: blockedBy } : {}),
+        ...(state.status === 'blocked' && state.note ? { reason: state.note } : {}),
       });
     }
     if (!cell.name) continue;
     const json = state.status === 'ok'
       ? toJsonValue(state.value, { sigfigs }, cell.displayUnit)
-      : { value: null, unit: null, text: state.status === 'blocked' ? `not computed because ${state.by} failed` : state.status === 'error' ? `error: ${state.diagnostic.message}` : 'pending' };
+      : { value: null, unit: null, text: state.status === 'blocked' ? state.note ?? `not computed because ${state.by} failed` : state.status === 'error' ? `error: ${state.diagnostic.message}` : 'pending' };
     values[cell.name] = {
       ...json, kind: cell.kind, line: cell.span.start.line,
       ...(state.status === 'blocked' ? { blocked_by: state.by } : {}),
+      ...(state.status === 'blocked' && state.note ? { reason: state.note } : {}),
       ...(cell.overridden && cell.originalSource !== null ? { overridden_from: cell.originalSource } : {}),
     };
   }

@@ -111,7 +111,8 @@ export type CellState =
   | { status: 'pending' }
   | { status: 'ok'; value: unknown }
   | { status: 'error'; diagnostic: Diagnostic }
-  | { status: 'blocked'; by: string };
+  /** `note`, when set, says why in full ("not computed: a.H_min is not available — …"). */
+  | { status: 'blocked'; by: string; note?: string };
 
 /** One line of a ```cases cell (read by engine/cases): a case, or a family when a value is a list. */
 export interface CaseLine {

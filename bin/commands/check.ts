@@ -13,12 +13,12 @@ import type { CheckEntry } from '../../engine/summary.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 
-export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null } }, withCases = false): string {
+export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; reason?: string }, withCases = false): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
   const u = c.utilization === null ? '     ' : formatUtilization(c.utilization, c.pass).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
   const governs = withCases && c.governing ? `  [governing: ${c.governing.case ?? 'as written'}]` : '';
-  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}${governs}`;
+  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}${governs}${c.reason ? `\n                     ${c.reason}` : ''}`;
 }
 
 export function exitCodeFor(results: Loaded[]): number {

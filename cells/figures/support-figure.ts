@@ -78,8 +78,8 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
     [b.middle_third ? 'within the middle third of the base' : b.in_base ? 'OUTSIDE the middle third: part of the base lifts' : 'OUTSIDE the base: the support overturns', b.middle_third ? INK : RED],
     [`overturning: safety factor ${b.sf_overturning.toFixed(2)}`, b.sf_overturning < 1 ? RED : INK],
     [`least base width: ${metres(b.width_min_third)} (middle third), ${metres(b.width_min_base)} (in base)`, INK],
-    ...(b.sigma_max !== undefined ? [[`base pressure: max ${kilonewtons(b.sigma_max, 'kN/m²')}, min ${kilonewtons(b.sigma_min ?? 0, 'kN/m²')}`, INK]] : []),
-    ...(b.sf_sliding !== undefined ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
+    ...(typeof b.sigma_max === 'number' ? [[`base pressure: max ${kilonewtons(b.sigma_max, 'kN/m²')}, min ${kilonewtons(typeof b.sigma_min === 'number' ? b.sigma_min : 0, 'kN/m²')}`, INK]] : []),
+    ...(typeof b.sf_sliding === 'number' ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
   ] as Array<[string, string]>;
   body += lines.map(([t, c], i) => text(112, 30 + i * 5, t, { fill: c, 'font-weight': c === RED ? 'bold' : undefined, 'font-size': 2.3 })).join('');
   body += legendItem({ x: 112, y: 20 }, PATH, 'path of the resultant') + legendItem({ x: 112, y: 24.5 }, THIRD, 'middle third of each section');

@@ -4,6 +4,7 @@
 import { buttressBlocks, type ButtressOptions } from './blocks.js';
 import { thrustPath, type PathPoint } from './thrust-path.js';
 import { widthMin } from './width-min.js';
+import { notAvailable, type NotAvailable } from '../not-available.js';
 
 export interface Buttress {
   /** Base width (m), weight of the masonry (N) and normal force on the base (N). */
@@ -13,15 +14,15 @@ export interface Buttress {
   middle_third: boolean; in_base: boolean;
   /** Restoring over overturning moment about the outer toe. */
   sf_overturning: number;
-  /** Base pressures (Pa); left out when the resultant is outside the base, where no pressure can balance it. */
-  sigma_max?: number; sigma_min?: number;
-  /** µ·N/T, when friction is given. */
-  sf_sliding?: number;
+  /** Base pressures (Pa); not available when the resultant is outside the base, where no pressure can balance it. */
+  sigma_max: number | NotAvailable; sigma_min: number | NotAvailable;
+  /** µ·N/T; not available when no friction is given. */
+  sf_sliding: number | NotAvailable;
   /** Least base width keeping the resultant in the middle third / in the base, widening every level alike (m). */
   width_min_third: number; width_min_base: number;
   path: PathPoint[];
-  /** sigma_max ≤ bearing (and the resultant in the base), when bearing is given. */
-  bearing_ok?: boolean;
+  /** sigma_max ≤ bearing (and the resultant in the base); not available when no bearing is given. */
+  bearing_ok: boolean | NotAvailable;
 }
 
 /**
@@ -51,14 +52,19 @@ export function buttress(o: ButtressOptions): Buttress {
   const xInner = (Mw + V * xV + T * z_T) / N;
   const x_R = B - xInner, e = xInner - B / 2;
   const in_base = x_R > 0 && xInner > 0;
+  const sf_overturning = restoring / (T * z_T);
+  const overturns = notAvailable(`the resultant falls outside the base: the wall overturns (sf_overturning ${sf_overturning.toFixed(2)})`);
   const result: Buttress = {
     base_width: B, W_self: W, N, x_R, e,
     middle_third: Math.abs(e) <= B / 6 * (1 + 1e-12),
     in_base,
-    sf_overturning: restoring / (T * z_T),
+    sf_overturning,
     width_min_third: widthMin(blocks, k, V, xV, T, z_T, 2 / 3),
     width_min_base: widthMin(blocks, k, V, xV, T, z_T, 1),
     path: thrustPath(blocks, k, V, xV, T, z_T),
+    sigma_max: overturns, sigma_min: overturns,
+    sf_sliding: o.friction === undefined ? notAvailable('no friction coefficient is given') : (o.friction * N) / T,
+    bearing_ok: notAvailable('no allowable bearing pressure is given'),
   };
   if (in_base) {
     const area = B * o.depth;
@@ -71,7 +77,6 @@ export function buttress(o: ButtressOptions): Buttress {
       result.sigma_min = 0;
     }
   }
-  if (o.friction !== undefined) result.sf_sliding = (o.friction * N) / T;
-  if (o.bearing !== undefined) result.bearing_ok = in_base && result.sigma_max! <= o.bearing;
+  if (o.bearing !== undefined) result.bearing_ok = in_base && (result.sigma_max as number) <= o.bearing;
   return result;
 }

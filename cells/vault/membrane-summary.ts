@@ -7,6 +7,7 @@ import type { RadiusLaw } from './membrane-radius-law.js';
 import { membraneField, type MembraneField, type MembraneForces } from './membrane-field.js';
 import { largest } from './membrane-extremes.js';
 import { integrate } from './profiles/integrate.js';
+import { notAvailable, type NotAvailable } from '../not-available.js';
 
 /** Summary of a barrel vault's membrane state (SI; compression negative). */
 export interface BarrelMembrane {
@@ -30,8 +31,8 @@ export interface BarrelMembrane {
   end_shear: number;
   /** Total load on the vault (N). */
   W: number;
-  /** Largest principal compressive stress |N2|/t (Pa), when the thickness is known. */
-  sigma_max?: number;
+  /** Largest principal compressive stress |N2|/t (Pa); not available when no thickness is given. */
+  sigma_max: number | NotAvailable;
   /** The field, for membrane_at (not shown in a sheet). */
   readonly field: MembraneField;
   /** The middle surface (not shown in a sheet). */
@@ -101,7 +102,7 @@ export function membraneSummary(
     N_x_max: Math.min(0, Gmin * l * l), N_x_min: Math.max(0, Gmax * l * l),
     tension: N1 > 1e-9 * scale,
     V_wall: -NphiS * Math.sin(phiS), H_wall: -NphiS * Math.cos(phiS), end_shear: endShear, W,
-    ...(thickness === undefined ? {} : { sigma_max: Math.max(0, -N2) / thickness }),
+    sigma_max: thickness === undefined ? notAvailable('no thickness is given (the load came as g)') : Math.max(0, -N2) / thickness,
   };
   for (const [name, value] of Object.entries(out) as Array<[keyof typeof out, unknown]>) {
     if (typeof value !== 'number') continue;

@@ -63,7 +63,7 @@ export const barrel_membrane = defineCellFunction({
       H_wall: 'Horizontal thrust per unit length delivered by N_φ to each lateral wall, positive outwards.',
       end_shear: 'Net vertical force each end wall receives from the membrane shear N_xφ (its horizontal parts cancel by symmetry).',
       W: 'Total load on the vault between the end walls.',
-      sigma_max: 'Largest principal compressive stress |N2|/thickness, a magnitude. Present only when thickness is given.',
+      sigma_max: 'Largest principal compressive stress |N2|/thickness, a magnitude. Not available when no thickness is given (the load came as g).',
     },
     method: 'Membrane theory of a cylindrical shell with φ the inclination of the normal and x from mid-length: N_φ = −R·(g·cos φ + p·cos²φ) from the normal equilibrium, '
       + 'N_xφ = F(φ)·x and N_x = F′(φ)·(l² − x²)/(2R) from the other two, with N_xφ = 0 at mid-length (symmetry) and N_x = 0 at the end walls. '

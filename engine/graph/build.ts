@@ -60,7 +60,11 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
     const prior = byId.get(cell.id);
     if (prior || (cell.name && failedNames.has(cell.name))) {
       const line = prior ? prior.span.start.line : failedStatements.find((f) => f.name === cell.name)!.diagnostic.line;
-      ctx.diagnostics.push(diag(ctx, cell.span, cell.id, 'graph/duplicate', `"${cell.id}" is already defined on line ${line}`));
+      const d = diag(ctx, cell.span, cell.id, 'graph/duplicate', `"${cell.id}" is defined twice (lines ${line} and ${cell.span.start.line})`,
+        'keep one definition, or rename the other');
+      ctx.diagnostics.push(d);
+      // Which of the two is meant is unknown: the first is not used either, so its dependents say why.
+      if (prior && !failed.has(prior.id)) failed.set(prior.id, d);
       continue;
     }
     byId.set(cell.id, cell);
@@ -80,7 +84,7 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
 
   for (const cell of kept) {
     if (cell.name && lib.functions.has(cell.name)) {
-      fail(diag(ctx, cell.span, cell.id, 'graph/shadow-function', `"${cell.name}" is the name of a vault function; choose another name`));
+      fail(diag(ctx, cell.span, cell.id, 'graph/shadow-function', `"${cell.name}" is the name of a vault function; choose another name, e.g. "${cell.name}_1" or a descriptive one`));
       continue;
     }
     const user = cell.name ? unitUses.get(cell.name) : undefined;
@@ -107,7 +111,8 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
         }
         continue;
       }
-      if (defined.has(use.name)) {
+      // A call of a vault function stays one even where the document wrongly defines that name too.
+      if (defined.has(use.name) && !(use.role === 'call' && lib.functions.has(use.name))) {
         if (use.role === 'call') {
           fail(diag(ctx, cell.span, cell.id, 'eval/error', `"${use.name}" is a value defined in this document, not a function`));
         } else if (!cell.uses.includes(use.name)) {

@@ -7,8 +7,8 @@ import type { CalcBlock, Cell, Position, Span, ValueRange } from '../types.js';
 import type { Diagnostic, RuleId, StageContext } from '../diagnostic.js';
 import { compactUnit } from '../values/format.js';
 import { splitStatements, locateInStatement, type RawStatement } from './statements.js';
+import { NAME_PREFIX, nameProblem } from './name.js';
 
-const NAME_PREFIX = /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/;
 const RANGE_SUFFIX = /\[([^[\]]+),([^[\]]+)\]\s*$/;
 
 /** A statement that could not become a cell; the graph treats its name (if any) as failed. */
@@ -90,6 +90,11 @@ export function parseCells(block: CalcBlock, index: number, ctx: StageContext): 
     };
     if (stmt.unclosed) {
       fail('a bracket opened here is never closed before the end of the cell', 'parse/syntax');
+      continue;
+    }
+    const refused = nameProblem(stmt.code);
+    if (refused) {
+      fail(refused, 'parse/name');
       continue;
     }
     let node: MathNode;

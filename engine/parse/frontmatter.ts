@@ -1,7 +1,7 @@
 /**
  * Front matter: a YAML mapping between `---` lines at the very top.
  */
-import { parseDocument } from 'yaml';
+import { parseDocument, type YAMLError } from 'yaml';
 import type { Meta } from '../types.js';
 import type { StageContext } from '../diagnostic.js';
 
@@ -31,11 +31,9 @@ export function readFrontMatter(source: string, ctx: StageContext): FrontMatter 
   const length = open[0].length - 1 + close.index + close[0].length;
   const doc = parseDocument(yamlText, { prettyErrors: true, uniqueKeys: true });
   if (doc.errors.length > 0) {
-    for (const err of doc.errors) {
-      const line = (err.linePos?.[0]?.line ?? 1) + 1;
-      const column = err.linePos?.[0]?.col ?? 1;
-      ctx.diagnostics.push(at(ctx, line, column, `front matter: ${err.message.split('\n')[0]}`, 'parse/front-matter'));
-    }
+    // The first error is the slip; the rest are usually its echoes further down.
+    const { line, column, message } = yamlProblem(doc.errors[0]!, yamlText);
+    ctx.diagnostics.push(at(ctx, line + 1, column, `front matter: ${message}`, 'parse/front-matter'));
     return { meta: {}, length };
   }
   const data: unknown = doc.toJS({ maxAliasCount: 50 });
@@ -45,6 +43,35 @@ export function readFrontMatter(source: string, ctx: StageContext): FrontMatter 
     return { meta: {}, length };
   }
   return { meta: data as Meta, length };
+}
+
+/**
+ * Where a YAML error is and what it means, in the front matter's own lines (1-based). An unclosed
+ * quote or bracket is reported where it opens, not at the end of the text where the parser gave up.
+ */
+function yamlProblem(err: YAMLError, text: string): { line: number; column: number; message: string } {
+  const lines = text.split('\n');
+  const words = err.message.split('\n')[0]!.replace(/ at line \d+, column \d+:?\s*$/, '');
+  const opener = /Missing closing (["'])quote/.exec(words)?.[1] ?? (/end with a \]/.test(words) ? '[' : /end with a \}/.test(words) ? '{' : null);
+  if (opener) {
+    const closer = opener === '[' ? ']' : opener === '{' ? '}' : opener;
+    for (let i = 0; i < lines.length; i++) {
+      const code = lines[i]!;
+      const opens = code.split(opener).length - 1, closes = opener === closer ? 0 : code.split(closer).length - 1;
+      if (opener === closer ? opens % 2 === 1 : opens > closes) {
+        const kind = opener === '[' ? 'a list [ … ]' : opener === '{' ? 'a record { … }' : `a value in quotes (${opener})`;
+        return { line: i + 1, column: code.lastIndexOf(opener) + 1, message: `${kind} opened here is never closed; add ${closer} at its end` };
+      }
+    }
+  }
+  const line = err.linePos?.[0]?.line ?? 1, column = err.linePos?.[0]?.col ?? 1;
+  const key = /^\s*([^:#]+?)\s*:/.exec(lines[line - 1] ?? '')?.[1];
+  const plain: Record<string, string> = {
+    DUPLICATE_KEY: `"${key ?? 'this key'}" is given twice; keep one`,
+    TAB_AS_INDENT: 'tabs cannot indent front matter; use spaces',
+    BLOCK_AS_IMPLICIT_KEY: 'a value containing ": " must be written in quotes, e.g. title: "Bay 3: nave"',
+  };
+  return { line, column, message: plain[err.code] ?? words };
 }
 
 function at(ctx: StageContext, line: number, column: number, message: string, ruleId: 'parse/front-matter') {

@@ -39,7 +39,8 @@ export function commentStart(line: string, quote: string | null = null, onCode?:
       else if (c === quote) quote = null;
       continue;
     }
-    if (c === '"' || c === "'") quote = c;
+    // A ' right after a name or a bracket is mathjs's transpose (or a prime, L'), not a quote.
+    if (c === '"' || (c === "'" && !/[\p{L}\p{N}_)\]]/u.test(line[i - 1] ?? ''))) quote = c;
     else if (c === '#') return { at: i, quote: null };
     else onCode?.(c);
   }

@@ -108,7 +108,7 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
       + `<div class="vb-out">${verdictHtml(elsewhere.verdict, elsewhere.utilization)}</div>`;
   }
   const r = state.status === 'ok' ? (state.value as CheckResult) : null;
-  const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc) : '';
+  const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc, state.note) : '';
   const verdict = verdictOf(state);
   const records: MathNode[] = [];
   return `<div class="vb-work"><div class="vb-math">${typeset(workingTex(cell, r, ctx, records), true)}</div>${recordsHtml(records, ctx)}${trouble}</div>`

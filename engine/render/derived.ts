@@ -58,7 +58,7 @@ function resultHtml(cell: Cell, value: unknown, ctx: RenderContext): string {
 /** Status-dependent notes under the working. */
 function troubleHtml(state: CellState, ctx: RenderContext): string {
   if (state.status === 'error') return diagnosticHtml(state.diagnostic);
-  if (state.status === 'blocked') return blockedHtml(state.by, ctx.doc);
+  if (state.status === 'blocked') return blockedHtml(state.by, ctx.doc, state.note);
   if (state.status === 'pending') return '<div class="vb-blocked">…</div>';
   return '';
 }

@@ -21,8 +21,12 @@ export function diagnosticHtml(d: Diagnostic): string {
     + `<span class="vb-diag-msg">${escapeHtml(d.message)}</span> <span class="vb-rule">[${escapeHtml(d.ruleId)}]</span>${note}${detail}</div>`;
 }
 
-/** A cell that was not computed because another failed. */
-export function blockedHtml(by: string, doc: CompiledDocument): string {
+/**
+ * A cell that was not computed because another failed, or (with a note) for the reason the note
+ * gives: a field that is not available, a name defined twice.
+ */
+export function blockedHtml(by: string, doc: CompiledDocument, note?: string): string {
+  if (note) return `<div class="vb-blocked" role="note"><span aria-hidden="true">⊘</span> ${escapeHtml(note)}</div>`;
   const source = doc.graph.byId.get(by);
   const where = source ? ` (line ${source.span.start.line})` : '';
   return `<div class="vb-blocked" role="note"><span aria-hidden="true">⊘</span> not computed: it needs <a href="#${anchorId(by)}"><code>${escapeHtml(by)}</code></a>${where}, which failed.</div>`;

@@ -47,5 +47,6 @@ export function texText(text: string): string {
  * @example anchorId('check@L30') // "cell-check-L30"
  */
 export function anchorId(cellId: string): string {
-  return `cell-${cellId.replace(/[^A-Za-z0-9_-]/g, '-')}`;
+  // Letters of any script stay (γ and λ must not share an anchor); HTML ids may hold them.
+  return `cell-${cellId.replace(/[^\p{L}\p{N}_-]/gu, '-')}`;
 }

@@ -21,7 +21,7 @@ export function renderFigureOutput(cell: Cell, state: CellState, ctx: RenderCont
       return `<div class="vb-diag vb-diag--error" role="note"><span class="vb-diag-word">NOT A FIGURE</span> this value was not drawn by a figure function, so it is shown as text:</div>`
         + `<pre class="vb-text">${escapeHtml(String(state.value))}</pre>`;
     case 'error': return diagnosticHtml(state.diagnostic);
-    case 'blocked': return blockedHtml(state.by, ctx.doc);
+    case 'blocked': return blockedHtml(state.by, ctx.doc, state.note);
     default: return '<div class="vb-blocked">…</div>';
   }
 }

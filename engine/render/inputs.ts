@@ -31,7 +31,7 @@ export function renderInputOutput(cell: Cell, state: CellState, ctx: RenderConte
   switch (state.status) {
     case 'ok': out = input(valueHtml(state.value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit })); break;
     case 'error': out = input('<span class="vb-none">—</span>') + diagnosticHtml(state.diagnostic); break;
-    case 'blocked': out = input('<span class="vb-none">—</span>') + blockedHtml(state.by, ctx.doc); break;
+    case 'blocked': out = input('<span class="vb-none">—</span>') + blockedHtml(state.by, ctx.doc, state.note); break;
     default: out = input('<span class="vb-none">…</span>');
   }
   if (cell.overridden) {

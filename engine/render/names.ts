@@ -9,6 +9,22 @@ const GREEK = new Set([
   'Gamma', 'Delta', 'Theta', 'Lambda', 'Xi', 'Pi', 'Sigma', 'Upsilon', 'Phi', 'Psi', 'Omega',
   'varepsilon', 'vartheta', 'varphi', 'varrho', 'varsigma',
 ]);
+/** Greek letters as mathjs reads them in names, by the TeX name of the letter. */
+const UNICODE_GREEK: Record<string, string> = Object.fromEntries([
+  ...'αβγδεζηθικλμνξοπρστυφχψω'].map((c, i) => [c, ['alpha', 'beta', 'gamma', 'delta', 'epsilon', 'zeta', 'eta', 'theta', 'iota',
+  'kappa', 'lambda', 'mu', 'nu', 'xi', 'omicron', 'pi', 'rho', 'sigma', 'tau', 'upsilon', 'phi', 'chi', 'psi', 'omega'][i]!])
+  .concat([['ς', 'varsigma'], ['ϕ', 'phi'], ['ϑ', 'vartheta'], ['ϵ', 'epsilon'], ['Γ', 'Gamma'], ['Δ', 'Delta'], ['Θ', 'Theta'],
+    ['Λ', 'Lambda'], ['Ξ', 'Xi'], ['Π', 'Pi'], ['Σ', 'Sigma'], ['Υ', 'Upsilon'], ['Φ', 'Phi'], ['Ψ', 'Psi'], ['Ω', 'Omega']]));
+
+/** A name with letters TeX has no command for (Länge, ℓ): the word in text italic, subscripts as usual. */
+function otherLettersTex(name: string): string {
+  const [first, ...rest] = name.split('_');
+  const word = (w: string) => (/^[A-Za-z0-9]+$/.test(w) ? subscriptPart(w) : `\\textit{${w.replace(/[\\{}$&#^%~]/g, '')}}`);
+  const base = word(first ?? '');
+  const parts = rest.filter((p) => p !== '').map(word);
+  return parts.length ? `{${base}}_{${parts.join(',')}}` : base;
+}
+
 /** Engineering texts write these in their open forms. */
 const GREEK_ALIAS: Record<string, string> = { phi: '\\varphi', epsilon: '\\varepsilon', omicron: 'o' };
 /** Subscripts typeset as upright operator words. */
@@ -46,7 +62,9 @@ function baseTex(base: string): { tex: string; digits: string | null } {
  * @example symbolTex('sigma_max') // "\\sigma_{\\max}"
  */
 export function symbolTex(name: string): string {
-  if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(name)) return `\\mathrm{${name.replace(/[^A-Za-z0-9]/g, '')}}`;
+  // Greek letters written as themselves (γ_M, λ1) are typeset as their TeX names are.
+  name = [...name].map((c) => (UNICODE_GREEK[c] ? `${UNICODE_GREEK[c]}\u0000` : c)).join('').replace(/\u0000(?=[_\d]|$)/g, '').replace(/\u0000/g, '_');
+  if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(name)) return otherLettersTex(name);
   const [first, ...rest] = name.split('_');
   // A name starting with '_' or with empty parts ("a__b") is shown plainly, escaped.
   if (!first || rest.some((p) => p === '')) return `\\mathit{${name.replace(/_/g, '\\_')}}`;

@@ -5,8 +5,10 @@ import type { EvalFunction, MathNode, Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { Cell, CheckResult } from '../types.js';
 import type { Diagnostic, StageContext } from '../diagnostic.js';
-import { CellFailure } from './failure.js';
+import { CellFailure, NotComputed } from './failure.js';
 import { explainError } from './explain.js';
+import { checkReads, checkCalledReads } from './reads.js';
+import { isNotAvailable } from '../../cells/not-available.js';
 import { formatValue } from '../values/format.js';
 
 type AnyNode = MathNode & { fn?: string; args?: MathNode[] };
@@ -28,6 +30,24 @@ function compiledOf(node: MathNode): EvalFunction {
 
 const OPS: Record<string, CheckResult['op']> = { smallerEq: '<=', largerEq: '>=', smaller: '<', larger: '>' };
 
+/** Does the expression read an infinite value (an input, a field such as a.H_max, or Infinity itself)? */
+function readsInfinity(node: MathNode, scope: Map<string, unknown>): boolean {
+  let found = false;
+  node.traverse((n) => {
+    if (found) return;
+    const any = n as AnyNode & { name?: string };
+    if (any.type === 'SymbolNode' && (any.name === 'Infinity' || (scope.has(any.name!) && isNonFinite(scope.get(any.name!))))) found = true;
+    else if (any.type === 'AccessorNode') {
+      try {
+        found = isNonFinite(compiledOf(n).evaluate(scope));
+      } catch {
+        // An accessor that cannot be evaluated on its own reads nothing infinite.
+      }
+    }
+  });
+  return found;
+}
+
 function isNonFinite(v: unknown): boolean {
   if (typeof v === 'number') return !Number.isFinite(v);
   if (math.isUnit(v)) {
@@ -35,6 +55,11 @@ function isNonFinite(v: unknown): boolean {
     return typeof x === 'number' && !Number.isFinite(x);
   }
   return false;
+}
+
+function isInfinite(v: unknown): boolean {
+  const x = math.isUnit(v) ? (v as Unit).value : v;
+  return x === Infinity || x === -Infinity;
 }
 
 /** A figure is SVG text from a figure function (or an object carrying it). */
@@ -77,6 +102,25 @@ function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
   return { isCheck: true, source: cell.source, op: null, demand: null, capacity: null, utilization: null, pass: value };
 }
 
+/** What is wrong with a value a line gives, when something is: never a silent NaN, "—" or complex number. */
+function valueProblem(cell: Cell, value: unknown, scope: Map<string, unknown>): { message: string; ruleId: Diagnostic['ruleId'] } | null {
+  // ∞ read from an input (a ring that never collapses) is a value; ∞ or NaN made here is an error.
+  if (isNonFinite(value) && !(isInfinite(value) && readsInfinity(cell.node, scope))) {
+    return { message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, ruleId: 'value/non-finite' };
+  }
+  if (math.isComplex(value)) {
+    return { message: `the result is the complex number ${String(value)}: a square root, power or logarithm of a negative value`, ruleId: 'value/non-finite' };
+  }
+  if (value === undefined) {
+    // An index by a name (a[k]) can reach a field that is not there.
+    return { message: 'this line gives no value: it reads something that does not exist (a field or an item that is not there)', ruleId: 'value/type' };
+  }
+  if (cell.kind === 'figure' && !isFigureValue(value)) {
+    return { message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, ruleId: 'value/type' };
+  }
+  return null;
+}
+
 /**
  * Evaluates a cell. Throws CellFailure (with a located diagnostic) when it fails.
  * @param inputs values of cell.uses, in the same order
@@ -86,25 +130,23 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
   cell.uses.forEach((name, i) => scope.set(name, inputs[i]));
   let value: unknown;
   try {
+    checkReads(cell, (node) => compiledOf(node).evaluate(scope), ctx.file);
     value = cell.kind === 'check' ? evaluateCheck(cell, scope) : compiledOf(cell.node).evaluate(scope);
   } catch (err) {
+    if (err instanceof CellFailure || err instanceof NotComputed) throw err;
+    checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
     throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
   }
-  if (isNonFinite(value)) {
-    const d: Diagnostic = {
-      message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, file: ctx.file,
-      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
-      cellId: cell.id, ruleId: 'value/non-finite', severity: 'error',
-    };
-    throw new CellFailure(cell.id, d);
+  if (isNotAvailable(value)) {
+    checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
+    throw new NotComputed(cell.id, cell.uses[0] ?? cell.id, `not computed: ${value.toString().replace(/^not available/, 'a value it reads is not available')}`);
   }
-  if (cell.kind === 'figure' && !isFigureValue(value)) {
-    const d: Diagnostic = {
-      message: `a figure line must give a figure (e.g. section(r, a)); this gives ${formatValue(value)}`, file: ctx.file,
-      line: cell.span.start.line, column: cell.span.start.column, endLine: cell.span.end.line, endColumn: cell.span.end.column,
-      cellId: cell.id, ruleId: 'value/type', severity: 'error',
-    };
-    throw new CellFailure(cell.id, d);
+  const problem = valueProblem(cell, value, scope);
+  if (problem) {
+    throw new CellFailure(cell.id, {
+      message: problem.message, file: ctx.file, line: cell.span.start.line, column: cell.span.start.column,
+      endLine: cell.span.end.line, endColumn: cell.span.end.column, cellId: cell.id, ruleId: problem.ruleId, severity: 'error',
+    });
   }
   return value;
 }

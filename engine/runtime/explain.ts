@@ -3,8 +3,12 @@
  */
 import type { MathNode, Unit } from 'mathjs';
 import { math, SandboxError } from '../../cells/math.js';
-import { UnitMismatchError, describeDimension } from '../../cells/units.js';
-import { CellArgumentError } from '../../cells/define.js';
+import { UnitMismatchError, describeDimension, massForceHint, ownUnits } from '../../cells/units.js';
+import { CellArgumentError, KernelDomainError } from '../../cells/define.js';
+import { displayUnitOf } from '../values/format.js';
+import { suggestName } from '../graph/suggest.js';
+import { quoteInUserUnits } from './quote.js';
+import { plainWords } from './plain-words.js';
 import type { Cell } from '../types.js';
 import type { Diagnostic, RuleId, StageContext } from '../diagnostic.js';
 
@@ -22,12 +26,11 @@ const VERBS: Record<string, (a: string, b: string) => string> = {
   to: (a, b) => `cannot convert ${a} to ${b}`,
 };
 
+/** A value's dimension with the units the document wrote, or the display unit where mathjs combined them. */
 function unitLabel(v: unknown): string {
   if (math.isUnit(v)) {
     const u = v as Unit;
-    const d = describeDimension(u);
-    const own = u.formatUnits().replace(/\s*\/\s*/g, '/');
-    return d.replace(/\(([^)]*)\)$/, `(${own || '$1'})`);
+    return describeDimension(u).replace(/\(([^)]*)\)$/, `(${ownUnits(u) ?? displayUnitOf(u)})`);
   }
   return describeDimension(v);
 }
@@ -43,27 +46,40 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
       return findUnitClash(k, scope);
     }
   }
+  if (node.type === 'FunctionNode' && node.args?.length) {
+    // A function comparing its arguments (interp, clamp, min, max): name the first two kinds that differ.
+    const first = (v: unknown): unknown => (Array.isArray(v) ? first(v[0]) : math.isMatrix(v) ? first((v as { toArray(): unknown[] }).toArray()) : v);
+    const labels = [...new Set(node.args.map((a) => unitLabel(first(a.compile().evaluate(scope)))))];
+    if (labels.length >= 2) return `cannot compare ${labels[0]} with ${labels[1]} in "${node.toString()}"`;
+  }
   if (node.type === 'OperatorNode' && typeof node.fn === 'string' && VERBS[node.fn] && node.args?.length === 2) {
     const a = node.args[0]!.compile().evaluate(scope);
     const b = node.fn === 'to' ? math.unit(node.args[1]!.toString()) : node.args[1]!.compile().evaluate(scope);
-    return `${VERBS[node.fn](unitLabel(a), unitLabel(b))} in "${node.toString()}"`;
+    const hint = math.isUnit(a) && math.isUnit(b) ? massForceHint(a, b as Unit) || massForceHint(b, a as Unit) : '';
+    return `${VERBS[node.fn](unitLabel(a), unitLabel(b))} in "${node.toString()}"${hint}`;
   }
   return null;
 }
 
-function classify(err: unknown): { ruleId: RuleId; message: string; actual?: string; expected?: string } {
+/** "did you mean" for an unknown option, from the list the message gives. */
+function withOptionGuess(message: string): string {
+  const m = /unknown option "([^"]+)"; known options: (.*)$/.exec(message);
+  const guess = m ? suggestName(m[1]!, m[2]!.split(', ')) : null;
+  return guess ? message.replace(/; known options:/, `; did you mean "${guess}"? Known options:`) : message;
+}
+
+function classify(err: unknown, sigfigs?: number): { ruleId: RuleId; message: string; actual?: string; expected?: string } {
   const message = err instanceof Error ? err.message : String(err);
   if (err instanceof UnitMismatchError) return { ruleId: 'units/mismatch', message, actual: err.actual, expected: err.expected };
-  if (err instanceof CellArgumentError) return { ruleId: 'kernel/argument', message };
+  if (err instanceof CellArgumentError) return { ruleId: 'kernel/argument', message: withOptionGuess(message) };
+  if (err instanceof KernelDomainError) return { ruleId: 'kernel/domain', message: quoteInUserUnits(message, err.given, sigfigs) };
   if (err instanceof SandboxError || /No access to (property|method)/.test(message)) {
     return { ruleId: 'sandbox/refused', message: message.replace(/^No access to/, 'a calc document has no access to') };
   }
   if (err instanceof RangeError && !/Dimension mismatch|Index out of range/.test(message)) return { ruleId: 'kernel/domain', message };
   if (/Units do not match|Cannot compare units|base units/i.test(message)) return { ruleId: 'units/mismatch', message };
-  if (/Unexpected type of argument/.test(message)) {
-    return { ruleId: 'units/mismatch', message: message.replace(/\s*\(index: \d+\)/, '').replace(/Unexpected type of argument in function (\w+)/, 'cannot use these values in $1') };
-  }
-  return { ruleId: 'eval/error', message };
+  if (/Unexpected type of argument/.test(message)) return { ruleId: 'units/mismatch', message: plainWords(message) };
+  return { ruleId: 'eval/error', message: plainWords(message) };
 }
 
 /**
@@ -71,14 +87,21 @@ function classify(err: unknown): { ruleId: RuleId; message: string; actual?: str
  * @param scope the cell's inputs, used to name the two sides of a unit clash
  */
 export function explainError(err: unknown, cell: Cell, scope: Map<string, unknown>, ctx: StageContext): Diagnostic {
-  const c = classify(err);
+  const c = classify(err, ctx.sigfigs);
   let message = c.message;
   if (c.ruleId === 'units/mismatch' && !(err instanceof UnitMismatchError)) {
     try {
       message = findUnitClash(cell.node as AnyNode, scope) ?? message;
     } catch {
-      // Keep mathjs's own words when the clash cannot be isolated.
+      // Keep the plain-words version of mathjs's message when the clash cannot be isolated.
     }
+  }
+  message = plainWords(message);
+  // mathjs names the wrong trigonometric function in its message (cot for cos): name the one written.
+  const trig = /^(\w+)\(…\) needs an angle/.exec(message);
+  if (trig) {
+    const written = (cell.node as MathNode).filter((n) => n.type === 'FunctionNode' && /^(a?(sin|cos|tan|sec|csc|cot)h?)$/.test(String((n as AnyNode & { name?: string }).name)));
+    if (written.length === 1) message = message.replace(trig[1]!, String((written[0] as AnyNode & { name?: string }).name));
   }
   return {
     message, file: ctx.file, line: cell.span.start.line, column: cell.span.start.column,

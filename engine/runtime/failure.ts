@@ -11,3 +11,15 @@ export class CellFailure extends Error {
     super(diagnostic.message);
   }
 }
+
+/**
+ * Thrown when a cell cannot be computed although nothing in it is wrong: it reads a field that is
+ * not available in the state the kernel found. The cell is blocked by the cell holding the record,
+ * with the reason in full; it is not an error of the document.
+ */
+export class NotComputed extends Error {
+  override name = 'NotComputed';
+  constructor(readonly cellId: string, readonly by: string, readonly note: string) {
+    super(note);
+  }
+}

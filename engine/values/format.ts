@@ -4,6 +4,7 @@
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { CheckResult } from '../types.js';
+import { isNotAvailable } from '../../cells/not-available.js';
 
 /** Preferred display unit for each SI dimension; a value's own unit wins when it was written by hand. */
 const PREFERRED: Array<[string, (v: number) => string]> = [
@@ -146,6 +147,7 @@ export function formatValue(value: unknown, opts: FormatOptions = {}, unit?: str
   if (math.isMatrix(value)) return formatValue((value as { toArray(): unknown[] }).toArray(), opts);
   if (Array.isArray(value)) return `[${value.map((v) => formatValue(v, opts)).join(', ')}]`;
   if (value === null || value === undefined) return '—';
+  if (isNotAvailable(value)) return String(value);
   if (typeof value === 'object') {
     const fields = Object.entries(value as Record<string, unknown>).filter(([, v]) => typeof v !== 'function');
     return `{${fields.map(([k, v]) => `${k}: ${formatValue(v, opts)}`).join(', ')}}`;

@@ -60,7 +60,13 @@ describe('buildGraph — dependencies and static problems', () => {
 
   it('reports a duplicate definition at the second one', () => {
     const doc = compile(fence('given', 'L = 6 m', 'L = 7 m'));
-    expect(doc.diagnostics).toMatchObject([{ ruleId: 'graph/duplicate', line: 3, message: '"L" is already defined on line 2' }]);
+    expect(doc.diagnostics).toMatchObject([{ ruleId: 'graph/duplicate', line: 3, message: '"L" is defined twice (lines 2 and 3)' }]);
+  });
+
+  it('blocks what uses a name defined twice, saying so', async () => {
+    const s = sessionOf(fence('given', 'a_w = 3 m', 'a_w = 4 m') + fence('calc', 'q = a_w * 2'));
+    await s.settle();
+    expect(s.states.get('q')).toEqual({ status: 'blocked', by: 'a_w', note: 'not computed because "a_w" is defined twice (lines 2 and 3)' });
   });
 
   it('blocks dependents of a failed cell instead of repeating its message', async () => {

@@ -94,7 +94,9 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   const p = thrustProgram(ring, ring.thickness, loads);
   const sliding: SlidingRatio[] = [];
   const least = solveAdmissible(p, [-1, 0, 0], {}, solve);
-  const unsafe = 'no line of thrust fits within the ring under these loads';
+  const t_min = minimumThickness(ring, loads, solve);
+  const gsf = t_min === undefined ? 0 : ring.thickness / t_min;
+  const unsafe = `the ring holds no line of thrust (gsf ${gsf.toFixed(2)} < 1)`;
   let H_min: number | NotAvailable = notAvailable(unsafe);
   let H_max: number | NotAvailable = notAvailable(unsafe);
   let V_left: number | NotAvailable = notAvailable(unsafe);
@@ -122,7 +124,6 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   } else {
     notes.push(`${unsafe}: it is not safe`);
   }
-  const t_min = minimumThickness(ring, loads, solve);
   if (t_min === undefined) notes.push('no thickness up to the span fits a line of thrust: gsf is set to 0');
   const c = collapse(p, solve, x0);
   if (c.state) sliding.push(slidingRatio(p, c.state, 'collapse', x0));
@@ -135,7 +136,7 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   return {
     H_min, H_max, V_left, V_right,
     t_min: t_min === undefined ? notAvailable('no thickness up to the span holds a line of thrust') : t_min,
-    gsf: t_min === undefined ? 0 : ring.thickness / t_min,
+    gsf,
     gsf_definition: GSF_TEXT[ring.gsf_definition ?? 'loads_as_built'],
     hinges, load_factor: c.load_factor, mechanism: c.mechanism, governs: c.governs,
     sigma_max, sigma_max_at, sliding,

@@ -2,6 +2,7 @@ import type { Metres, Profile, Radians } from '../profile.js';
 import { circularArc, offsetProfile } from '../profile.js';
 import { profileFromSpanRise, PROFILE_SHAPES, type ProfileShape } from '../profiles/profileFrom.js';
 import type { ArchRing } from './types.js';
+import { notAvailable, type NotAvailable } from '../../not-available.js';
 import { ringJoints } from './ring-joints.js';
 import { voussoirSections } from './voussoir-sections.js';
 
@@ -84,7 +85,7 @@ export function archRing(o: ArchRingOptions): ArchRing {
   const joints = ringJoints(centreline, voussoirs);
   const area = voussoirSections(centreline, joints, t).reduce((s, v) => s + v.area, 0);
   const ring = {
-    shape: typeof o.shape === 'number' ? `power n = ${o.shape}` : o.shape, span, rise, ...(byRadius ? { radius: o.radius } : {}), half_angle: phiS,
+    shape: typeof o.shape === 'number' ? `power n = ${o.shape}` : o.shape, span, rise, radius: ringRadius(o.shape, centreline), half_angle: phiS,
     thickness: t, unit_weight, depth, voussoirs, weight: unit_weight * depth * area,
     f_c: o.f_c ?? Infinity, friction: o.friction ?? Infinity, gsf_definition: gsf,
   };
@@ -105,4 +106,10 @@ function intradosProfile(shape: string | number, span: Metres, rise: Metres | un
 function positive(name: string, v: number | undefined, unit: string): void {
   if (v === undefined) throw new RangeError(`arch_ring: ${name} is required`);
   if (!(v > 0 && Number.isFinite(v))) throw new RangeError(`arch_ring: ${name} must be positive, got ${v} ${unit}`);
+}
+
+/** The centreline radius of a circular ring; other shapes have no single radius. */
+function ringRadius(shape: string | number, centreline: Profile): Metres | NotAvailable {
+  if (shape === 'circular') return centreline.radius(centreline.phiCrown);
+  return notAvailable(`a ${typeof shape === 'number' ? 'power' : shape} ring has no single radius (only a circular ring has one)`);
 }
