@@ -44,6 +44,14 @@ export class LiveCases {
     return this.chosen?.name ?? null;
   }
 
+  /** Is this check judged in the case shown? (`[in …]` limits a check to some cases; the document as written is none of them.) */
+  judgesHere(checkId: string): boolean {
+    const limit = this.sheet.doc.cases.limits.get(checkId);
+    if (!limit) return true;
+    const c = this.chosen;
+    return c !== null && (limit.includes(c.name) || (c.family !== null && limit.includes(c.family)));
+  }
+
   /** After a document (re)load: its cases in the chooser, the case asked for shown, the envelope judged. */
   loaded(initial?: string): void {
     this.cases = expandCases(this.sheet.doc, this.sheet.baseline).cases;

@@ -51,13 +51,14 @@ function showChange(id: string): void {
     }
     if (badge.innerHTML !== html) badge.innerHTML = html;
   }
-  const flip = change?.kind === 'check' && change.flipped ? (change.after === false ? 'fail' : 'pass') : null;
+  // A check limited to other cases than the one shown is not judged here: its flip is no news.
+  const flip = change?.kind === 'check' && change.flipped && cases.judgesHere(id) ? (change.after === false ? 'fail' : 'pass') : null;
   el.classList.toggle('lv-flipped-fail', flip === 'fail');
   el.classList.toggle('lv-flipped-pass', flip === 'pass');
 }
 
 function renderPanel(): void {
-  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, after: c.after }] : []));
+  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped && cases.judgesHere(c.id) ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, after: c.after }] : []));
   const html = renderReviewPanel({
     file: loaded.file, inputs: inputChanges(sheet.doc, sheet.overrides), flips, changedResults: changes.size,
     dropped, message, writing,

@@ -36,7 +36,7 @@ export async function evaluateCaseSlice(job: CaseJob): Promise<CaseResult[]> {
     const pinned = new Set(Object.keys(job.overrides));
     const wanted = new Set(job.names);
     const cases = expandCases(doc, base, pinned).cases.filter((c) => wanted.has(c.name));
-    return await runCases(session, cases, errorKeys(doc.graph, base));
+    return await runCases(session, cases, errorKeys(doc.graph, base, session.warnings));
   } finally {
     session.dispose();
   }

@@ -35,7 +35,7 @@ export interface CaseRun {
   results: CaseResult[];
   /** Check id → its envelope over every case it is judged in. */
   checks: Map<string, CheckEnvelope>;
-  /** Problems of the cases: their lines, and errors a case causes that the document as written does not have. */
+  /** Problems of the cases: their lines, and errors and warnings a case causes that the document as written does not have. */
   diagnostics: Diagnostic[];
 }
 
@@ -51,14 +51,14 @@ function pinnedInputs(doc: CompiledDocument): Set<string> {
   return new Set(doc.graph.cells.filter((c) => c.kind === 'given' && c.overridden).map((c) => c.name!));
 }
 
-/** The errors each case adds, once per cell and line (a family reports its first member and how many more). */
+/** The errors and warnings each case adds, once per cell and rule (a family reports its first member and how many more). */
 function caseErrors(results: CaseResult[], cases: readonly (Case | null)[]): Diagnostic[] {
   const seen = new Map<string, { d: Diagnostic; first: string; more: number }>();
   results.forEach((r, i) => {
     const c = cases[i];
     if (!c) return;
-    for (const d of r.errors) {
-      const key = `${c.family ?? c.name}\n${d.cellId}\n${d.message}`;
+    for (const d of r.diagnostics) {
+      const key = `${c.family ?? c.name}\n${d.cellId}\n${d.ruleId}`;
       const entry = seen.get(key);
       if (entry) entry.more++;
       else seen.set(key, { d, first: c.name, more: 0 });
@@ -76,7 +76,7 @@ function caseErrors(results: CaseResult[], cases: readonly (Case | null)[]): Dia
  * @example const run = await judgeCases(doc, session, new Map(await session.settle()))
  */
 export async function judgeCases(doc: CompiledDocument, session: Session, base: Map<string, CellState>, options: JudgeOptions = {}): Promise<CaseRun> {
-  const known = errorKeys(doc.graph, base);
+  const known = errorKeys(doc.graph, base, session.warnings);
   if (options.shown) {
     const { case: shown, diagnostics } = options.shown;
     const results = [resultOf(doc.graph, base, shown.name, known)];

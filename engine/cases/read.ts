@@ -97,7 +97,7 @@ function readLine(stmt: RawStatement, span: Span, name: string, headLength: numb
   if (keys.length === 0) return `${name}: the case changes no input; name at least one, e.g. ${name} = {gamma_G: 1.1}`;
   return {
     values: keys.map((input) => {
-      const found = new RegExp(`(^|[{,\\s])${input}\\s*:`).exec(stmt.code);
+      const found = new RegExp(`(^|[{,\\s])["']?${input.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}["']?\\s*:`).exec(stmt.code);
       const at = found ? locateInStatement(stmt, found.index + found[1]!.length) : { bodyLine: stmt.lines[0]!.bodyLine, column: 1 };
       const valueNode = node.properties![input]!;
       return { input, source: valueNode.toString(), node: valueNode, column: at.column, line: span.start.line + at.bodyLine - stmt.lines[0]!.bodyLine };

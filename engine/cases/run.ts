@@ -17,38 +17,41 @@ export interface CheckCase {
   utilization: number | null;
 }
 
-/** What one case gives: every check's result, and the errors the case alone causes. */
+/** What one case gives: every check's result, and the errors and range warnings the case alone causes. */
 export interface CaseResult {
   case: string | null;
   checks: Record<string, CheckCase>;
-  errors: Diagnostic[];
+  diagnostics: Diagnostic[];
 }
 
 /**
  * Check results of a settled document in one case.
  * @example resultOf(graph, states, 'EQU', new Set()).checks['c_ot'].pass
  */
-export function resultOf(graph: CellGraph, states: Map<string, CellState>, name: string | null, known: ReadonlySet<string>): CaseResult {
+export function resultOf(graph: CellGraph, states: Map<string, CellState>, name: string | null, known: ReadonlySet<string>, warnings?: ReadonlyMap<string, Diagnostic>): CaseResult {
   const checks: Record<string, CheckCase> = {};
-  const errors: Diagnostic[] = [];
+  const diagnostics: Diagnostic[] = [];
   for (const cell of graph.cells) {
     const s = states.get(cell.id);
     if (cell.kind === 'check') {
       const r = s?.status === 'ok' ? (s.value as CheckResult) : null;
       checks[cell.id] = { case: name, pass: r ? r.pass : null, utilization: r ? r.utilization : null };
     }
-    if (s?.status === 'error' && !known.has(`${cell.id}\n${s.diagnostic.message}`)) errors.push(s.diagnostic);
+    if (s?.status === 'error' && !known.has(`${cell.id}\n${s.diagnostic.message}`)) diagnostics.push(s.diagnostic);
+    const w = warnings?.get(cell.id);
+    if (w && !known.has(`${cell.id}\n${w.message}`)) diagnostics.push(w);
   }
-  return { case: name, checks, errors };
+  return { case: name, checks, diagnostics };
 }
 
-/** Errors already present as written: a case reports only the ones it adds. */
-export function errorKeys(graph: CellGraph, states: Map<string, CellState>): Set<string> {
+/** Errors and warnings already present as written: a case reports only the ones it adds. */
+export function errorKeys(graph: CellGraph, states: Map<string, CellState>, warnings?: ReadonlyMap<string, Diagnostic>): Set<string> {
   const keys = new Set<string>();
   for (const cell of graph.cells) {
     const s = states.get(cell.id);
     if (s?.status === 'error') keys.add(`${cell.id}\n${s.diagnostic.message}`);
   }
+  for (const [id, w] of warnings ?? []) keys.add(`${id}\n${w.message}`);
   return keys;
 }
 
@@ -81,8 +84,8 @@ export async function runCases(session: Session, cases: readonly Case[], known: 
     }
     const states = await session.settle();
     options.onCase?.(c, states);
-    const r = resultOf(session.graph, states, c.name, known);
-    r.errors.unshift(...refused);
+    const r = resultOf(session.graph, states, c.name, known, session.warnings);
+    r.diagnostics.unshift(...refused);
     results.push(r);
   }
   for (const input of applied.keys()) session.resetInput(input);

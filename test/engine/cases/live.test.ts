@@ -25,9 +25,9 @@ let dir: string;
 beforeAll(async () => { browser = await launchBrowser(); dir = mkdtempSync(join(tmpdir(), 'vaultbook-live-cases-')); }, 60_000);
 afterAll(async () => { await browser?.close(); rmSync(dir, { recursive: true, force: true }); });
 
-async function open(name: string, caseName?: string): Promise<{ page: Page; close: () => Promise<void>; errors: string[] }> {
+async function open(name: string, caseName?: string, text = BEAM): Promise<{ page: Page; close: () => Promise<void>; errors: string[] }> {
   const file = join(dir, name);
-  writeFileSync(file, BEAM);
+  writeFileSync(file, text);
   const server = await startServer({ file, port: 0, logLevel: 'error', ...(caseName ? { case: caseName } : {}) });
   const page = await browser.context.newPage();
   const errors: string[] = [];
@@ -63,6 +63,19 @@ describe('live page with cases', () => {
       await page.waitForFunction(() => !document.querySelector('[data-part="check-summary"]')?.textContent?.includes('NOT SATISFIED'));
       expect(await summary(page)).toContain('governing: STR');
       expect(await cellText(page, 'c_M')).toContain('SATISFIED');
+    } finally { await close(); }
+  });
+
+  it('a check limited to other cases than the one shown is no flip in the review panel', async () => {
+    // c_R is judged in the axle family only. In STR, R = 1.35 · 10 · 3 / 6 = 6.75 kN > 6 kN would "flip" it.
+    const text = BEAM.replace("fence('check', 'c_M = M <= 20 kN m  # bending')", '').replace('c_M = M <= 20 kN m  # bending', 'c_M = M <= 20 kN m  # bending\nc_R = gamma_G * P * (L - x_P) / L <= 6 kN  # left reaction [in axle]');
+    const { page, close } = await open('d.md', undefined, text);
+    try {
+      await page.selectOption('#lv-case', 'STR');
+      await page.waitForFunction(() => document.querySelector('[data-cell="c_M"]')?.textContent?.includes('NOT SATISFIED'));
+      const panel = (await page.locator('#lv-review').textContent()) ?? '';
+      expect(panel).toContain('bending');
+      expect(panel).not.toContain('left reaction');
     } finally { await close(); }
   });
 
