@@ -152,12 +152,14 @@ describe('templates/barrel-vault.md — key numbers', () => {
     expectClose(num(s(), 'b_third'), 1.4036, 1e-3); // regression value, from this kernel on 2026-12-02
   });
 
-  it('the tie: area T·γ_M0/f_y (EN 1993-1-1 6.2.3, from memory), smallest bar of the series', () => {
+  it('the tie: area T·γ_M0/f_y (EN 1993-1-1 6.2.3, from memory), smallest bar of the series, its thread governs', () => {
     const T = 3 * (1.35 * num(s(), 'H_G') + 1.5 * num(s(), 'H_S')); // kN, ties at 3 m
     expectClose(num(s(), 'T_tie'), T, 1e-9);
     const area = (T * 1e3) / 235e6;
     expect(num(s(), 'd_bar')).toBe(20); // 16 mm = 201 mm² < area < 20 mm = 314 mm²
-    expectClose(num(s(), 'tie_bar.utilization'), area / (Math.PI * 0.02 ** 2 / 4), 1e-9);
+    expectClose(num(s(), 'tie_bar.utilization_bar'), area / (Math.PI * 0.02 ** 2 / 4), 1e-9);
+    // Issue 15: the M20 thread governs, F_t,Rd = 0.9·360·245/1.25 N (EN 1993-1-8 Table 3.4; A_s of ISO 898-1, from memory).
+    expectClose(num(s(), 'tie_bar.utilization'), (T * 1e3) / ((0.9 * 360e6 * 245e-6) / 1.25), 1e-9);
   });
 });
 
