@@ -7,5 +7,6 @@ export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin
 export { arch_ring, arch_limit, thrust_line } from './vault/register-arch.js';
 export { buttress, tie } from './supports/register.js';
 export { barrel_membrane, membrane_at } from './vault/register-membrane.js';
+export { dome, dome_at, dome_limit } from './vault/register-dome.js';
 export { masonry_fk, masonry_fd, unit_weight } from './materials/register.js';
 export { section, force_polygon, membrane_plot, vault_plan, support_figure } from './figures/register.js';
