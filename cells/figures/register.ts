@@ -12,6 +12,9 @@ import { forcePolygon } from './force-polygon.js';
 import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
+import { domeFigure } from './dome-figure.js';
+import type { Dome } from '../vault/dome/dome.js';
+import type { DomeLimit } from '../vault/dome/dome-limit.js';
 
 /** The loads record of arch_limit, so a figure can be drawn for the same loads. */
 const ARCH_LOADS: FieldType = {
@@ -75,4 +78,21 @@ export const support_figure = defineCellFunction({
   returns: 'text',
   fn: (support: WithArgs<Parameters<typeof supportFigure>[0]>, options?: Parameters<typeof supportFigure>[1]) =>
     supportFigure(support.value, options ?? (support.args[0] as Parameters<typeof supportFigure>[1])),
+});
+
+export const dome_figure = defineCellFunction({
+  name: 'dome_figure',
+  doc: 'Figure: a dome\'s meridian section to scale with the hoop-tension zone and, given dome_limit, the least-thrust line of a lune; N_φ and N_θ along the meridian: dome_figure(d) or dome_figure(d, dome_limit(d)).',
+  params: [{ name: 'dome', type: { ref: 'dome' } }, { name: 'limit', type: { refWithArgs: 'dome_limit' }, optional: true }],
+  returns: 'text',
+  fn: (d: Dome, limit?: WithArgs<DomeLimit>) => {
+    if (limit && limit.args[0] !== d) throw new RangeError('dome_figure: this dome_limit result was computed for another dome; pass the same dome');
+    return domeFigure(d, limit?.value);
+  },
+  reference: {
+    params: { dome: 'A result of dome(…).', limit: 'Optional: dome_limit(…) of the same dome, to draw the least-thrust line of a lune and print t_min and the thrust range.' },
+    fields: {},
+    method: 'Draws the shell to scale (intrados, extrados; both halves), marks the membrane hoop-tension zone on the middle surface, and plots N_φ and N_θ against the angle from the crown.',
+    sources: ['Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 1959, §§128–129.'],
+  },
 });

@@ -50,7 +50,7 @@ export const dome = defineCellFunction({
       base_diameter: 'Diameter of the middle surface at the base (m).',
       height: 'Height of the middle surface from the base to the crown or apex (m).',
       W: 'Total vertical load on the base: shell, plan load and lantern (kN).',
-      phi_hoop_tension: 'First angle from the crown (going down) at which the hoop force N_theta becomes tension (rad; 51.83° for a hemisphere under self-weight, 45° under a load uniform on plan); the top edge when it is tensile there already (a heavy lantern); not available when the hoop stays in compression to the base.',
+      phi_hoop_tension: 'Angle from the crown at which the hoop force N_theta turns to tension in the zone that reaches the base (rad; 51.83° for a hemisphere under self-weight, 45° under a load uniform on plan), where an unreinforced dome cracks along its meridians; when the base is in hoop compression, the start of the first tension zone (a heavy lantern can put the top course in tension: see dome_at at the oculus); not available when the hoop stays in compression everywhere.',
       N_theta_max: 'Largest hoop tension (kN/m, positive); 0 when there is none.',
       phi_N_theta_max: 'Where it acts (rad); not available when there is no hoop tension.',
       N_phi_min: 'Largest meridional compression (kN/m, negative).',

@@ -14,7 +14,7 @@ export interface Dome {
   base_diameter: number; height: number;
   /** Total load on the base (N). */
   W: number;
-  /** First angle from the crown at which the hoop force turns to tension (rad); not available when it never does. */
+  /** Where the hoop tension zone that reaches the base begins (else the first tension zone), angle from the crown (rad); not available when there is no hoop tension. */
   phi_hoop_tension: number | NotAvailable;
   /** Largest hoop tension (N/m); 0 when the hoop is in compression everywhere. */
   N_theta_max: number;
@@ -47,20 +47,24 @@ export function dome(o: DomeOptions): Dome {
   const d = domeInput(o);
   const N = (phi: number) => membraneForces(d, phi);
   const at = (k: number) => d.phiTop + ((d.phiBase - d.phiTop) * k) / SAMPLES;
-  let phiT: number | undefined, thetaMax = 0, phiMax: number | undefined, phiMin = 0;
+  // Starts of the tension zones, from the top down.
+  const starts: number[] = [];
+  let thetaMax = 0, phiMax: number | undefined, phiMin = 0;
   let prev = N(at(0)).N_theta;
-  if (prev > 0) phiT = d.phiTop;
+  if (prev > 0) starts.push(d.phiTop);
   for (let k = 0; k <= SAMPLES; k++) {
     const phi = at(k), f = N(phi);
     phiMin = Math.min(phiMin, f.N_phi);
     if (f.N_theta > thetaMax) [thetaMax, phiMax] = [f.N_theta, phi];
-    if (phiT === undefined && k > 0 && prev <= 0 && f.N_theta > 0) {
+    if (k > 0 && prev <= 0 && f.N_theta > 0) {
       let lo = at(k - 1), hi = phi;
       for (let i = 0; i < 60; i++) { const mid = (lo + hi) / 2; if (N(mid).N_theta > 0) hi = mid; else lo = mid; }
-      phiT = (lo + hi) / 2;
+      starts.push((lo + hi) / 2);
     }
     prev = f.N_theta;
   }
+  // The zone that reaches the base (where the dome cracks along its meridians) when there is one, else the first.
+  const phiT = prev > 0 ? starts[starts.length - 1] : starts[0];
   const base = N(d.phiBase);
   const rb = parallelRadius(d, d.phiBase);
   const H = -base.N_phi * Math.cos(d.phiBase);
