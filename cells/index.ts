@@ -3,7 +3,7 @@
  * what a document can use, and nothing else.
  */
 export { interp, clamp } from './table/register.js';
-export { groin_vault, web_membrane_at, vault_bays } from './vault/register-groin.js';
+export { groin_vault, web_membrane_at, vault_bays, cross_vault } from './vault/register-groin.js';
 export { arch_ring, arch_limit, thrust_line } from './vault/register-arch.js';
 export { buttress, tie } from './supports/register.js';
 export { barrel_membrane, membrane_at } from './vault/register-membrane.js';

@@ -3,6 +3,7 @@ import { defineCellFunction } from '../define.js';
 import { groinVault } from './groin/groin-vault.js';
 import { webMembrane } from './groin/web-membrane.js';
 import { vaultBays } from './groin/vault-bays.js';
+import { crossVault } from './groin/cross-vault.js';
 
 export const groin_vault = defineCellFunction({
   name: 'groin_vault',
@@ -55,4 +56,74 @@ export const vault_bays = defineCellFunction({
     },
   },
   fn: vaultBays,
+});
+
+export const cross_vault = defineCellFunction({
+  name: 'cross_vault',
+  doc: 'One bay of a cross vault of any bay (square or oblong; semicircular, segmental, pointed or stilted webs) by slicing: each web cut into arches analysed by limit analysis; corner thrust range, its height, vertical reaction and the pocket fill needed, with the membrane solution beside it for semicircular webs.',
+  params: [{
+    name: 'options',
+    type: {
+      object: {
+        span_x: 'm', span_y: 'm', shape: 'text', rise: 'm', stilt: 'm', thickness: 'm', unit_weight: 'N/m^3',
+        fill_level: 'm', fill_unit_weight: 'N/m^3', dead: 'Pa', live: 'Pa', solid_level: 'm', slices: 'count',
+      },
+    },
+  }],
+  required: ['span_x', 'thickness', 'unit_weight'],
+  returns: {
+    object: {
+      shape: 'text', span_x: 'm', span_y: 'm', rise_x: 'm', rise_y: 'm', stilt_x: 'm', stilt_y: 'm', crown: 'm', slices: 'count',
+      fill_needed: 'm', solid_level: 'm', safe: 'boolean', W: 'N', V_corner: 'N',
+      H_x_min: 'N', H_x_max: 'N', H_y_min: 'N', H_y_max: 'N', z_x_min: 'm', z_x_max: 'm', z_y_min: 'm', z_y_max: 'm',
+      H_x_membrane: 'N', H_y_membrane: 'N', z_x_membrane: 'm', z_y_membrane: 'm',
+    },
+  },
+  fn: crossVault,
+  reference: {
+    params: {
+      'options.span_x': 'Clear span of the webs spanning x: the bay\'s side along x, between the faces of the supports (m).',
+      'options.span_y': 'Clear span of the webs spanning y (m); the bay is square when omitted.',
+      'options.shape': '"semicircular" (default), "segmental", "pointed" or "stilted". The wider web takes this shape; the narrower one is brought to the same crown height with its own curvature where its family allows (segmental: the same rise; pointed: two-centred through the same crown), else as a semicircle on a stilt.',
+      'options.rise': 'Rise of the wider web\'s intrados arc above its springing (m): required for segmental (less than half its span); for pointed at least half its span, equilateral (span·√3/2) by default.',
+      'options.stilt': 'For "stilted": height of the vertical stilt under both webs (m). The stilt belongs to the pier; slices spring on it at the least.',
+      'options.thickness': 'Thickness of the webs (m), less than a quarter of the smaller span.',
+      'options.unit_weight': 'Unit weight of the masonry (kN/m³).',
+      'options.fill_level': 'Height of the loose pocket fill above the springing (m), loading the slices above their extrados; with fill_unit_weight.',
+      'options.fill_unit_weight': 'Unit weight of that fill (kN/m³).',
+      'options.dead': 'Superimposed dead load per unit plan area (kPa).',
+      'options.live': 'Live load per unit plan area (kPa), taken over the whole bay.',
+      'options.solid_level': 'Height above the springing to which the pockets are built solid (coursed masonry, the tas-de-charge) (m); slices spring on it where it is above the groin. Default: fill_needed.',
+      'options.slices': 'Slices per web, 2 to 60 (default 10); each slice is a ring of 24 voussoirs.',
+    },
+    fields: {
+      shape: 'The shape given.',
+      span_x: 'Clear span of the webs spanning x (m).', span_y: 'Clear span of the webs spanning y (m).',
+      rise_x: 'Rise of the x-web\'s intrados arc above its own springing (m).', rise_y: 'The same for the y-web (m).',
+      stilt_x: 'Stilt under the x-web\'s arc (m).', stilt_y: 'Stilt under the y-web\'s arc (m).',
+      crown: 'Height of the middle surface at the crown above the springing of the bay (m).',
+      slices: 'Slices per web.',
+      fill_needed: 'Least height of solid pocket above the springing for which the deepest slice of each web (the one by the face arch) holds a line of thrust (m); 0 when it holds springing from the corner. Shallower slices are taken to be no worse; `safe` reports whether all hold.',
+      solid_level: 'The height of solid pocket used (m).',
+      safe: 'true when every slice holds a line of thrust within its thickness.',
+      W: 'Load the slices carry down the groins: webs above the solid pocket, fill and plan loads (kN). The solid pocket and the webs below it belong to the pier.',
+      V_corner: 'Vertical reaction at each corner, W/4 (kN).',
+      H_x_min: 'Least corner thrust in x (kN per corner): the sum of the least thrusts of the slices of one x-web. Not available when a slice holds no line.',
+      H_x_max: 'Greatest corner thrust in x (kN); ∞ when a slice\'s thrust is unbounded (a shallow slice near the crown fits a straight line).',
+      H_y_min: 'Least corner thrust in y (kN).', H_y_max: 'Greatest corner thrust in y (kN); ∞ when unbounded.',
+      z_x_min: 'Height above the springing at which the corner\'s resultant crosses the vertical plane of the corner (the middle surface\'s springing line of the x-web), in the least-thrust state (m); negative when it passes below the springing, inside the pier.',
+      z_x_max: 'The same in the greatest-thrust state (m); not available when that thrust is unbounded.',
+      z_y_min: 'As z_x_min for the thrust in y (m).', z_y_max: 'As z_x_max for the thrust in y (m).',
+      H_x_membrane: 'Membrane corner thrust in x of groin_vault for the same bay and loads (kN): semicircular webs with solid_level 0 only, else not available.',
+      H_y_membrane: 'The same in y (kN).',
+      z_x_membrane: 'Height of the membrane thrust in x (groin_vault z_thrust) (m).', z_y_membrane: 'The same in y (m).',
+    },
+    method: 'Each web is cut by vertical planes across its generators into slices (midpoint slicing). A slice springs where the middle surfaces of the two webs meet (the groin), or on the solid pocket where that is higher, and is a ring of the arch kernel (arch_limit: least and greatest thrust; thrust_line: where each extreme line crosses the springing joint) under its own weight, the loose fill above it and the plan loads. The half vault cut through the crowns of one barrel\'s slices stands on two corners, so each corner\'s thrust is the sum of one web\'s slice thrusts; the height of the corner\'s resultant follows from the moments of every slice reaction on the quarter\'s groin about the corner: ΣH·z = ΣH_k·z_k − ΣV_k·(e − x_k). Slivers narrower than two thicknesses at the crown hand their weight straight to the groin.',
+    assumptions: ['Heyman\'s assumptions for every slice: no tension, no sliding, unlimited compression.', 'Slices act independently (no shear between them); the groins carry the slices\' reactions to the corners.', 'All bays and both halves loaded alike (symmetric loads).'],
+    sources: [
+      'Heyman, The Stone Skeleton, Cambridge 1995, on the cross vault and its slicing (from memory).',
+      'Heyman, Equilibrium of Shell Structures, Oxford 1977 (from memory).',
+      'Ungewitter & Mohrmann, Lehrbuch der gotischen Konstruktionen, 1890 (slicing of webs; from memory).',
+    ],
+  },
 });
