@@ -5,7 +5,7 @@
 export { interp, clamp } from './table/register.js';
 export { groin_vault, web_membrane_at, vault_bays, cross_vault } from './vault/register-groin.js';
 export { arch_ring, arch_limit, thrust_line } from './vault/register-arch.js';
-export { buttress, tie } from './supports/register.js';
+export { buttress, tie, flying_buttress } from './supports/register.js';
 export { barrel_membrane, membrane_at } from './vault/register-membrane.js';
 export { dome, dome_at, dome_limit } from './vault/register-dome.js';
 export { masonry_fk, masonry_fd, unit_weight } from './materials/register.js';

@@ -12,7 +12,7 @@ describe('public surface', () => {
   it('cells/index.ts lists exactly the functions a cell may call', () => {
     expect(Object.keys(cells).sort()).toEqual([
       'arch_limit', 'arch_ring', 'barrel_membrane', 'buttress', 'clamp', 'cross_vault', 'dome', 'dome_at', 'dome_figure', 'dome_limit',
-      'force_polygon', 'groin_vault', 'interp', 'masonry_fd', 'masonry_fk', 'membrane_at', 'membrane_plot', 'section', 'support_figure',
+      'flying_buttress', 'force_polygon', 'groin_vault', 'interp', 'masonry_fd', 'masonry_fk', 'membrane_at', 'membrane_plot', 'section', 'support_figure',
       'thrust_line', 'tie', 'unit_weight', 'vault_bays', 'vault_plan', 'web_membrane_at',
     ]);
     for (const [key, f] of Object.entries(cells)) {

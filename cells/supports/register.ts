@@ -2,6 +2,7 @@
 import { defineCellFunction } from '../define.js';
 import { buttress as buttressKernel } from './buttress.js';
 import { tie as tieKernel } from './tie.js';
+import { flyingButtress } from './flyer.js';
 
 export const buttress = defineCellFunction({
   name: 'buttress',
@@ -106,5 +107,45 @@ export const tie = defineCellFunction({
       'ISO 898-1 (stress area A_s = π/4·((d2 + d3)/2)²) and ISO 261 / ISO 724 (coarse pitches, d2 = d − 0.649519·P) (from memory).',
       'EN 10080 bar series (from memory).',
     ],
+  },
+});
+
+export const flying_buttress = defineCellFunction({
+  name: 'flying_buttress',
+  doc: 'Flying buttress (a straight or arched inclined bar from the wall head to an outer pier): the least thrust it exerts under its own weight and the greatest it can carry, with the lines of thrust.',
+  params: [{
+    name: 'options',
+    type: { object: { shape: 'text', span: 'm', rise: 'm', sag: 'm', thickness: 'm', width: 'm', unit_weight: 'N/m^3' } },
+  }],
+  required: ['span', 'rise', 'thickness', 'unit_weight'],
+  returns: {
+    object: {
+      W: 'N', H_min: 'N', H_max: 'N', V_wall: 'N', V_pier: 'N',
+      thrust_min: { list: { object: { x: 'm', z: 'm' } } }, thrust_max: { list: { object: { x: 'm', z: 'm' } } },
+    },
+  },
+  fn: flyingButtress,
+  reference: {
+    params: {
+      'options.shape': '"straight" (default): a straight bar; "arched": its centreline a circular arc bowed up by sag.',
+      'options.span': 'Horizontal distance from the face of the clerestory wall to the face of the outer pier (m).',
+      'options.rise': 'Height of the upper end (at the wall head) above the lower end (on the pier), on the centreline (m); 0 for a level flyer.',
+      'options.sag': 'Arched only: sagitta of the centreline above the chord between its ends (m), less than half the chord.',
+      'options.thickness': 'Thickness perpendicular to the centreline (m), less than a third of the length.',
+      'options.width': 'Width of the flyer across its plane (m), default 1 m.',
+      'options.unit_weight': 'Unit weight of the masonry (kN/m³).',
+    },
+    fields: {
+      W: 'Weight of the flyer (kN).',
+      H_min: 'Least horizontal thrust the flyer exerts on the wall under its own weight (kN): the line of thrust at its flattest within the bar.',
+      H_max: 'Greatest horizontal thrust it can pass from the wall to the pier with a line of thrust within it (kN); ∞ for a straight bar, which can carry any thrust along its axis until the masonry crushes (not checked).',
+      V_wall: 'Vertical force of the wall head on the flyer in the least-thrust state (kN), upwards positive; negative when the wall must press its end down.',
+      V_pier: 'Vertical load on the pier in the least-thrust state, W − V_wall (kN).',
+      thrust_min: 'Line of thrust of the least-thrust state: {x from the wall face, z above the lower end of the centreline} (m), at 121 vertical sections.',
+      thrust_max: 'The same for the greatest-thrust state; empty when H_max is unbounded.',
+    },
+    method: 'Vertical sections; under vertical loads H is constant and z(x) = z0 + s·x − M(x)/H. With A = H·z0 and B = H·s the section conditions are linear in (H, A, B): least and greatest H by linear programming (two-phase simplex). A vault thrust between H_min and H_max can be carried (safe theorem).',
+    assumptions: ['Heyman\'s assumptions: no tension, no sliding, unlimited compression.', 'Self-weight only; the vault thrust enters at the wall head as a horizontal force at a height the line may choose within the end section.'],
+    sources: ['Heyman, The Stone Skeleton, Cambridge 1995, ch. on the flying buttress (from memory).', 'Heyman, "The stone skeleton", Int. J. Solids Struct. 2 (1966) (from memory).'],
   },
 });
