@@ -152,3 +152,19 @@ describe('support_figure(b, options)', () => {
     expect(() => supportFigure(b, { ...o, width: 2 })).toThrow(/same options/);
   });
 });
+
+describe('vault_plan(v) of an oblong bay (issue 15)', () => {
+  const v = groinVault({ span_x: 6.0, span_y: 4.2, thickness: 0.18, unit_weight: 18e3 });
+  const svg = vaultPlan(v);
+  it('dimensions the clear spans 6.00 × 4.20 m (not the middle surface 6.18 × 4.38 m) and draws both elevations', () => {
+    const t = texts(svg);
+    expect(t).toContain('clear 6.00 m (x)');
+    expect(t).toContain('clear 4.20 m (y)');
+    expect(t).toContain('clear 6.00 m');
+    expect(t).toContain('clear 4.20 m');
+    expect(t.some((x) => x.startsWith('H_x = '))).toBe(true);
+    expect(t.some((x) => x.startsWith('H_y = '))).toBe(true);
+    expect(t.filter((x) => x.startsWith('across the ')).length).toBe(2);
+    expect(svg).not.toMatch(/NaN|Infinity|undefined/);
+  });
+});
