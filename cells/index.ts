@@ -9,4 +9,4 @@ export { buttress, tie, flying_buttress } from './supports/register.js';
 export { barrel_membrane, membrane_at } from './vault/register-membrane.js';
 export { dome, dome_at, dome_limit } from './vault/register-dome.js';
 export { masonry_fk, masonry_fd, unit_weight } from './materials/register.js';
-export { section, force_polygon, membrane_plot, vault_plan, support_figure, dome_figure } from './figures/register.js';
+export { section, force_polygon, membrane_plot, vault_plan, support_figure, dome_figure, cross_vault_figure, flyer_figure } from './figures/register.js';

@@ -13,6 +13,8 @@ import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
 import { domeFigure } from './dome-figure.js';
+import { crossVaultFigure } from './cross-vault-figure.js';
+import { flyerFigure } from './flyer-figure.js';
 import type { Dome } from '../vault/dome/dome.js';
 import type { DomeLimit } from '../vault/dome/dome-limit.js';
 
@@ -94,5 +96,33 @@ export const dome_figure = defineCellFunction({
     fields: {},
     method: 'Draws the shell to scale (intrados, extrados; both halves), marks the membrane hoop-tension zone on the middle surface, and plots N_φ and N_θ against the angle from the crown.',
     sources: ['Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 1959, §§128–129.'],
+  },
+});
+
+export const cross_vault_figure = defineCellFunction({
+  name: 'cross_vault_figure',
+  doc: 'Figure: a cross vault by slicing — slice planes in plan with the least corner thrusts; both elevations with the webs, the solid pocket, where each slice springs and the corner thrust at its height; clear spans dimensioned: cross_vault_figure(c).',
+  params: [{ name: 'vault', type: { ref: 'cross_vault' } }],
+  returns: 'text',
+  fn: crossVaultFigure,
+  reference: {
+    params: { vault: 'A result of cross_vault(…).' },
+    fields: {},
+    method: 'Plan: the bay, the groins, each slice\'s plane (red where a slice holds no line of thrust) and the least corner thrusts. Elevations across both spans: the wider and narrower webs, the top of the solid pocket, the points where the least-thrust lines of the slices cross their springings, and the corner resultant at z_x_min / z_y_min.',
+    sources: ['Heyman, The Stone Skeleton, Cambridge 1995 (slicing; from memory).'],
+  },
+});
+
+export const flyer_figure = defineCellFunction({
+  name: 'flyer_figure',
+  doc: 'Figure: a flying buttress in elevation with its lines of least and greatest thrust: flyer_figure(f) with f from flying_buttress.',
+  params: [{ name: 'flyer', type: { ref: 'flying_buttress' } }],
+  returns: 'text',
+  fn: flyerFigure,
+  reference: {
+    params: { flyer: 'A result of flying_buttress(…).' },
+    fields: {},
+    method: 'Draws the bar to scale between the wall face and the pier face, with the lines of least and greatest thrust (the latter left out when unbounded).',
+    sources: ['Heyman, The Stone Skeleton, Cambridge 1995, on the flying buttress (from memory).'],
   },
 });
