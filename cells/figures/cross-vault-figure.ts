@@ -67,7 +67,10 @@ export function crossVaultFigure(c: CrossVault): string {
     const base = elevBox(k).top + elevBox(k).height - 5;
     const ev = (p: P): P => ({ x: 90 + 38 + p.x * scale, y: base - p.y * scale });
     const w = view.w;
-    body += text(90, elevBox(k).top + 1, `across the ${view.name}-span (${w.shape})`, { fill: MUTED, 'font-size': 2.2 });
+    const thrust = typeof view.H === 'number' && typeof view.z === 'number'
+      ? `H_${view.name},min = ${kilonewtons(view.H)} at z = ${metres(view.z)}${view.z < 0 ? ' (below the springing)' : ''}`
+      : 'a slice holds no line of thrust';
+    body += text(90, elevBox(k).top + 1, `across the ${view.name}-span (${w.shape}): ${thrust}`, { fill: typeof view.H === 'number' ? MUTED : RED, 'font-size': 2.2 });
     const outline = [...webOutline(w, w.h), ...webOutline(w, -w.h).reverse()];
     body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
     if (c.solid_level > 0) {
@@ -80,12 +83,9 @@ export function crossVaultFigure(c: CrossVault): string {
     const ground = ev({ x: 0, y: 0 }).y;
     body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
     body += dimension(ev({ x: -view.clear / 2, y: 0 }), ev({ x: view.clear / 2, y: 0 }), -2.5, `clear ${metres(view.clear)}`);
-    if (typeof view.H === 'number' && typeof view.z === 'number') {
+    if (typeof view.H === 'number' && typeof view.z === 'number' && view.z >= 0) {
       const cpt = ev({ x: w.e, y: view.z });
       body += arrow(cpt, { x: cpt.x + len(view.H), y: cpt.y }, '', RED) + el('circle', { cx: cpt.x, cy: cpt.y, r: 0.8, fill: RED });
-      body += label(cpt.x + 1, cpt.y - 1.5, `H_${view.name},min = ${kilonewtons(view.H)} at z = ${metres(view.z)}`, 'start', { fill: RED, 'font-size': 2.2 });
-    } else {
-      body += label(90 + 38, elevBox(k).top + 6, 'a slice holds no line of thrust', 'middle', { fill: RED });
     }
   });
   const facts = `solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${kilonewtons(c.V_corner)} per corner; ${c.slices} slices per web`;
