@@ -63,6 +63,12 @@ export const vault_plan = defineCellFunction({
   params: [{ name: 'vault', type: { ref: 'groin_vault' } }],
   returns: 'text',
   fn: vaultPlan,
+  reference: {
+    params: { vault: 'A result of groin_vault(…).' },
+    fields: {},
+    method: 'Plan: the bay with its clear spans dimensioned, the groins, generator lines and the corner thrusts with their resultant. Elevations across the x-span and the y-span: each barrel\'s shell (a stilt where it has one), the corner thrust at its height z and the corner load.',
+    sources: ['Heyman, Equilibrium of Shell Structures, Oxford 1977, cross-vault chapter (from memory).'],
+  },
 });
 
 /** The options record of buttress, so the figure can rebuild the support's geometry. */

@@ -29,6 +29,39 @@ export const groin_vault = defineCellFunction({
     },
   },
   fn: groinVault,
+  reference: {
+    params: {
+      'options.span_x': 'Clear span of the barrel spanning x: the bay\'s side along x (m). The middle surface is the intrados offset by t/2, so the corners stand at span/2 + t/2.',
+      'options.span_y': 'Clear span of the barrel spanning y (m); square when omitted. On an oblong plan the narrower semicircular barrel is stilted to the same crown.',
+      'options.shape': '"semicircular" (default) or "pointed" (the wider barrel equilateral, the narrower two-centred through the same crown). For segmental or stilted webs and the limit analysis by slicing, see cross_vault.',
+      'options.thickness': 'Shell thickness (m); 0 (a thin shell) when omitted and g is given.',
+      'options.unit_weight': 'Unit weight of the masonry (kN/m³); self-weight = thickness × unit_weight.',
+      'options.g': 'Self-weight per unit surface area (kPa), instead of thickness × unit_weight.',
+      'options.fill_level': 'Height of the pocket fill above the springing (m); with fill_unit_weight.',
+      'options.fill_unit_weight': 'Unit weight of the fill (kN/m³).',
+      'options.dead': 'Superimposed dead load per unit plan area (kPa).',
+      'options.live': 'Live load per unit plan area (kPa), over the whole bay.',
+    },
+    fields: {
+      shape: 'The shape used.',
+      crown: 'Height of the middle surface at the crown above the springing (m).',
+      area_web_x: 'Surface area of one web of the barrel spanning x (m²).', area_web_y: 'The same for y (m²).', area: 'Total surface of the four webs (m²).',
+      W: 'Total vertical load of the bay (kN).',
+      W_half: 'Load of the half vault x > 0 (kN).', x_half: 'Distance of its centroid from the cut x = 0 (m).',
+      N_crown: 'Membrane hoop force at the crown of the x-barrel, −q·R·cos φ_crown (kN/m), compression negative.',
+      thrust_cut: 'Horizontal force across the cut x = 0 (kN).', h_thrust: 'Drop of the corner thrust below the crown (m).',
+      W_half_y: 'As W_half for the cut y = 0 (kN).', x_half_y: 'As x_half for y (m).', N_crown_y: 'As N_crown for the y-barrel (kN/m).',
+      thrust_cut_y: 'As thrust_cut for y (kN).', h_thrust_y: 'As h_thrust for y (m).',
+      V_corner: 'Vertical reaction at each corner, W/4 (kN).',
+      H_corner_x: 'Horizontal corner thrust in x, thrust_cut/2 (kN).', H_corner_y: 'In y (kN).', H_corner: 'Their resultant (kN).',
+      z_thrust: 'Height above the springing at which the x-thrust acts on the corner: crown − h_thrust (m).', z_thrust_y: 'The same for y (m).',
+      ridge_load_x: 'Pointed webs: the downward line load their membrane state needs along the ridge, 2|N_crown|·sin φ_crown (kN/m); 0 when round.',
+      ridge_load_y: 'The same for the y-webs (kN/m).',
+    },
+    method: 'Membrane theory of each web as a barrel segment (N_φ = p_r·R) and statics of the half vault cut through the crown: 2H = thrust across the cut, thrust·h = W_half·(e − x_half). Web integrals by Gauss–Legendre between the kinks of the load.',
+    assumptions: ['Membrane state of the webs; the groins collect what the webs leave there.', 'All four webs loaded alike.', 'For a pointed web the crown membrane force is not an upper bound on the thrust: use cross_vault for the thrust range.'],
+    sources: ['Heyman, Equilibrium of Shell Structures, Oxford 1977, cross-vault chapter (from memory).', 'Flügge, Stresses in Shells, ch. 3 (membrane theory of the cylinder).'],
+  },
 });
 
 export const web_membrane_at = defineCellFunction({
@@ -42,6 +75,21 @@ export const web_membrane_at = defineCellFunction({
   ],
   returns: { object: { N_phi: 'N/m', N_x: 'N/m', N_xphi: 'N/m' } },
   fn: webMembrane,
+  reference: {
+    params: {
+      vault: 'A result of groin_vault(…).',
+      x: 'Distance along the generators from the centre line of the bay (m), on the web (between the groin and the face arch).',
+      phi: 'Inclination of the web\'s normal from the vertical (deg or rad), from the crown (φ_crown, 0 when round) to the springing (90°).',
+      web: '"x" (default) for the webs of the barrel spanning x, "y" for the others.',
+    },
+    fields: {
+      N_phi: 'Hoop force across the generators (kN/m), compression negative: −q·R·cos φ.',
+      N_x: 'Force along the generators (kN/m), compression negative; zero at the face arch.',
+      N_xphi: 'Membrane shear (kN/m); zero on the centre line of the bay.',
+    },
+    method: 'Membrane theory of the circular cylinder under a load uniform along the generators, with N_xφ = 0 on the centre line and N_x = 0 at the face arch.',
+    sources: ['Flügge, Stresses in Shells, ch. 3.', 'Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 1959, §110.'],
+  },
 });
 
 export const vault_bays = defineCellFunction({
@@ -56,6 +104,22 @@ export const vault_bays = defineCellFunction({
     },
   },
   fn: vaultBays,
+  reference: {
+    params: { vault: 'A result of groin_vault(…): one bay; the row runs along x.', n: 'Number of equal bays in the row, a whole number ≥ 1.' },
+    fields: {
+      bays: 'Bays in the row.',
+      n_intermediate: 'Piers between bays: 2·(n − 1).', n_end: 'Piers at the ends: 4.',
+      V_intermediate: 'Vertical load on an intermediate pier from the two corners it carries (kN).',
+      H_intermediate: 'Transverse (y) thrust on an intermediate pier, 2·H_corner_y (kN); the longitudinal thrusts of the neighbours cancel.',
+      z_intermediate: 'Height of that thrust above the springing (m).',
+      V_end: 'Vertical load on an end pier (kN).',
+      H_end_x: 'Longitudinal thrust on an end pier (kN).', H_end_y: 'Transverse thrust on an end pier (kN).', H_end: 'Their resultant (kN).',
+      z_end_x: 'Height of the longitudinal thrust above the springing (m).', z_end_y: 'Height of the transverse thrust (m).',
+    },
+    method: 'Statics of the free body: at a pier between bays the longitudinal thrusts are equal and opposite and cancel, the transverse thrusts and vertical loads add.',
+    assumptions: ['Every bay loaded alike; an unloaded neighbour leaves part of the longitudinal thrust unbalanced.'],
+    sources: ['Statics of the free body (common practice).'],
+  },
 });
 
 export const cross_vault = defineCellFunction({
