@@ -39,6 +39,7 @@ export function flyerFigure(f: Flyer): string {
     `least thrust ${kilonewtons(f.H_min)} (under its own weight)`,
     `greatest thrust ${Number.isFinite(f.H_max) ? kilonewtons(f.H_max) : '∞ (a straight line fits; crushing governs)'}`,
     `least-thrust state: wall ${kilonewtons(f.V_wall)}, pier ${kilonewtons(f.V_pier)} vertical`,
+    ...(typeof f.H_crush === 'number' ? [`crushing at a thrust of ${kilonewtons(f.H_crush)}`] : []),
   ];
   body += facts.map((t, i) => text(116, 18 + i * 4.6, t, { fill: INK, 'font-size': 2.3 })).join('');
   body += legendItem({ x: 116, y: 42 }, LEAST, 'line of least thrust') + legendItem({ x: 116, y: 46.5 }, MOST, 'line of greatest thrust');

@@ -3,6 +3,7 @@
  * from the clerestory wall head across the aisle to an outer pier.
  */
 import { simplex } from '../vault/dome/simplex.js';
+import { notAvailable, type NotAvailable } from '../not-available.js';
 
 export interface FlyerOptions {
   /** "straight" (default) or "arched". */
@@ -15,6 +16,8 @@ export interface FlyerOptions {
   sag?: number;
   /** Thickness perpendicular to the centreline (m), width across it (m, default 1) and unit weight (N/m³). */
   thickness: number; width?: number; unit_weight: number;
+  /** Design compressive strength of the masonry (Pa), for H_crush. */
+  strength?: number;
 }
 
 export interface FlyerPoint { x: number; z: number }
@@ -24,6 +27,8 @@ export interface Flyer {
   W: number;
   /** Least horizontal thrust it exerts under its own weight, and the greatest it can carry (N). */
   H_min: number; H_max: number;
+  /** Horizontal thrust at which the masonry crushes, with the force along the bar: min over sections of f·b·t·cos α (N); not available without strength. */
+  H_crush: number | NotAvailable;
   /** Vertical reactions at the wall head (upwards on the flyer; negative when the wall presses it down) and on the pier in the least-thrust state (N). */
   V_wall: number; V_pier: number;
   /** Lines of thrust of the two states: heights above the lower end's centreline, x from the wall face (m). */
@@ -60,6 +65,7 @@ export function flyingButtress(o: FlyerOptions): Flyer {
   const rise = o.rise;
   if (!(Number.isFinite(rise) && rise >= 0)) throw new RangeError(`flying_buttress: rise must be zero or more, got ${rise} m`);
   const sag = shape === 'arched' ? pos('sag', o.sag, 'm') : 0;
+  const strength = o.strength === undefined ? undefined : pos('strength', o.strength, 'Pa');
   if (shape === 'straight' && o.sag !== undefined) throw new RangeError('flying_buttress: sag belongs to an arched flyer');
   const chord = Math.hypot(L, rise);
   if (!(t < chord / 3)) throw new RangeError(`flying_buttress: thickness must be less than a third of the length ${chord.toFixed(3)} m, got ${t} m`);
@@ -107,6 +113,9 @@ export function flyingButtress(o: FlyerOptions): Flyer {
   const Hmax = most.status === 'optimal' ? most.x[0]! * W : Infinity;
   const result = {
     W, H_min: Hmin, H_max: Hmax,
+    // The force along the bar N ≈ H/cos α, against f·b·t (the line of thrust taken along the bar, uniform stress).
+    H_crush: strength === undefined ? notAvailable('strength (the design compressive strength of the masonry) is not given')
+      : Math.min(...xs.map((x) => (strength * b * t) / Math.sqrt(1 + slope(x) ** 2))),
     // The wall pushes on the upper end along the line of thrust, (H, H·s): up when the line rises into the flyer.
     V_wall: Hmin * sMin, V_pier: W - Hmin * sMin,
     thrust_min: line(least.x), thrust_max: most.status === 'optimal' ? line(most.x) : [],

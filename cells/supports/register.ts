@@ -115,12 +115,12 @@ export const flying_buttress = defineCellFunction({
   doc: 'Flying buttress (a straight or arched inclined bar from the wall head to an outer pier): the least thrust it exerts under its own weight and the greatest it can carry, with the lines of thrust.',
   params: [{
     name: 'options',
-    type: { object: { shape: 'text', span: 'm', rise: 'm', sag: 'm', thickness: 'm', width: 'm', unit_weight: 'N/m^3' } },
+    type: { object: { shape: 'text', span: 'm', rise: 'm', sag: 'm', thickness: 'm', width: 'm', unit_weight: 'N/m^3', strength: 'Pa' } },
   }],
   required: ['span', 'rise', 'thickness', 'unit_weight'],
   returns: {
     object: {
-      W: 'N', H_min: 'N', H_max: 'N', V_wall: 'N', V_pier: 'N',
+      W: 'N', H_min: 'N', H_max: 'N', H_crush: 'N', V_wall: 'N', V_pier: 'N',
       thrust_min: { list: { object: { x: 'm', z: 'm' } } }, thrust_max: { list: { object: { x: 'm', z: 'm' } } },
     },
   },
@@ -134,9 +134,11 @@ export const flying_buttress = defineCellFunction({
       'options.thickness': 'Thickness perpendicular to the centreline (m), less than a third of the length.',
       'options.width': 'Width of the flyer across its plane (m), default 1 m.',
       'options.unit_weight': 'Unit weight of the masonry (kN/m³).',
+      'options.strength': 'Design compressive strength of the masonry (MPa), for H_crush; optional.',
     },
     fields: {
       W: 'Weight of the flyer (kN).',
+      H_crush: 'Horizontal thrust at which the bar crushes under a uniform stress f·b·t along it, min over sections of f·b·t·cos α (kN); the rigid-block H_max ignores crushing, so the flyer carries at most the smaller. Not available without strength.',
       H_min: 'Least horizontal thrust the flyer exerts on the wall under its own weight (kN): the line of thrust at its flattest within the bar.',
       H_max: 'Greatest horizontal thrust it can pass from the wall to the pier with a line of thrust within it (kN); ∞ for a straight bar, which can carry any thrust along its axis until the masonry crushes (not checked).',
       V_wall: 'Vertical force of the wall head on the flyer in the least-thrust state (kN), upwards positive; negative when the wall must press its end down.',

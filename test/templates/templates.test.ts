@@ -14,7 +14,7 @@ import { renderCommand } from '../../bin/commands/render.js';
 import { listTemplates, newCommand, TEMPLATE_DIR } from '../../bin/commands/new.js';
 import { expectClose } from '../helpers/close.js';
 
-const NAMES = ['arch-ring', 'barrel-vault', 'buttress', 'cross-vault', 'dome'] as const;
+const NAMES = ['arch-ring', 'barrel-vault', 'buttress', 'clerestory', 'cross-vault', 'dome'] as const;
 type Name = (typeof NAMES)[number];
 
 const summaries = {} as Record<Name, Summary>;
@@ -312,5 +312,22 @@ describe('templates/dome.md — key numbers (issue 15)', () => {
     const T = (1.35 * num(s(), 'H_G') + 1.5 * (num(s(), 'H_GQ') - num(s(), 'H_G'))) * a;
     expectClose(num(s(), 'T_ring'), T, 1e-9);
     expectClose(num(s(), 'gsf'), 2.131, 2e-3); // regression value, from this kernel on 2026-12-02
+  });
+});
+
+describe('templates/clerestory.md — key numbers (issue 15)', () => {
+  const s = () => summaries.clerestory;
+
+  it('a pier between two bays takes both corners\' thrusts across the nave (statics of the free body; along the nave they cancel)', () => {
+    expectClose(num(s(), 'T_lo'), 2 * num(s(), 'H_lo'), 1e-9);
+    expectClose(num(s(), 'T_hi'), 2 * num(s(), 'H_hi'), 1e-9);
+  });
+
+  it('the drop-pointed webs need no solid pocket; the thrust range and the flyer\'s least thrust', () => {
+    expect(num(s(), 'z_needed')).toBe(0);
+    expectClose(num(s(), 'H_lo'), 18.78, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'H_hi'), 41.24, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'F_lo'), 9.916, 2e-3); // regression value, from this kernel on 2026-12-02
+    expect(num(s(), 'F_lo')).toBeLessThan(num(s(), 'T_lo'));
   });
 });

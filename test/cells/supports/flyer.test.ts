@@ -52,6 +52,12 @@ describe('flying_buttress', () => {
     expectClose(f.V_wall * L + f.H_min * (z0 - zL), W * L - Wx, 2e-3);
   });
 
+  it('H_crush = f·b·t·cos α for a straight bar (uniform stress along it); not available without strength', () => {
+    const f = flyingButtress({ span: 4, rise: 3, thickness: 0.4, width: 0.6, unit_weight: 2e4, strength: 4e6 });
+    expectClose(f.H_crush as number, 4e6 * 0.6 * 0.4 * (4 / 5), 1e-12);
+    expect(typeof flyingButtress({ span: 4, rise: 3, thickness: 0.4, unit_weight: 2e4 }).H_crush).toBe('object');
+  });
+
   it('refuses bad geometry, naming the option', () => {
     expect(() => flyingButtress({ span: 4, rise: 2, thickness: 2, unit_weight: 2e4 })).toThrow(/thickness/);
     expect(() => flyingButtress({ shape: 'arched', span: 4, rise: 2, thickness: 0.4, unit_weight: 2e4 })).toThrow(/sag/);
