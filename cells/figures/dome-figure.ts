@@ -86,7 +86,7 @@ export function domeFigure(d: Dome, limit?: DomeLimit): string {
       const pts = limit.thrust_min.map((p) => ({ x: p.r, y: p.z }));
       for (const side of [1, -1]) body += el('path', { d: pathData(pts.map((p) => at({ x: side * p.x, y: p.y }))), ...STYLES.thrust });
     }
-    facts.push([`lunes, no hoop tension: t_min ${metres(limit.t_min)}, gsf ${Number.isFinite(limit.gsf) ? limit.gsf.toFixed(2) : '∞'}`, limit.gsf < 1 ? RED : INK]);
+    facts.push([`lunes, no hoop tension: t_min ${typeof limit.t_min === 'number' ? metres(limit.t_min) : 'none fits'}, gsf ${Number.isFinite(limit.gsf) ? limit.gsf.toFixed(2) : '∞'}`, limit.gsf < 1 ? RED : INK]);
     if (typeof limit.H_min === 'number') facts.push([`base thrust from ${kilonewtons(limit.H_min, 'kN/m')} to ${Number.isFinite(limit.H_max as number) ? kilonewtons(limit.H_max as number, 'kN/m') : '∞'}`, INK]);
   }
   body += facts.map(([f, col], i) => text(100, 16 + i * 4.6, f, { fill: col, 'font-size': 2.3 })).join('');

@@ -98,7 +98,7 @@ export const dome_limit = defineCellFunction({
   reference: {
     params: { dome: `A spherical dome from dome(…) with thickness and unit_weight; cut into ${DOME_RINGS} courses of equal angle from the top edge to the base.` },
     fields: {
-      t_min: 'Least thickness (m) for which a thrust surface fits, the thickness scaled about the fixed middle surface; 0 when one fits however thin the shell (no hoop tension in the membrane state).',
+      t_min: 'Least thickness (m) for which a thrust surface fits, the thickness scaled about the fixed middle surface; 0 when one fits however thin the shell (no hoop tension in the membrane state); not available when no thickness up to 0.9 of the radius fits.',
       gsf: 'Geometric factor of safety thickness / t_min; ∞ when t_min = 0; 0 when no thickness up to 0.9 of the radius fits.',
       H_min: 'Least horizontal thrust per metre of the base circle (kN/m); not available when the dome is not safe at its thickness.',
       H_max: 'Greatest horizontal thrust per metre of the base circle (kN/m); ∞ when unbounded (the lowest course can take any hoop compression, as on a hemisphere); not available when not safe.',

@@ -11,7 +11,7 @@ export const DOME_RINGS = 32;
 
 export interface DomeLimit {
   /** Least thickness (m) for which a thrust surface fits, scaling the thickness about the fixed middle surface. */
-  t_min: number;
+  t_min: number | NotAvailable;
   /** Geometric factor of safety t / t_min; ∞ when a thrust surface fits however thin the shell. */
   gsf: number;
   /** Least and greatest horizontal thrust per metre of the base circle (N/m); not available when none fits. */
@@ -135,7 +135,7 @@ export function domeLimit(v: Dome): DomeLimit {
   const rb = a * Math.sin(d.phiBase), perMetre = (g * a ** 3) / rb;
   const none = 'no thrust surface fits within the dome: it is not safe at this thickness';
   if (least.status !== 'optimal') {
-    return { t_min: Number.isNaN(tMin) ? notAvailable('no thickness up to 0.9 of the radius fits') as never : tMin, gsf: Number.isNaN(tMin) ? 0 : d.t / tMin, H_min: notAvailable(none), H_max: notAvailable(none), hoop_min_state: notAvailable(none), thrust_min: notAvailable(none), safe: false };
+    return { t_min: Number.isNaN(tMin) ? notAvailable('no thickness up to 0.9 of the radius fits a thrust surface') : tMin, gsf: Number.isNaN(tMin) ? 0 : d.t / tMin, H_min: notAvailable(none), H_max: notAvailable(none), hoop_min_state: notAvailable(none), thrust_min: notAvailable(none), safe: false };
   }
   const most = simplex({ ...l.lp, c: baseThrust(l, 1) });
   const x = least.x;

@@ -129,7 +129,8 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
   const needed = (w: WebArc, other: WebArc): number => {
     const zg = webZAtPlan(other, other.e * (1 - 0.5 / c.slices));
     const deepest = webPhiAt(w, zg);
-    if (holds(w, deepest)) return 0;
+    // A deepest slice narrower than two thicknesses is a sliver: nothing to hold.
+    if ((w.r - w.h) * Math.sin(deepest) - w.c < 2 * c.t || holds(w, deepest)) return 0;
     // The shallowest cut analysed: a slice two thicknesses wide (narrower ones are slivers).
     let lo = Math.asin(Math.min(1, (2 * c.t + w.c) / (w.r - w.h))), hi = deepest;
     if (!(lo < hi) || !holds(w, lo)) return w.crown;
@@ -166,9 +167,19 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
       }
       const Hmax = lim.H_max ?? Infinity;
       // Where each extreme line crosses the springing joint: the last point of thrustLine, in the bay's frame.
-      const cross = (H: number) => { const pts = thrustLine(ring, loads, H); const p = pts[pts.length - 1]!; return { x: p.x, z: p.y + z0 }; };
-      const lo = cross(lim.H_min * (1 + 1e-9));
-      const hi = Number.isFinite(Hmax) ? cross(Hmax * (1 - 1e-9)) : lo;
+      // Nudged inside the range, and further if rounding leaves no line at the very edge.
+      const cross = (H: number, dir: number) => {
+        for (const eps of [1e-9, 1e-7, 1e-5, 1e-3]) {
+          try {
+            const pts = thrustLine(ring, loads, H * (1 + dir * eps));
+            const p = pts[pts.length - 1]!;
+            return { x: p.x, z: p.y + z0 };
+          } catch { /* try a little further inside */ }
+        }
+        throw new RangeError(`cross_vault: no line of thrust could be traced for the slice at ${v.toFixed(3)} m from the centre line`);
+      };
+      const lo = cross(lim.H_min, 1);
+      const hi = Number.isFinite(Hmax) ? cross(Hmax, -1) : lo;
       if (!Number.isFinite(Hmax)) maxBounded = false;
       slices.push({ ...base, W, H_min: lim.H_min, H_max: Hmax, x_min: lo.x, z_min: lo.z, x_max: hi.x, z_max: hi.z });
     }
