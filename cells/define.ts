@@ -8,6 +8,7 @@
  */
 import { math } from './math.js';
 import { toSI, fromSI, UnitMismatchError } from './units.js';
+import { isNotAvailable } from './not-available.js';
 
 /**
  * What a parameter, option or result field holds.
@@ -153,6 +154,7 @@ function toKernel(value: unknown, type: FieldType, what: string): unknown {
 }
 
 function fromKernel(value: unknown, type: FieldType | undefined): unknown {
+  if (isNotAvailable(value)) return value;
   if (value === undefined || value === null || math.isUnit(value) || math.isMatrix(value)) return value;
   if (type === undefined || (typeof type === 'string' && KEYWORDS.has(type))) {
     if (Array.isArray(value)) return value.map((v) => fromKernel(v, undefined));

@@ -88,7 +88,7 @@ export function crossVaultFigure(c: CrossVault): string {
       body += arrow(cpt, { x: cpt.x + len(view.H), y: cpt.y }, '', RED) + el('circle', { cx: cpt.x, cy: cpt.y, r: 0.8, fill: RED });
     }
   });
-  const facts = `solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${kilonewtons(c.V_corner)} per corner; ${c.slices} slices per web`;
+  const facts = `solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? kilonewtons(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`;
   body += text(8, 97, facts, { fill: MUTED, 'font-size': 2.2 });
   body += scaleBar(scale, { x: 8, y: 91 }, 30);
   return markFigure(svgDocument(170, 100, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body));

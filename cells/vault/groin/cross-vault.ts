@@ -46,8 +46,8 @@ export interface CrossVault {
   /** Least height of solid pocket for which every slice holds a line of thrust (m), and the height used. */
   fill_needed: number; solid_level: number;
   safe: boolean;
-  /** Load the slices carry down the groins (N), and its quarter at each corner (N). */
-  W: number; V_corner: number;
+  /** Load the slices carry down the groins (N), and its quarter at each corner (N); not available when a slice holds no line. */
+  W: number | NotAvailable; V_corner: number | NotAvailable;
   /** Range of the corner thrust in x and in y (N per corner). */
   H_x_min: number | NotAvailable; H_x_max: number | NotAvailable; H_y_min: number | NotAvailable; H_y_max: number | NotAvailable;
   /** Height above the springing where the corner's resultant crosses the vertical plane of the corner: least- and greatest-thrust states (m). */
@@ -159,13 +159,14 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
       const { ring, z0 } = sliceRing(own, phi, dv, c.gamma);
       const loads = loadsAt(z0);
       const lim = archLimit(ring, loads);
-      const W = lim.V_left !== undefined && lim.V_right !== undefined ? lim.V_left + lim.V_right : ring.weight;
-      if (!lim.safe || lim.H_min === undefined) {
+      // typeof guards: a field the arch kernel cannot give may come as undefined or as "not available".
+      const W = typeof lim.V_left === 'number' && typeof lim.V_right === 'number' ? lim.V_left + lim.V_right : NaN;
+      if (!lim.safe || typeof lim.H_min !== 'number') {
         safe = false;
         slices.push({ ...base, W, H_min: NaN, H_max: NaN });
         continue;
       }
-      const Hmax = lim.H_max ?? Infinity;
+      const Hmax = typeof lim.H_max === 'number' ? lim.H_max : Infinity;
       // Where each extreme line crosses the springing joint: the last point of thrustLine, in the bay's frame.
       // Nudged inside the range, and further if rounding leaves no line at the very edge.
       const cross = (H: number, dir: number) => {
@@ -217,7 +218,7 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
     shape: c.shape, span_x: c.spanX, span_y: c.spanY,
     rise_x: webs.x.rise, rise_y: webs.y.rise, stilt_x: webs.x.stilt, stilt_y: webs.y.stilt,
     crown: webs.x.crown, slices: c.slices, fill_needed, solid_level: solid, safe,
-    W, V_corner: W / 4,
+    W: ok(() => W), V_corner: ok(() => W / 4),
     H_x_min: ok(() => sum('x', 'min')), H_x_max: ok(() => (maxBounded ? sum('x', 'max') : Infinity)),
     H_y_min: ok(() => sum('y', 'min')), H_y_max: ok(() => (maxBounded ? sum('y', 'max') : Infinity)),
     z_x_min: ok(() => height('x', 'min')), z_y_min: ok(() => height('y', 'min')),

@@ -44,3 +44,15 @@ describe('buttress and tie registered for cells', () => {
     expectClose(num(r.area, 'mm^2'), 100e3 / 235, 1e-12);
   });
 });
+
+describe('fields that are not available pass through the cell wrapper unchanged (issue 12 §2, issue 15)', () => {
+  it('tie without f_u: utilization and governs (a text field) stay "not available" with the reason', async () => {
+    const { isNotAvailable } = await import('../../../cells/not-available.js');
+    const r = tie.call({ T: u(100, 'kN'), f_y: u(235, 'MPa') }) as Record<string, unknown>;
+    expect(isNotAvailable(r.utilization)).toBe(true);
+    expect(isNotAvailable(r.governs)).toBe(true);
+    const b = buttress.call({ height: u(6, 'm'), width: u(1, 'm'), depth: u(1, 'm'), unit_weight: u(20, 'kN/m^3'), T: u(0, 'kN') }) as Record<string, unknown>;
+    expect(isNotAvailable(b.bearing_ok)).toBe(true);
+    expect(b.sf_overturning).toBe(Infinity);
+  });
+});
