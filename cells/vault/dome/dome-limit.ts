@@ -16,7 +16,7 @@ export interface DomeLimit {
   gsf: number;
   /** Least and greatest horizontal thrust per metre of the base circle (N/m); not available when none fits. */
   H_min: number | NotAvailable; H_max: number | NotAvailable;
-  /** Total hoop compression in the least-thrust state (N per radian of the circle), and the lowest angle where it acts (rad). */
+  /** Total hoop compression in the least-thrust state (N per radian of the circle). */
   hoop_min_state: number | NotAvailable;
   /** Line of thrust of a lune in the least-thrust state: points {r, z} where it cuts each joint (m), z above the base joint's centre. */
   thrust_min: Array<{ r: number; z: number }> | NotAvailable;
