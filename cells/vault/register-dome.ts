@@ -87,7 +87,7 @@ export const dome_at = defineCellFunction({
 
 export const dome_limit = defineCellFunction({
   name: 'dome_limit',
-  doc: 'Limit analysis of a spherical dome cut into lunes, hoop compression allowed and no hoop tension: least thickness, geometric factor of safety and the range of base thrust.',
+  doc: 'Limit analysis of a dome (spherical or pointed) cut into lunes, hoop compression allowed and no hoop tension: least thickness, geometric factor of safety and the range of base thrust.',
   params: [{ name: 'dome', type: { ref: 'dome' } }],
   returns: {
     object: {
@@ -96,7 +96,7 @@ export const dome_limit = defineCellFunction({
   },
   fn: domeLimit,
   reference: {
-    params: { dome: `A spherical dome from dome(…) with thickness and unit_weight; cut into ${DOME_RINGS} courses of equal angle from the top edge to the base.` },
+    params: { dome: `A dome from dome(…) (spherical or pointed) with thickness and unit_weight; cut into ${DOME_RINGS} courses of equal angle from the top edge to the base.` },
     fields: {
       t_min: 'Least thickness (m) for which a thrust surface fits, the thickness scaled about the fixed middle surface; 0 when one fits however thin the shell (no hoop tension in the membrane state); not available when no thickness up to 0.9 of the radius fits.',
       gsf: 'Geometric factor of safety thickness / t_min; ∞ when t_min = 0; 0 when no thickness up to 0.9 of the radius fits.',
@@ -107,7 +107,7 @@ export const dome_limit = defineCellFunction({
       safe: 'true when a thrust surface fits within the thickness.',
     },
     method: 'The dome cracks along its meridians into lunes (no hoop tension). Each lune is an arch whose width grows with the radius; each course may push it outwards by a hoop compression acting anywhere within the course\'s section. A state is admissible when the resultant crosses every joint (radial, conical) within the thickness; the admissible states form a polyhedron, so the least and greatest base thrust are linear programmes (two-phase simplex) and t_min is found by bisection on the thickness. Crown thrust at a closed crown anywhere within the crown\'s thickness; the top course of an oculus acts as its compression ring.',
-    assumptions: ['Heyman\'s assumptions: no tensile strength, no sliding, unlimited compressive strength.', 'Spherical domes only; loads axisymmetric.', 'Hoop compression unlimited in magnitude; hoop tension zero.'],
+    assumptions: ['Heyman\'s assumptions: no tensile strength, no sliding, unlimited compressive strength.', 'Loads axisymmetric; a pointed dome\'s apex is the radial joint through the apex of its middle surface.', 'Hoop compression unlimited in magnitude; hoop tension zero.'],
     sources: [
       'Heyman, The Stone Skeleton, Cambridge 1995, ch. 3 (the masonry dome): the hemisphere needs t/R ≈ 0.042 (from memory).',
       'Heyman, Equilibrium of Shell Structures, Oxford 1977 (from memory).',

@@ -1,5 +1,5 @@
 /**
- * Limit analysis of a spherical masonry dome cut into lunes, with hoop compression and no hoop tension.
+ * Limit analysis of a masonry dome (spherical or pointed) cut into lunes, with hoop compression and no hoop tension.
  */
 import { notAvailable, type NotAvailable } from '../../not-available.js';
 import type { Dome } from './dome.js';
@@ -44,27 +44,32 @@ function lune(d: DomeInput, h: number, rings: number): Lune {
   const phi = (i: number) => d.phiTop + ((d.phiBase - d.phiTop) * i) / rings;
   const g = d.gamma > 0 ? d.gamma : d.q / Math.max(d.t, 1e-9);
   const pTilde = d.p / (g * d.a), PTilde = d.P / (2 * Math.PI) / (g * d.a ** 3);
-  const cube = ((1 + h) ** 3 - (1 - h) ** 3) / 3, quart = ((1 + h) ** 4 - (1 - h) ** 4) / 4;
+  const cube = ((1 + h) ** 3 - (1 - h) ** 3) / 3, quart = ((1 + h) ** 4 - (1 - h) ** 4) / 4, sq = 2 * h;
+  // Offset of a pointed dome's meridian centre across the axis, in units of a (0 when spherical):
+  // a point of the section is r = (1 + ζ)·sin φ − cc, z = (1 + ζ)·cos φ.
+  const cc = d.c / d.a;
   const ring = Array.from({ length: rings }, (_, i) => {
     const a0 = phi(i), a1 = phi(i + 1);
-    const W = (Math.cos(a0) - Math.cos(a1)) * cube;
-    const M = ((a1 - a0) / 2 - (Math.sin(2 * a1) - Math.sin(2 * a0)) / 4) * quart;
-    const r0 = Math.sin(a0), r1 = Math.sin(a1);
+    // ∫∫ r·(1 + ζ) dζ dφ and ∫∫ r²·(1 + ζ) dζ dφ over the course (volume and its moment about the axis, per radian).
+    const S1 = Math.cos(a0) - Math.cos(a1), S2 = (a1 - a0) / 2 - (Math.sin(2 * a1) - Math.sin(2 * a0)) / 4;
+    const W = S1 * cube - cc * (a1 - a0) * sq;
+    const M = S2 * quart - 2 * cc * S1 * cube + cc * cc * (a1 - a0) * sq;
+    const r0 = Math.sin(a0) - cc, r1 = Math.sin(a1) - cc;
     const Wp = (pTilde * (r1 * r1 - r0 * r0)) / 2;
     return { W, x: M / W, Wp, xp: Wp > 0 ? ((2 / 3) * (r1 ** 3 - r0 ** 3)) / (r1 * r1 - r0 * r0) : 0, zlo: (1 - h) * Math.cos(a1), zhi: (1 + h) * Math.cos(a0) };
   });
   const joint = Array.from({ length: rings + 1 }, (_, j) => {
     const s = Math.sin(phi(j)), c = Math.cos(phi(j));
-    return { I: [(1 - h) * s, (1 - h) * c] as [number, number], E: [(1 + h) * s, (1 + h) * c] as [number, number] };
+    return { I: [(1 - h) * s - cc, (1 - h) * c] as [number, number], E: [(1 + h) * s - cc, (1 + h) * c] as [number, number] };
   });
   const A: number[][] = [], b: number[] = [];
-  const rP = Math.sin(d.phiTop);
+  const rP = Math.sin(d.phiTop) - cc, zTop = Math.cos(d.phiTop);
   for (let j = 1; j <= rings; j++) {
     for (const [X, sign] of [[joint[j]!.I, 1], [joint[j]!.E, -1]] as const) {
       const [rX, zX] = X;
       const row = new Array<number>(nv).fill(0);
       let k = -PTilde * (rP - rX);
-      if (closed) { row[0] = zX - (1 - h); row[1] = -1; }
+      if (closed) { row[0] = zX - (1 - h) * zTop; row[1] = -1; }
       for (let i = 0; i < j; i++) {
         const R = ring[i]!;
         row[k0 + 2 * i] = zX - R.zlo;
@@ -81,7 +86,7 @@ function lune(d: DomeInput, h: number, rings: number): Lune {
     row[col + 1] = 1; row[col] = -range;
     A.push(row); b.push(0);
   };
-  if (closed) bound(0, 2 * h);
+  if (closed) bound(0, 2 * h * zTop);
   ring.forEach((R, i) => bound(k0 + 2 * i, R.zhi - R.zlo));
   return { lp: { A, b, c: new Array<number>(nv).fill(0) }, k0, rings, joint };
 }
@@ -92,7 +97,7 @@ function baseThrust(l: Lune, sign: number): number[] {
 }
 
 /**
- * Limit analysis of a spherical dome after Heyman (The Stone Skeleton, Cambridge 1995, ch. on the
+ * Limit analysis of a dome after Heyman (The Stone Skeleton, Cambridge 1995, ch. on the
  * dome; Equilibrium of Shell Structures, Oxford 1977): the dome is cut into lunes by meridian cracks
  * (no hoop tension); each lune is an arch of varying width that may be pushed outwards by hoop
  * compression, which can act anywhere within each course's section. By the safe theorem the dome
@@ -100,13 +105,14 @@ function baseThrust(l: Lune, sign: number): number[] {
  * a polyhedron, so the least and greatest base thrust are linear programmes (solved by simplex.ts)
  * and the least thickness is found by bisection on the thickness about the fixed middle surface.
  * Heyman's hemisphere needs t/R ≈ 0.042 (from memory).
- * @param v a spherical dome from dome(), with thickness and unit_weight
+ * A pointed dome's closed apex is the radial joint through the apex of its middle surface, where the
+ * two halves of each lune's pair meet (as the arch kernel cuts a pointed arch).
+ * @param v a dome from dome(), with thickness and unit_weight
  * @returns t_min, gsf, H_min, H_max and the least-thrust line of a lune
  * @example domeLimit(dome({radius: 10, half_angle: Math.PI / 2, thickness: 0.6, unit_weight: 2e4})).gsf // ≈ 1.4
  */
 export function domeLimit(v: Dome): DomeLimit {
   const d = v.model;
-  if (d.shape !== 'spherical') throw new RangeError('dome_limit: only spherical domes are analysed so far; for a pointed dome use dome() (membrane) and a lune by arch_limit');
   if (!(d.t > 0)) throw new RangeError('dome_limit: the dome needs a thickness (and unit_weight)');
   const rings = DOME_RINGS, a = d.a, g = d.gamma;
   const feasible = (h: number) => simplex(lune(d, h, rings).lp).status !== 'infeasible';
@@ -132,7 +138,7 @@ export function domeLimit(v: Dome): DomeLimit {
   }
   const l = lune(d, h, rings);
   const least = simplex({ ...l.lp, c: baseThrust(l, -1) });
-  const rb = a * Math.sin(d.phiBase), perMetre = (g * a ** 3) / rb;
+  const rb = a * Math.sin(d.phiBase) - d.c, perMetre = (g * a ** 3) / rb;
   const none = 'no thrust surface fits within the dome: it is not safe at this thickness';
   if (least.status !== 'optimal') {
     return { t_min: Number.isNaN(tMin) ? notAvailable('no thickness up to 0.9 of the radius fits a thrust surface') : tMin, gsf: Number.isNaN(tMin) ? 0 : d.t / tMin, H_min: notAvailable(none), H_max: notAvailable(none), hoop_min_state: notAvailable(none), thrust_min: notAvailable(none), safe: false };
