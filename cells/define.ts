@@ -201,9 +201,8 @@ function toKernel(value: unknown, type: FieldType, what: string): unknown {
 }
 
 function fromKernel(value: unknown, type: FieldType | undefined): unknown {
-  // A field that does not exist in this state stays a NotAvailable (frozen, with its reason); an
-  // unbounded one is Infinity and gets its unit below like any other number.
-  if (value === undefined || value === null || math.isUnit(value) || math.isMatrix(value) || isNotAvailable(value)) return value;
+  if (isNotAvailable(value)) return value;
+  if (value === undefined || value === null || math.isUnit(value) || math.isMatrix(value)) return value;
   if (type === undefined || (typeof type === 'string' && KEYWORDS.has(type))) {
     if (Array.isArray(value)) return value.map((v) => fromKernel(v, undefined));
     if (typeof value === 'object') return fromKernel(value, { object: {} });

@@ -11,8 +11,8 @@ import * as render from '../engine/render/index.js';
 describe('public surface', () => {
   it('cells/index.ts lists exactly the functions a cell may call', () => {
     expect(Object.keys(cells).sort()).toEqual([
-      'arch_limit', 'arch_ring', 'arch_scan', 'barrel_membrane', 'buttress', 'clamp', 'force_polygon', 'groin_vault',
-      'interp', 'masonry_fd', 'masonry_fk', 'membrane_at', 'membrane_plot', 'scan_plot', 'section', 'support_figure',
+      'arch_limit', 'arch_ring', 'arch_scan', 'barrel_membrane', 'buttress', 'clamp', 'cross_vault', 'cross_vault_figure', 'dome', 'dome_at', 'dome_figure', 'dome_limit',
+      'flyer_figure', 'flying_buttress', 'force_polygon', 'groin_vault', 'interp', 'masonry_fd', 'masonry_fk', 'membrane_at', 'membrane_plot', 'scan_plot', 'section', 'support_figure',
       'thrust_line', 'tie', 'unit_weight', 'vault_bays', 'vault_plan', 'web_membrane_at',
     ]);
     for (const [key, f] of Object.entries(cells)) {

@@ -13,9 +13,20 @@ import { membranePlot } from './membrane-plot.js';
 import { vaultPlan } from './vault-plan.js';
 import { supportFigure } from './support-figure.js';
 import { LOADS_REFERENCE } from '../vault/arch/reference.js';
-import { BUTTRESS_OPTIONS } from '../supports/register.js';
+import { buttress } from '../supports/register.js';
 import { scanPlot } from './scan-plot.js';
 import { ARCH_LOADS } from '../vault/register-arch.js';
+import { domeFigure } from './dome-figure.js';
+import { crossVaultFigure } from './cross-vault-figure.js';
+import { flyerFigure } from './flyer-figure.js';
+import type { Dome } from '../vault/dome/dome.js';
+import type { DomeLimit } from '../vault/dome/dome-limit.js';
+
+/** buttress's options, as support_figure takes them too. */
+const BUTTRESS_OPTIONS: Record<string, string> = {
+  options: 'The support and the forces the vault puts on it, as given to buttress.',
+  ...(buttress.reference?.params ?? {}),
+};
 
 const SVG = 'An SVG drawing to scale, recorded as the figure of a ```figure cell and printed on the sheet.';
 const HEYMAN_BOOK = 'J. Heyman, The Stone Skeleton, Cambridge University Press, 1995.';
@@ -88,10 +99,10 @@ export const vault_plan = defineCellFunction({
   returns: 'text',
   fn: vaultPlan,
   reference: {
-    params: { vault: 'One bay, from groin_vault.' },
+    params: { vault: 'A result of groin_vault(…).' },
     fields: { result: SVG },
-    method: 'Draws the bay in plan (webs, groins and the horizontal thrusts at the corners) and in elevation across the x-span, with the corner thrust at the height z_thrust where it acts and the corner load.',
-    sources: ['J. Heyman, Equilibrium of Shell Structures, Oxford University Press, 1977 (cross vaults).'],
+    method: 'Plan: the bay with its clear spans dimensioned, the groins, generator lines and the corner thrusts with their resultant. Elevations across the x-span and the y-span: each barrel\'s shell (a stilt where it has one), the corner thrust at its height z and the corner load.',
+    sources: ['Heyman, Equilibrium of Shell Structures, Oxford 1977, cross-vault chapter (from memory).'],
   },
 });
 
@@ -132,5 +143,50 @@ export const scan_plot = defineCellFunction({
     params: { scan: 'A vehicle scan made by arch_scan.' },
     fields: { result: SVG },
     method: 'Plots the collapse load factor λ against the position of the lead axle (from the left springing of the intrados) and marks the least value and its position.',
+  },
+});
+
+export const dome_figure = defineCellFunction({
+  name: 'dome_figure',
+  doc: 'Figure: a dome\'s meridian section to scale with the hoop-tension zone and, given dome_limit, the least-thrust line of a lune; N_φ and N_θ along the meridian: dome_figure(d) or dome_figure(d, dome_limit(d)).',
+  params: [{ name: 'dome', type: { ref: 'dome' } }, { name: 'limit', type: { refWithArgs: 'dome_limit' }, optional: true }],
+  returns: 'text',
+  fn: (d: Dome, limit?: WithArgs<DomeLimit>) => {
+    if (limit && limit.args[0] !== d) throw new RangeError('dome_figure: this dome_limit result was computed for another dome; pass the same dome');
+    return domeFigure(d, limit?.value);
+  },
+  reference: {
+    params: { dome: 'A result of dome(…).', limit: 'Optional: dome_limit(…) of the same dome, to draw the least-thrust line of a lune and print t_min and the thrust range.' },
+    fields: { result: SVG },
+    method: 'Draws the shell to scale (intrados, extrados; both halves), marks the membrane hoop-tension zone on the middle surface, and plots N_φ and N_θ against the angle from the crown.',
+    sources: ['Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 1959, §§128–129.'],
+  },
+});
+
+export const cross_vault_figure = defineCellFunction({
+  name: 'cross_vault_figure',
+  doc: 'Figure: a cross vault by slicing — slice planes in plan with the least corner thrusts; both elevations with the webs, the solid pocket, where each slice springs and the corner thrust at its height; clear spans dimensioned: cross_vault_figure(c).',
+  params: [{ name: 'vault', type: { ref: 'cross_vault' } }],
+  returns: 'text',
+  fn: crossVaultFigure,
+  reference: {
+    params: { vault: 'A result of cross_vault(…).' },
+    fields: { result: SVG },
+    method: 'Plan: the bay, the groins, each slice\'s plane (red where a slice holds no line of thrust) and the least corner thrusts. Elevations across both spans: the wider and narrower webs, the top of the solid pocket, the points where the least-thrust lines of the slices cross their springings, and the corner resultant at z_x_min / z_y_min.',
+    sources: ['Heyman, The Stone Skeleton, Cambridge 1995 (slicing; from memory).'],
+  },
+});
+
+export const flyer_figure = defineCellFunction({
+  name: 'flyer_figure',
+  doc: 'Figure: a flying buttress in elevation with its lines of least and greatest thrust: flyer_figure(f) with f from flying_buttress.',
+  params: [{ name: 'flyer', type: { ref: 'flying_buttress' } }],
+  returns: 'text',
+  fn: flyerFigure,
+  reference: {
+    params: { flyer: 'A result of flying_buttress(…).' },
+    fields: { result: SVG },
+    method: 'Draws the bar to scale between the wall face and the pier face, with the lines of least and greatest thrust (the latter left out when unbounded).',
+    sources: ['Heyman, The Stone Skeleton, Cambridge 1995, on the flying buttress (from memory).'],
   },
 });

@@ -16,6 +16,11 @@ const RED = '#a3162b';
 const PATH = { stroke: RED, 'stroke-width': 0.6 };
 const THIRD = { stroke: '#2c4a6b', 'stroke-width': 0.3, 'stroke-dasharray': '1.6 1' };
 
+/** A least width, or "any" when every width keeps the resultant inside. */
+function widthText(w: number | { reason: string }): string {
+  return typeof w === 'number' ? metres(w) : 'any';
+}
+
 /**
  * Draws a support with its line of thrust.
  * @param b from buttress (SI)
@@ -57,9 +62,11 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
   body += el('path', { d: pathData(path), ...PATH });
   // Thrust of the vault and its vertical load, to one force scale.
   const fmax = Math.max(o.T, o.V ?? 0, 1e-9), len = (f: number) => (f / fmax) * Math.min(B * frame.scale, 14);
-  const tHead = at(0, o.z_T);
-  body += arrow({ x: tHead.x - len(o.T), y: tHead.y }, tHead, '', INK);
-  body += label(tHead.x - len(o.T) / 2, tHead.y - 1.6, `T = ${kilonewtons(o.T)}`);
+  if (o.T > 0 && o.z_T !== undefined) {
+    const tHead = at(0, o.z_T);
+    body += arrow({ x: tHead.x - len(o.T), y: tHead.y }, tHead, '', INK);
+    body += label(tHead.x - len(o.T) / 2, tHead.y - 1.6, `T = ${kilonewtons(o.T)}`);
+  }
   if (o.V) {
     const v = at(o.x_V ?? 0, height);
     body += arrow({ x: v.x, y: v.y - len(o.V) }, v, '', INK) + label(v.x + 1.5, v.y - len(o.V) / 2, `V = ${kilonewtons(o.V)}`, 'start');
@@ -70,16 +77,16 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
   body += label(base.x + 1.5, base.y - 5, `N = ${kilonewtons(b.N)}`, 'start', { fill: RED });
   body += dimension(at(0, 0), at(B, 0), -9, `base ${metres(B)}`);
   body += dimension(at(B, 0), at(B, height), -(B * 0.1 * frame.scale + 6), `height ${metres(height)}`);
-  body += dimension(at(0, 0), at(0, o.z_T), 5, `z_T ${metres(o.z_T)}`);
+  if (o.T > 0 && o.z_T !== undefined) body += dimension(at(0, 0), at(0, o.z_T), 5, `z_T ${metres(o.z_T)}`);
   // Verdicts and the legend, on the right.
   const lines = [
     [`resultant at the base: ${metres(b.x_R)} from the outer toe,`, INK],
     [`eccentricity e = ${metres(b.e)} from the centre of the base`, INK],
     [b.middle_third ? 'within the middle third of the base' : b.in_base ? 'OUTSIDE the middle third: part of the base lifts' : 'OUTSIDE the base: the support overturns', b.middle_third ? INK : RED],
-    [`overturning: safety factor ${b.sf_overturning.toFixed(2)}`, b.sf_overturning < 1 ? RED : INK],
-    [`least base width: ${metres(b.width_min_third)} (middle third), ${metres(b.width_min_base)} (in base)`, INK],
+    [`overturning: safety factor ${Number.isFinite(b.sf_overturning) ? b.sf_overturning.toFixed(2) : '∞ (no thrust)'}`, b.sf_overturning < 1 ? RED : INK],
+    [`least base width: ${widthText(b.width_min_third)} (middle third), ${widthText(b.width_min_base)} (in base)`, INK],
     ...(typeof b.sigma_max === 'number' ? [[`base pressure: max ${kilonewtons(b.sigma_max, 'kN/m²')}, min ${kilonewtons(typeof b.sigma_min === 'number' ? b.sigma_min : 0, 'kN/m²')}`, INK]] : []),
-    ...(typeof b.sf_sliding === 'number' ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
+    ...(typeof b.sf_sliding === 'number' && Number.isFinite(b.sf_sliding) ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
   ] as Array<[string, string]>;
   body += lines.map(([t, c], i) => text(112, 30 + i * 5, t, { fill: c, 'font-weight': c === RED ? 'bold' : undefined, 'font-size': 2.3 })).join('');
   body += legendItem({ x: 112, y: 20 }, PATH, 'path of the resultant') + legendItem({ x: 112, y: 24.5 }, THIRD, 'middle third of each section');

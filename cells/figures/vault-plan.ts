@@ -1,6 +1,6 @@
 /**
  * vault_plan(v): a cross vault in plan — webs, groins and the thrusts at the
- * corners — and in elevation across the x-span, with the corner thrust at
+ * corners, clear spans dimensioned — and in elevation across both spans, with the corner thrust at
  * the height where it acts (the statics of groin_vault: Heyman, Equilibrium
  * of Shell Structures, 1977, cross-vault chapter).
  */
@@ -40,14 +40,17 @@ export function vaultPlan(v: GroinVault): string {
   const planBox = { left: 8, top: 14, width: 72, height: 72 };
   const frameP = fitFrame({ xMin: -ex - reach, xMax: ex + reach, yMin: -ey - reach, yMax: ey + reach }, planBox);
   const elevTop = v.crown + h;
-  const frameE0 = fitFrame({ xMin: -ex - reach, xMax: ex + reach, yMin: -0.15 * ex, yMax: elevTop + 0.1 * ex }, { left: 90, top: 14, width: 76, height: 72 });
+  // Two elevations stacked on the right: across the x-span (top) and across the y-span (bottom).
+  const elevBox = (k: number) => ({ left: 90, top: 14 + k * 40, width: 76, height: 34 });
+  const frameE0 = fitFrame({ xMin: -Math.max(ex, ey) - reach, xMax: Math.max(ex, ey) + reach, yMin: -0.15 * ex, yMax: elevTop + 0.1 * ex }, elevBox(0));
   const scale = Math.min(frameP.scale, frameE0.scale);
   const P0 = { x: planBox.left + planBox.width / 2, y: planBox.top + planBox.height / 2 };
   const pl = (p: P): P => ({ x: P0.x + p.x * scale, y: P0.y - p.y * scale });
-  const baseE = 14 + 72 - 0.15 * ex * scale - 8;
-  const E0 = { x: 90 + 76 / 2 };
-  const ev = (p: P): P => ({ x: E0.x + p.x * scale, y: baseE - p.y * scale });
-  let body = text(8, 6, 'PLAN', { fill: INK, 'font-weight': 'bold' }) + text(90, 6, 'ELEVATION across the x-span', { fill: INK, 'font-weight': 'bold' });
+  const evAt = (k: number) => {
+    const base = elevBox(k).top + elevBox(k).height - 6;
+    return (p: P): P => ({ x: 90 + 76 / 2 + p.x * scale, y: base - p.y * scale });
+  };
+  let body = text(8, 6, 'PLAN', { fill: INK, 'font-weight': 'bold' }) + text(90, 6, 'ELEVATIONS across the x-span and the y-span', { fill: INK, 'font-weight': 'bold' });
   // Plan: the bay, the groins where the two barrels meet (at equal heights), and generator lines on each web.
   const corners = [{ x: ex, y: ey }, { x: -ex, y: ey }, { x: -ex, y: -ey }, { x: ex, y: -ey }];
   body += el('path', { d: pathData(corners.map(pl), true), fill: '#f1f3f5', stroke: INK, 'stroke-width': 0.45 });
@@ -82,30 +85,41 @@ export function vaultPlan(v: GroinVault): string {
   body += label(q.x + len(v.H_corner_x) + 1, q.y - len(v.H_corner_y) - 1.5, `H = ${kilonewtons(v.H_corner)}`, 'end', { fill: RED, 'font-weight': 'bold' });
   body += label(q.x + len(v.H_corner_x) + 1.5, q.y + 0.9, `H_x = ${kilonewtons(v.H_corner_x)}`, 'start', { fill: '#2c4a6b' });
   body += label(q.x - 1.5, q.y - len(v.H_corner_y) + 2, `H_y = ${kilonewtons(v.H_corner_y)}`, 'end', { fill: '#2c4a6b' });
-  body += dimension(pl({ x: -ex, y: -ey }), pl({ x: ex, y: -ey }), -4, `${metres(2 * ex)} (x)`);
-  body += dimension(pl({ x: -ex, y: ey }), pl({ x: -ex, y: -ey }), -(reach * 0.85 * scale + 4), `${metres(2 * ey)} (y)`);
-  // Elevation: the x-barrel's shell, the piers, the thrust at its height and the corner load.
-  const outline = [...arch(sx.section, h), ...arch(sx.section, -h).reverse()];
-  body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
-  const ground = ev({ x: 0, y: 0 }).y;
-  for (const side of [-1, 1]) {
-    const a = ev({ x: side * (ex - h), y: 0 }), b = ev({ x: side * (ex + h), y: sx.section.s });
-    if (sx.section.s > 0) body += el('rect', { x: Math.min(a.x, b.x), y: b.y, width: Math.abs(b.x - a.x), height: a.y - b.y, fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
-    const c = ev({ x: side * ex, y: v.z_thrust });
-    const tip = { x: c.x + side * len(v.H_corner_x), y: c.y };
-    body += arrow(c, tip, '', RED) + el('circle', { cx: c.x, cy: c.y, r: 0.8, fill: RED });
-    body += arrow({ x: c.x, y: ground + 0.8 }, { x: c.x, y: ground + 9 }, '', INK);
-    if (side > 0) {
-      body += label(c.x + 1, c.y + 3.8, `H_x = ${kilonewtons(v.H_corner_x)}`, 'start', { fill: RED });
-      body += label(c.x + 1.5, ground + 7, `V = ${kilonewtons(v.V_corner)}`, 'start');
+  // Clear spans between the faces of the supports (the corners stand half a thickness further out).
+  const cx = v.model.input.spanX / 2, cy = v.model.input.spanY / 2;
+  body += dimension(pl({ x: -cx, y: -ey }), pl({ x: cx, y: -ey }), -4, `clear ${metres(2 * cx)} (x)`);
+  body += dimension(pl({ x: -ex, y: cy }), pl({ x: -ex, y: -cy }), -(reach * 0.85 * scale + 4), `clear ${metres(2 * cy)} (y)`);
+  // Elevations: each barrel's shell, the piers, the thrust at its height and the corner load.
+  const views = [
+    { sec: sx.section, e: ex, H: v.H_corner_x, z: v.z_thrust, name: 'x', clear: v.model.input.spanX },
+    { sec: sy.section, e: ey, H: v.H_corner_y, z: v.z_thrust_y, name: 'y', clear: v.model.input.spanY },
+  ];
+  views.forEach((w, k) => {
+    const ev = evAt(k);
+    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span`, { fill: MUTED, 'font-size': 2.2 });
+    const outline = [...arch(w.sec, h), ...arch(w.sec, -h).reverse()];
+    body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
+    const ground = ev({ x: 0, y: 0 }).y;
+    for (const side of [-1, 1]) {
+      const a = ev({ x: side * (w.e - h), y: 0 }), b = ev({ x: side * (w.e + h), y: w.sec.s });
+      if (w.sec.s > 0) body += el('rect', { x: Math.min(a.x, b.x), y: b.y, width: Math.abs(b.x - a.x), height: a.y - b.y, fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
+      const c = ev({ x: side * w.e, y: w.z });
+      const tip = { x: c.x + side * len(w.H), y: c.y };
+      body += arrow(c, tip, '', RED) + el('circle', { cx: c.x, cy: c.y, r: 0.8, fill: RED });
+      body += arrow({ x: c.x, y: ground + 0.8 }, { x: c.x, y: ground + 5 }, '', INK);
+      if (side > 0) {
+        body += label(c.x + 1, c.y + 3.8, `H_${w.name} = ${kilonewtons(w.H)}`, 'start', { fill: RED });
+        body += label(c.x + 1.5, ground + 4.5, `V = ${kilonewtons(v.V_corner)}`, 'start');
+      }
     }
-  }
-  body += el('line', { x1: ev({ x: -ex - reach, y: 0 }).x, y1: ground, x2: ev({ x: ex + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
-  body += dimension(ev({ x: -ex, y: 0 }), ev({ x: -ex, y: v.z_thrust }), len(v.H_corner_x) + 3, `z = ${metres(v.z_thrust)}`);
-  body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), -3, `crown ${metres(v.crown)}`);
+    body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
+    body += dimension(ev({ x: -w.clear / 2, y: 0 }), ev({ x: w.clear / 2, y: 0 }), -2.5, `clear ${metres(w.clear)}`);
+    body += dimension(ev({ x: -w.e, y: 0 }), ev({ x: -w.e, y: w.z }), len(w.H) + 3, `z = ${metres(w.z)}`);
+    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), -3, `crown ${metres(v.crown)}`);
+  });
   body += scaleBar(scale, { x: 8, y: 92 }, 40);
-  body += text(90, 94, 'Corners at the springing of the middle surface; thrust per corner.', { fill: MUTED, 'font-size': 2.2 });
-  return markFigure(svgDocument(WIDTH, 100, 'Cross vault in plan and elevation with its corner thrusts', body));
+  body += text(8, 97, 'Clear spans between the supports; corners at the springing of the middle surface; thrust per corner.', { fill: MUTED, 'font-size': 2.2 });
+  return markFigure(svgDocument(WIDTH, 100, 'Cross vault in plan and in both elevations with its corner thrusts', body));
 }
 
 /** Where a groin crosses a generator line: for web x the |y| of the groin at plan x, for web y the |x| at plan y. */

@@ -12,10 +12,10 @@ export interface ButtressOptions {
   /** Dimension perpendicular to the thrust (m): 1 m for a wall checked per metre. */
   depth: number;
   unit_weight: number;
-  /** Horizontal thrust of the vault, pushing outwards (N). */
+  /** Horizontal thrust of the vault, pushing outwards (N); zero for a wall under vertical load only. */
   T: number;
-  /** Height of the thrust above the base (m). */
-  z_T: number;
+  /** Height of the thrust above the base (m); needed when T > 0. */
+  z_T?: number;
   /** Vertical load from the vault (N), at x_V from the inner face (m). */
   V?: number;
   x_V?: number;
@@ -50,9 +50,10 @@ export function buttressBlocks(o: ButtressOptions): Block[] {
   positive('width', o.width, 'm');
   positive('depth', o.depth, 'm');
   positive('unit_weight', o.unit_weight, 'N/m^3');
-  positive('T', o.T, 'N');
-  if (!(o.z_T > 0)) throw new RangeError(`buttress: z_T must be above the base, got ${o.z_T} m`);
-  if (o.z_T > height) throw new RangeError(`buttress: the thrust acts at z_T = ${o.z_T} m, above the top of the buttress (height ${height} m)`);
+  if (!(typeof o.T === 'number' && Number.isFinite(o.T) && o.T >= 0)) throw new RangeError(`buttress: T must be zero or more, got ${o.T} N`);
+  if (o.T > 0 && o.z_T === undefined) throw new RangeError('buttress: z_T, the height of the thrust above the base, is required when T > 0');
+  if (o.z_T !== undefined && !(o.z_T > 0)) throw new RangeError(`buttress: z_T must be above the base, got ${o.z_T} m`);
+  if (o.z_T !== undefined && o.z_T > height) throw new RangeError(`buttress: the thrust acts at z_T = ${o.z_T} m, above the top of the buttress (height ${height} m)`);
   if (o.V !== undefined && !(o.V >= 0)) throw new RangeError(`buttress: V must be zero or more, got ${o.V} N`);
   if (o.x_V !== undefined && !(o.x_V >= 0 && o.x_V <= o.width)) {
     throw new RangeError(`buttress: x_V must lie on the top, between 0 and width ${o.width} m from the inner face, got ${o.x_V} m`);

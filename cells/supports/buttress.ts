@@ -12,16 +12,16 @@ export interface Buttress {
   /** Where the resultant cuts the base, from the outer toe (m), and its eccentricity from the base centre, positive outwards (m). */
   x_R: number; e: number;
   middle_third: boolean; in_base: boolean;
-  /** Restoring over overturning moment about the outer toe. */
+  /** Restoring over overturning moment about the outer toe; Infinity when nothing overturns (T = 0). */
   sf_overturning: number;
   /** Base pressures (Pa); not available when the resultant is outside the base, where no pressure can balance it. */
   sigma_max: number | NotAvailable; sigma_min: number | NotAvailable;
-  /** µ·N/T; not available when no friction is given. */
+  /** µ·N/T (Infinity when T = 0); not available when friction is not given. */
   sf_sliding: number | NotAvailable;
-  /** Least base width keeping the resultant in the middle third / in the base, widening every level alike (m). */
-  width_min_third: number; width_min_base: number;
+  /** Least base width from which on the resultant stays in the middle third / in the base, widening every level alike (m). */
+  width_min_third: number | NotAvailable; width_min_base: number | NotAvailable;
   path: PathPoint[];
-  /** sigma_max ≤ bearing (and the resultant in the base); not available when no bearing is given. */
+  /** sigma_max ≤ bearing and the resultant in the base; not available when bearing is not given. */
   bearing_ok: boolean | NotAvailable;
 }
 
@@ -40,7 +40,7 @@ export interface Buttress {
  */
 export function buttress(o: ButtressOptions): Buttress {
   const blocks = buttressBlocks(o);
-  const k = o.unit_weight * o.depth, V = o.V ?? 0, xV = o.x_V ?? 0, { T, z_T } = o;
+  const k = o.unit_weight * o.depth, V = o.V ?? 0, xV = o.x_V ?? 0, T = o.T, z_T = o.z_T ?? 0;
   const B = blocks[0]!.b;
   let W = 0, Mw = 0, restoring = V * (B - xV);
   for (const { h, b } of blocks) {
@@ -52,31 +52,33 @@ export function buttress(o: ButtressOptions): Buttress {
   const xInner = (Mw + V * xV + T * z_T) / N;
   const x_R = B - xInner, e = xInner - B / 2;
   const in_base = x_R > 0 && xInner > 0;
-  const sf_overturning = restoring / (T * z_T);
-  const overturns = notAvailable(`the resultant falls outside the base: the wall overturns (sf_overturning ${sf_overturning.toFixed(2)})`);
-  const result: Buttress = {
-    base_width: B, W_self: W, N, x_R, e,
-    middle_third: Math.abs(e) <= B / 6 * (1 + 1e-12),
-    in_base,
-    sf_overturning,
-    width_min_third: widthMin(blocks, k, V, xV, T, z_T, 2 / 3),
-    width_min_base: widthMin(blocks, k, V, xV, T, z_T, 1),
-    path: thrustPath(blocks, k, V, xV, T, z_T),
-    sigma_max: overturns, sigma_min: overturns,
-    sf_sliding: o.friction === undefined ? notAvailable('no friction coefficient is given') : (o.friction * N) / T,
-    bearing_ok: notAvailable('no allowable bearing pressure is given'),
+  const least = (alpha: number, zone: string) => {
+    const w = widthMin(blocks, k, V, xV, T, z_T, alpha);
+    return w ?? notAvailable(`the resultant stays ${zone} however narrow the support is made (down to its narrowest block vanishing); its width is set by other checks (bearing, slenderness)`);
   };
+  const middle_third = Math.abs(e) <= B / 6 * (1 + 1e-12);
+  const outside = `the resultant cuts the base line ${Math.abs(x_R < 0 ? x_R : xInner).toPrecision(3)} m beyond the ${x_R < 0 ? 'outer toe' : 'inner heel'}: the support overturns and no base pressure can balance it`;
+  let sigma_max: number | NotAvailable = notAvailable(outside), sigma_min: number | NotAvailable = notAvailable(outside);
   if (in_base) {
     const area = B * o.depth;
-    if (result.middle_third) {
-      result.sigma_max = (N / area) * (1 + (6 * Math.abs(e)) / B);
-      result.sigma_min = (N / area) * (1 - (6 * Math.abs(e)) / B);
+    if (middle_third) {
+      sigma_max = (N / area) * (1 + (6 * Math.abs(e)) / B);
+      sigma_min = (N / area) * (1 - (6 * Math.abs(e)) / B);
     } else {
       // Outside the kern: the base opens and a triangle of pressure 3a long carries N.
-      result.sigma_max = (2 * N) / (3 * Math.min(x_R, xInner) * o.depth);
-      result.sigma_min = 0;
+      sigma_max = (2 * N) / (3 * Math.min(x_R, xInner) * o.depth);
+      sigma_min = 0;
     }
   }
-  if (o.bearing !== undefined) result.bearing_ok = in_base && (result.sigma_max as number) <= o.bearing;
-  return result;
+  return {
+    base_width: B, W_self: W, N, x_R, e, middle_third, in_base,
+    sf_overturning: T > 0 ? restoring / (T * z_T) : Infinity,
+    sigma_max, sigma_min,
+    sf_sliding: o.friction === undefined ? notAvailable('friction is not given') : T > 0 ? (o.friction * N) / T : Infinity,
+    width_min_third: least(2 / 3, 'within the middle third'),
+    width_min_base: least(1, 'within the base'),
+    path: thrustPath(blocks, k, V, xV, T, z_T),
+    bearing_ok: o.bearing === undefined ? notAvailable('bearing (the allowable pressure under the base) is not given')
+      : in_base && typeof sigma_max === 'number' && sigma_max <= o.bearing,
+  };
 }

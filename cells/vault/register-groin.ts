@@ -3,10 +3,7 @@ import { defineCellFunction } from '../define.js';
 import { groinVault } from './groin/groin-vault.js';
 import { webMembrane } from './groin/web-membrane.js';
 import { vaultBays } from './groin/vault-bays.js';
-
-const VAULT_PARAM = 'One bay made by groin_vault.';
-const HEYMAN_SHELLS = 'J. Heyman, Equilibrium of Shell Structures, Oxford University Press, 1977 (the cross vault as intersecting barrels; statics of the half vault).';
-const FLUGGE = 'W. Flügge, Stresses in Shells, Springer (membrane theory of the circular cylinder, ch. 3).';
+import { crossVault } from './groin/cross-vault.js';
 
 export const groin_vault = defineCellFunction({
   name: 'groin_vault',
@@ -34,55 +31,37 @@ export const groin_vault = defineCellFunction({
   fn: groinVault,
   reference: {
     params: {
-      options: 'The bay: its spans, the shape of its barrels, its self-weight and its loads.',
-      'options.span_x': 'Clear span (at the intrados) of the barrel spanning x: the side of the bay along x.',
-      'options.span_y': 'Clear span of the barrel spanning y. Default: span_x (a square bay). On an oblong round bay the narrower barrel is stilted so both crowns are level.',
-      'options.shape': '"semicircular" (default): both barrels round; or "pointed": the wider barrel an equilateral two-centred arch, the narrower one two-centred with its crown at the same height.',
-      'options.thickness': 'Shell thickness; the middle surface is the intrados offset by thickness/2, so the corners stand half a thickness outside the clear spans. '
-        + 'With unit_weight it gives the self-weight; must be less than half the smaller span. Default 0 (a thin shell, self-weight from g).',
-      'options.unit_weight': 'Unit weight of the masonry; self-weight per unit surface = thickness · unit_weight. Give this pair or g, not both.',
-      'options.g': 'Self-weight per unit area of the middle surface, instead of thickness · unit_weight.',
-      'options.fill_level': 'Level of the top of the pocket fill above the springing of the bay; each web carries the fill above its own extrados. Default 0 (no fill).',
-      'options.fill_unit_weight': 'Unit weight of the fill; required when fill_level is above 0.',
-      'options.dead': 'Superimposed dead load per unit plan area over the whole bay. Default 0.',
-      'options.live': 'Live load per unit plan area over the whole bay (added to dead; no partial loading). Default 0.',
+      options: 'The bay: its spans, web shape, thickness, unit weight, fill and loads (options below).',
+      'options.span_x': 'Clear span of the barrel spanning x: the bay\'s side along x (m). The middle surface is the intrados offset by t/2, so the corners stand at span/2 + t/2.',
+      'options.span_y': 'Clear span of the barrel spanning y (m); square when omitted. On an oblong plan the narrower semicircular barrel is stilted to the same crown.',
+      'options.shape': '"semicircular" (default) or "pointed" (the wider barrel equilateral, the narrower two-centred through the same crown). For segmental or stilted webs and the limit analysis by slicing, see cross_vault.',
+      'options.thickness': 'Shell thickness (m); 0 (a thin shell) when omitted and g is given.',
+      'options.unit_weight': 'Unit weight of the masonry (kN/m³); self-weight = thickness × unit_weight.',
+      'options.g': 'Self-weight per unit surface area (kPa), instead of thickness × unit_weight.',
+      'options.fill_level': 'Height of the pocket fill above the springing (m); with fill_unit_weight.',
+      'options.fill_unit_weight': 'Unit weight of the fill (kN/m³).',
+      'options.dead': 'Superimposed dead load per unit plan area (kPa).',
+      'options.live': 'Live load per unit plan area (kPa), over the whole bay.',
     },
     fields: {
       shape: 'The shape used.',
-      crown: 'Height of the middle surface at the crown above the springing of the bay.',
-      area_web_x: 'Surface area (middle surface) of one web of the barrel spanning x; the bay has two such webs.',
-      area_web_y: 'Surface area of one web of the barrel spanning y.',
-      area: 'Surface area of the four webs together.',
-      W: 'Total vertical load of the bay: self-weight, fill and plan loads.',
-      W_half: 'Load of the half vault on one side of the vertical plane x = 0 through the crown (the plane the x-thrust crosses).',
-      x_half: 'Horizontal distance of the centroid of that half vault from the plane x = 0.',
-      N_crown: 'Hoop force of the barrel spanning x at its crown, per unit length of the crown line; compression negative.',
-      thrust_cut: 'Total horizontal force, along x, across the plane x = 0 (positive: the halves push each other apart at the corners); twice H_corner_x.',
-      h_thrust: 'Depth below the crown (of the middle surface) at which the x-thrust acts, from moments of the half vault about the corner line.',
-      W_half_y: 'As W_half, for the half vault on one side of the plane y = 0.',
-      x_half_y: 'As x_half, for the plane y = 0.',
-      N_crown_y: 'As N_crown, for the barrel spanning y; compression negative.',
-      thrust_cut_y: 'As thrust_cut, along y across the plane y = 0; twice H_corner_y.',
-      h_thrust_y: 'As h_thrust, for the y-thrust.',
-      V_corner: 'Vertical reaction at each corner, W/4, positive downwards on the support.',
-      H_corner_x: 'Horizontal thrust at each corner along x, outwards from the bay.',
-      H_corner_y: 'Horizontal thrust at each corner along y, outwards from the bay.',
-      H_corner: 'Resultant horizontal thrust at each corner, √(H_corner_x² + H_corner_y²), along the diagonal of a square bay.',
-      z_thrust: 'Height above the springing of the bay at which H_corner_x acts: crown − h_thrust. Use it as the lever arm of the thrust on the pier (z_T of buttress, measured from the pier\'s base when the springing is the base).',
-      z_thrust_y: 'Height above the springing at which H_corner_y acts: crown − h_thrust_y.',
-      ridge_load_x: 'Pointed webs only: the downward line load along the ridge of the barrel spanning x that its membrane state needs (2·|N_crown|·sin φ at the ridge); 0 for round barrels.',
-      ridge_load_y: 'As ridge_load_x, for the barrel spanning y.',
+      crown: 'Height of the middle surface at the crown above the springing (m).',
+      area_web_x: 'Surface area of one web of the barrel spanning x (m²).', area_web_y: 'The same for y (m²).', area: 'Total surface of the four webs (m²).',
+      W: 'Total vertical load of the bay (kN).',
+      W_half: 'Load of the half vault x > 0 (kN).', x_half: 'Distance of its centroid from the cut x = 0 (m).',
+      N_crown: 'Membrane hoop force at the crown of the x-barrel, −q·R·cos φ_crown (kN/m), compression negative.',
+      thrust_cut: 'Horizontal force across the cut x = 0 (kN).', h_thrust: 'Depth below the crown at which the corner thrust acts (m); z_thrust = crown − h_thrust.',
+      W_half_y: 'As W_half for the cut y = 0 (kN).', x_half_y: 'As x_half for y (m).', N_crown_y: 'As N_crown for the y-barrel (kN/m).',
+      thrust_cut_y: 'As thrust_cut for y (kN).', h_thrust_y: 'As h_thrust for y (m).',
+      V_corner: 'Vertical reaction at each corner, W/4 (kN).',
+      H_corner_x: 'Horizontal corner thrust in x, thrust_cut/2 (kN).', H_corner_y: 'In y (kN).', H_corner: 'Their resultant (kN).',
+      z_thrust: 'Height above the springing at which the x-thrust acts on the corner: crown − h_thrust (m).', z_thrust_y: 'The same for y (m).',
+      ridge_load_x: 'Pointed webs: the downward line load their membrane state needs along the ridge, 2|N_crown|·sin φ_crown (kN/m); 0 when round.',
+      ridge_load_y: 'The same for the y-webs (kN/m).',
     },
-    method: 'Each web is a segment of its barrel bounded by the groins. Radial equilibrium of the membrane gives the hoop force at the crown, N = −q·R; '
-      + 'across the plane through the crown it adds up to thrust_cut, which the half vault sends to its two corners. Moments of the half vault about the line of its '
-      + 'corners (at the middle surface\'s springing) place the thrust h_thrust below the crown. Web areas, loads and moments are integrated in the angle of the '
-      + 'web\'s normal by Gauss–Legendre quadrature.',
-    assumptions: [
-      'Membrane state of the webs (no bending); the webs\' loads are vertical and uniform along their generators.',
-      'The four corners are fixed supports; the bay is symmetric and loaded uniformly (no partial live load).',
-      'The groins (ribs) collect what the webs deliver; their own bending is not modelled.',
-    ],
-    sources: [HEYMAN_SHELLS, FLUGGE],
+    method: 'Membrane theory of each web as a barrel segment (N_φ = p_r·R) and statics of the half vault cut through the crown: 2H = thrust across the cut, thrust·h = W_half·(e − x_half). Web integrals by Gauss–Legendre between the kinks of the load.',
+    assumptions: ['Membrane state of the webs; the groins collect what the webs leave there.', 'All four webs loaded alike.', 'For a pointed web the crown membrane force is not an upper bound on the thrust: use cross_vault for the thrust range.'],
+    sources: ['Heyman, Equilibrium of Shell Structures, Oxford 1977, cross-vault chapter (from memory).', 'Flügge, Stresses in Shells, ch. 3 (membrane theory of the cylinder).'],
   },
 });
 
@@ -99,23 +78,18 @@ export const web_membrane_at = defineCellFunction({
   fn: webMembrane,
   reference: {
     params: {
-      vault: VAULT_PARAM,
-      x: 'Distance along the web\'s generators (parallel to its crown line) from the centre line of the bay, between the groin and the face arch. '
-        + 'For web "x" (the barrel spanning x, whose crown line runs along y) this is a distance in the y direction.',
-      phi: 'Inclination of the web\'s normal from the vertical: from the crown (0 for a round web, the ridge angle for a pointed one) to 90 deg at the springing; '
-        + 'the web is symmetric, so give the positive value.',
-      web: '"x" (default) for the webs of the barrel spanning x, "y" for the webs of the barrel spanning y.',
+      vault: 'A result of groin_vault(…).',
+      x: 'Distance along the generators from the centre line of the bay (m), on the web (between the groin and the face arch).',
+      phi: 'Inclination of the web\'s normal from the vertical (deg or rad), from the crown (φ_crown, 0 when round) to the springing (90°).',
+      web: '"x" (default) for the webs of the barrel spanning x, "y" for the others.',
     },
     fields: {
-      N_phi: 'Hoop force across the generators, per unit length; compression negative.',
-      N_x: 'Force along the generators, per unit length; compression negative; 0 at the face arch.',
-      N_xphi: 'Membrane shear per unit length; 0 on the bay\'s centre line, growing linearly with x.',
+      N_phi: 'Hoop force across the generators (kN/m), compression negative: −q·R·cos φ.',
+      N_x: 'Force along the generators (kN/m), compression negative; zero at the face arch.',
+      N_xphi: 'Membrane shear (kN/m); zero on the centre line of the bay.',
     },
-    method: 'Membrane theory of the circular cylinder for a vertical load q(φ) per unit surface, uniform along the generators: N_φ = −q·R·cos φ, '
-      + 'N_xφ = −A·x and N_x = A′·(x² − l²)/(2R) with A = 2q·sin φ − q′·cos φ, by symmetry N_xφ = 0 on the centre line and N_x = 0 at the face arch (x = ±l). '
-      + 'The web carries the state of the whole barrel, cut off at the groin. Derivatives of q by five-point differences.',
-    assumptions: ['Membrane state (no bending).', 'The face arches take no force along the generators.'],
-    sources: [FLUGGE, 'S. Timoshenko and S. Woinowsky-Krieger, Theory of Plates and Shells, McGraw-Hill, 2nd ed. 1959, §110 (from memory).'],
+    method: 'Membrane theory of the circular cylinder under a load uniform along the generators, with N_xφ = 0 on the centre line and N_x = 0 at the face arch.',
+    sources: ['Flügge, Stresses in Shells, ch. 3.', 'Timoshenko & Woinowsky-Krieger, Theory of Plates and Shells, 1959, §110.'],
   },
 });
 
@@ -132,27 +106,90 @@ export const vault_bays = defineCellFunction({
   },
   fn: vaultBays,
   reference: {
+    params: { vault: 'A result of groin_vault(…): one bay; the row runs along x.', n: 'Number of equal bays in the row, a whole number ≥ 1.' },
+    fields: {
+      bays: 'Bays in the row.',
+      n_intermediate: 'Piers between bays: 2·(n − 1).', n_end: 'Piers at the ends: 4.',
+      V_intermediate: 'Vertical load on an intermediate pier from the two corners it carries (kN).',
+      H_intermediate: 'Transverse (y) thrust on an intermediate pier, 2·H_corner_y (kN); the longitudinal thrusts of the neighbours cancel.',
+      z_intermediate: 'Height of that thrust above the springing (m).',
+      V_end: 'Vertical load on an end pier (kN).',
+      H_end_x: 'Longitudinal thrust on an end pier (kN).', H_end_y: 'Transverse thrust on an end pier (kN).', H_end: 'Their resultant (kN).',
+      z_end_x: 'Height of the longitudinal thrust above the springing (m).', z_end_y: 'Height of the transverse thrust (m).',
+    },
+    method: 'Statics of the free body: at a pier between bays the longitudinal thrusts are equal and opposite and cancel, the transverse thrusts and vertical loads add.',
+    assumptions: ['Every bay loaded alike; an unloaded neighbour leaves part of the longitudinal thrust unbalanced.'],
+    sources: ['Statics of the free body (common practice).'],
+  },
+});
+
+export const cross_vault = defineCellFunction({
+  name: 'cross_vault',
+  doc: 'One bay of a cross vault of any bay (square or oblong; semicircular, segmental, pointed or stilted webs) by slicing: each web cut into arches analysed by limit analysis; corner thrust range, its height, vertical reaction and the pocket fill needed, with the membrane solution beside it for semicircular webs.',
+  params: [{
+    name: 'options',
+    type: {
+      object: {
+        span_x: 'm', span_y: 'm', shape: 'text', rise: 'm', stilt: 'm', thickness: 'm', unit_weight: 'N/m^3',
+        fill_level: 'm', fill_unit_weight: 'N/m^3', dead: 'Pa', live: 'Pa', solid_level: 'm', slices: 'count',
+      },
+    },
+  }],
+  required: ['span_x', 'thickness', 'unit_weight'],
+  returns: {
+    object: {
+      shape: 'text', span_x: 'm', span_y: 'm', rise_x: 'm', rise_y: 'm', stilt_x: 'm', stilt_y: 'm', crown: 'm', slices: 'count',
+      fill_needed: 'm', solid_level: 'm', safe: 'boolean', W: 'N', V_corner: 'N',
+      H_x_min: 'N', H_x_max: 'N', H_y_min: 'N', H_y_max: 'N', z_x_min: 'm', z_x_max: 'm', z_y_min: 'm', z_y_max: 'm',
+      H_x_membrane: 'N', H_y_membrane: 'N', z_x_membrane: 'm', z_y_membrane: 'm',
+    },
+  },
+  fn: crossVault,
+  reference: {
     params: {
-      vault: VAULT_PARAM + ' The row runs along x: span_x is each bay\'s length along the row, span_y the span across it.',
-      n: 'Number of bays in the row, a whole number ≥ 1.',
+      options: 'The bay: its spans, web shape, thickness, unit weight, fill and loads (options below).',
+      'options.span_x': 'Clear span of the webs spanning x: the bay\'s side along x, between the faces of the supports (m).',
+      'options.span_y': 'Clear span of the webs spanning y (m); the bay is square when omitted.',
+      'options.shape': '"semicircular" (default), "segmental", "pointed" or "stilted". The wider web takes this shape; the narrower one is brought to the same crown height with its own curvature where its family allows (segmental: the same rise; pointed: two-centred through the same crown), else as a semicircle on a stilt.',
+      'options.rise': 'Rise of the wider web\'s intrados arc above its springing (m): required for segmental (less than half its span); for pointed at least half its span, equilateral (span·√3/2) by default.',
+      'options.stilt': 'For "stilted": height of the vertical stilt under both webs (m). The stilt belongs to the pier; slices spring on it at the least.',
+      'options.thickness': 'Thickness of the webs (m), less than a quarter of the smaller span.',
+      'options.unit_weight': 'Unit weight of the masonry (kN/m³).',
+      'options.fill_level': 'Height of the loose pocket fill above the springing (m), loading the slices above their extrados; with fill_unit_weight.',
+      'options.fill_unit_weight': 'Unit weight of that fill (kN/m³).',
+      'options.dead': 'Superimposed dead load per unit plan area (kPa).',
+      'options.live': 'Live load per unit plan area (kPa), taken over the whole bay.',
+      'options.solid_level': 'Height above the springing to which the pockets are built solid (coursed masonry, the tas-de-charge) (m); slices spring on it where it is above the groin. Default: fill_needed.',
+      'options.slices': 'Slices per web, 2 to 60 (default 10); each slice is a ring of 24 voussoirs.',
     },
     fields: {
-      bays: 'Number of bays, n.',
-      n_intermediate: 'Number of intermediate piers: 2·(n − 1), one each side of the row at every joint between bays.',
-      n_end: 'Number of end piers: 4.',
-      V_intermediate: 'Vertical load on an intermediate pier: the corners of two bays, 2·V_corner.',
-      H_intermediate: 'Horizontal thrust on an intermediate pier, across the row (y), outwards: 2·H_corner_y. The thrusts along the row cancel.',
-      z_intermediate: 'Height above the springing at which H_intermediate acts (z_thrust_y).',
-      V_end: 'Vertical load on an end pier: one corner, V_corner.',
-      H_end_x: 'Thrust on an end pier along the row (x), outwards: H_corner_x.',
-      H_end_y: 'Thrust on an end pier across the row (y), outwards: H_corner_y.',
-      H_end: 'Resultant horizontal thrust on an end pier, H_corner.',
-      z_end_x: 'Height above the springing at which H_end_x acts (z_thrust).',
-      z_end_y: 'Height above the springing at which H_end_y acts (z_thrust_y).',
+      shape: 'The shape given.',
+      span_x: 'Clear span of the webs spanning x (m).', span_y: 'Clear span of the webs spanning y (m).',
+      rise_x: 'Rise of the x-web\'s intrados arc above its own springing (m).', rise_y: 'The same for the y-web (m).',
+      stilt_x: 'Stilt under the x-web\'s arc (m).', stilt_y: 'Stilt under the y-web\'s arc (m).',
+      crown: 'Height of the middle surface at the crown above the springing of the bay (m).',
+      slices: 'Slices per web.',
+      fill_needed: 'Least height of solid pocket above the springing for which the deepest slice of each web (the one by the face arch) holds a line of thrust (m); 0 when it holds springing from the corner. Shallower slices are taken to be no worse; `safe` reports whether all hold.',
+      solid_level: 'The height of solid pocket used (m).',
+      safe: 'true when every slice holds a line of thrust within its thickness.',
+      W: 'Load the slices carry down the groins: webs above the solid pocket, fill and plan loads (kN). The solid pocket and the webs below it belong to the pier. Not available when a slice holds no line of thrust.',
+      V_corner: 'Vertical reaction at each corner, W/4 (kN); not available when a slice holds no line of thrust.',
+      H_x_min: 'Least corner thrust in x (kN per corner): the sum of the least thrusts of the slices of one x-web. Not available when a slice holds no line.',
+      H_x_max: 'Greatest corner thrust in x (kN); ∞ when a slice\'s thrust is unbounded (a shallow slice near the crown fits a straight line).',
+      H_y_min: 'Least corner thrust in y (kN).', H_y_max: 'Greatest corner thrust in y (kN); ∞ when unbounded.',
+      z_x_min: 'Height above the springing at which the corner\'s resultant crosses the vertical plane of the corner (the middle surface\'s springing line of the x-web), in the least-thrust state (m); negative when it passes below the springing, inside the pier.',
+      z_x_max: 'The same in the greatest-thrust state (m); not available when that thrust is unbounded.',
+      z_y_min: 'As z_x_min for the thrust in y (m).', z_y_max: 'As z_x_max for the thrust in y (m).',
+      H_x_membrane: 'Membrane corner thrust in x of groin_vault for the same bay and loads (kN): semicircular webs with solid_level 0 only, else not available.',
+      H_y_membrane: 'The same in y (kN).',
+      z_x_membrane: 'Height of the membrane thrust in x (groin_vault z_thrust) (m).', z_y_membrane: 'The same in y (m).',
     },
-    method: 'Statics of the free body: a pier between two bays carries a corner of each; their vertical loads and their transverse thrusts add, '
-      + 'their longitudinal thrusts are equal and opposite and cancel. An end pier carries one corner and both its thrusts.',
-    assumptions: ['Every bay is alike and loaded alike: an unloaded or missing neighbour leaves part of the longitudinal thrust unbalanced, which this does not report.'],
-    sources: ['Statics of the free body (common practice).'],
+    method: 'Each web is cut by vertical planes across its generators into slices (midpoint slicing). A slice springs where the middle surfaces of the two webs meet (the groin), or on the solid pocket where that is higher, and is a ring of the arch kernel (arch_limit: least and greatest thrust; thrust_line: where each extreme line crosses the springing joint) under its own weight, the loose fill above it and the plan loads. The half vault cut through the crowns of one barrel\'s slices stands on two corners, so each corner\'s thrust is the sum of one web\'s slice thrusts; the height of the corner\'s resultant follows from the moments of every slice reaction on the quarter\'s groin about the corner: ΣH·z = ΣH_k·z_k − ΣV_k·(e − x_k). Slivers narrower than two thicknesses at the crown hand their weight straight to the groin.',
+    assumptions: ['Heyman\'s assumptions for every slice: no tension, no sliding, unlimited compression.', 'Slices act independently (no shear between them); the groins carry the slices\' reactions to the corners.', 'All bays and both halves loaded alike (symmetric loads).'],
+    sources: [
+      'Heyman, The Stone Skeleton, Cambridge 1995, on the cross vault and its slicing (from memory).',
+      'Heyman, Equilibrium of Shell Structures, Oxford 1977 (from memory).',
+      'Ungewitter & Mohrmann, Lehrbuch der gotischen Konstruktionen, 1890 (slicing of webs; from memory).',
+    ],
   },
 });

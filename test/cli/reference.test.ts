@@ -44,7 +44,7 @@ describe('reference text for every declaration', () => {
 
   it('declaredParams(buttress) marks the required options', () => {
     const required = declaredParams(cellFunctions.get('buttress')!).filter((e) => e.required).map((e) => e.path);
-    expect(required).toEqual(['options', 'options.height', 'options.width', 'options.depth', 'options.unit_weight', 'options.T', 'options.z_T']);
+    expect(required).toEqual(['options', 'options.height', 'options.width', 'options.depth', 'options.unit_weight', 'options.T']); // z_T is needed only when T > 0 (checked by the kernel)
   });
 
   it('declaredFields of a function returning one quantity is its result', () => {
@@ -89,7 +89,7 @@ describe('vaultbook help', () => {
 
   it('help groin_vault says where z_thrust is measured from', async () => {
     const r = await run('help', 'groin_vault');
-    expect(r.out).toMatch(/`z_thrust` — length, m\. Height above the springing of the bay at which H_corner_x acts: crown − h_thrust/);
+    expect(r.out).toMatch(/`z_thrust` — length, m\. Height above the springing at which the x-thrust acts on the corner: crown − h_thrust/);
     expect(r.out).toMatch(/`h_thrust` — length, m\. Depth below the crown/);
   });
 

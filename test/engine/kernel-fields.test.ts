@@ -20,6 +20,7 @@ const wall = (width: number, extra: object = {}) => call('buttress', {
   height: u(6, 'm'), width: u(width, 'm'), depth: u(1, 'm'), unit_weight: u(20, 'kN/m^3'), T: u(30, 'kN'), z_T: u(6, 'm'), ...extra,
 });
 const groin = call('groin_vault', { span_x: u(6, 'm'), thickness: u(0.2, 'm'), unit_weight: u(18, 'kN/m^3') });
+const hemisphere = call('dome', { shape: 'spherical', radius: u(5, 'm'), half_angle: u(90, 'deg'), thickness: u(0.3, 'm'), unit_weight: u(18, 'kN/m^3') });
 const barrel = call('barrel_membrane', { shape: 'circular', span: u(6, 'm'), rise: u(3, 'm'), length: u(10, 'm'), thickness: u(0.2, 'm'), unit_weight: u(18, 'kN/m^3') });
 
 /** For each function returning a record: results in ordinary and edge states. */
@@ -41,6 +42,15 @@ const CASES: Record<string, Array<() => unknown>> = {
   barrel_membrane: [() => barrel, () => call('barrel_membrane', { shape: 'parabolic', span: u(6, 'm'), rise: u(1.5, 'm'), length: u(8, 'm'), g: u(5, 'kN/m^2'), p: u(1, 'kN/m^2') })],
   membrane_at: [() => call('membrane_at', barrel, u(1, 'm'), u(20, 'deg'))],
   thrust_line: [() => call('thrust_line', semicircle(0.4), {}, u(60, 'kN'))],
+  dome: [
+    () => hemisphere,
+    () => call('dome', { shape: 'spherical', radius: u(5, 'm'), half_angle: u(60, 'deg'), thickness: u(0.3, 'm'), unit_weight: u(18, 'kN/m^3'), p: u(1, 'kN/m^2') }), // a cap: no hoop tension
+    () => call('dome', { shape: 'spherical', radius: u(5, 'm'), half_angle: u(90, 'deg'), thickness: u(0.3, 'm'), unit_weight: u(18, 'kN/m^3'), oculus_angle: u(15, 'deg'), lantern: u(40, 'kN') }),
+  ],
+  dome_at: [() => call('dome_at', hemisphere, u(30, 'deg'))],
+  dome_limit: [() => call('dome_limit', hemisphere), () => call('dome_limit', call('dome', { shape: 'spherical', radius: u(5, 'm'), half_angle: u(90, 'deg'), thickness: u(0.05, 'm'), unit_weight: u(18, 'kN/m^3') }))],
+  cross_vault: [() => call('cross_vault', { span_x: u(5, 'm'), thickness: u(0.25, 'm'), unit_weight: u(18, 'kN/m^3') })],
+  flying_buttress: [() => call('flying_buttress', { span: u(4, 'm'), rise: u(2, 'm'), thickness: u(0.4, 'm'), unit_weight: u(20, 'kN/m^3') })],
   arch_scan: [
     () => call('arch_scan', semicircle(0.4), {}, { axles: [u(50, 'kN'), u(50, 'kN')], spacing: [u(1.8, 'm')], steps: 20 }),
     () => call('arch_scan', semicircle(0.1), {}, { axles: [u(50, 'kN')], steps: 10 }), // too thin: no position carries the vehicle

@@ -1,5 +1,5 @@
 /**
- * The four design-calc templates: each passes `check`, renders, and its key
+ * The design-calc templates: each passes `check`, renders, and its key
  * numbers are pinned — against hand calculations where one exists (source
  * named beside it), else as regression values labelled with the date they
  * were taken, so a kernel change that moves them is noticed.
@@ -14,7 +14,7 @@ import { renderCommand } from '../../bin/commands/render.js';
 import { listTemplates, newCommand, TEMPLATE_DIR } from '../../bin/commands/new.js';
 import { expectClose } from '../helpers/close.js';
 
-const NAMES = ['arch-ring', 'barrel-vault', 'buttress', 'cross-vault'] as const;
+const NAMES = ['arch-ring', 'barrel-vault', 'buttress', 'clerestory', 'cross-vault', 'dome'] as const;
 type Name = (typeof NAMES)[number];
 
 const summaries = {} as Record<Name, Summary>;
@@ -52,7 +52,7 @@ describe('templates: check, render, new', () => {
   beforeAll(async () => { dir = await mkdtemp(join(tmpdir(), 'vaultbook-templates-')); });
   afterAll(() => rm(dir, { recursive: true, force: true }));
 
-  it('templates/ holds exactly the four design calcs', async () => {
+  it('templates/ holds exactly the design calcs listed in NAMES', async () => {
     expect((await readdir(TEMPLATE_DIR)).filter((f) => f.endsWith('.md')).sort()).toEqual(NAMES.map((n) => `${n}.md`));
   });
 
@@ -91,7 +91,7 @@ describe('templates: check, render, new', () => {
     expect(html).toContain(String(summaries[name].meta.title));
   });
 
-  it('new lists the four templates with their titles', async () => {
+  it('new lists the templates with their titles', async () => {
     const list = await listTemplates();
     expect(list.map((t) => t.name)).toEqual([...NAMES]);
     for (const t of list) expect(t.title).toBe(summaries[t.name as Name].meta.title);
@@ -157,12 +157,14 @@ describe('templates/barrel-vault.md — key numbers', () => {
     expectClose(num(s(), 'b_third'), 1.4036, 1e-3); // regression value, from this kernel on 2026-12-02
   });
 
-  it('the tie: area T·γ_M0/f_y (EN 1993-1-1 6.2.3, from memory), smallest bar of the series', () => {
+  it('the tie: area T·γ_M0/f_y (EN 1993-1-1 6.2.3, from memory), smallest bar of the series, its thread governs', () => {
     const T = 3 * (1.35 * num(s(), 'H_G') + 1.5 * num(s(), 'H_S')); // kN, ties at 3 m
     expectClose(num(s(), 'T_tie'), T, 1e-9);
     const area = (T * 1e3) / 235e6;
     expect(num(s(), 'd_bar')).toBe(20); // 16 mm = 201 mm² < area < 20 mm = 314 mm²
-    expectClose(num(s(), 'tie_bar.utilization'), area / (Math.PI * 0.02 ** 2 / 4), 1e-9);
+    expectClose(num(s(), 'tie_bar.utilization_bar'), area / (Math.PI * 0.02 ** 2 / 4), 1e-9);
+    // Issue 15: the M20 thread governs, F_t,Rd = 0.9·360·245/1.25 N (EN 1993-1-8 Table 3.4; A_s of ISO 898-1, from memory).
+    expectClose(num(s(), 'tie_bar.utilization'), (T * 1e3) / ((0.9 * 360e6 * 245e-6) / 1.25), 1e-9);
   });
 });
 
@@ -309,5 +311,50 @@ describe('templates/buttress.md — key numbers, all by hand (rigid-block static
     expectClose(num(s(), 'b_third'), 2.3320, 1e-3); // regression value, from this kernel on 2026-12-02
     expectClose(num(s(), 'b_base'), 1.6010, 1e-3); // regression value, from this kernel on 2026-12-02
     expect(num(s(), 'b_third')).toBeLessThanOrEqual(2.8);
+  });
+});
+
+describe('templates/dome.md — key numbers (issue 15)', () => {
+  const s = () => summaries.dome;
+  // Middle surface: intrados radius 3.6 m + t/2; q = γ·t per unit surface; plan load on the plan ring.
+  const t = 0.46, a = 3.6 + t / 2, q = 18 * t, p = 0.45, P = 36, phi0 = (16 * Math.PI) / 180;
+
+  it('N_φ at the springing from the vertical equilibrium of the dome above it (Timoshenko & Woinowsky-Krieger 1959, §129)', () => {
+    const W = P + 2 * Math.PI * a * a * q * Math.cos(phi0) + Math.PI * p * a * a * (1 - Math.sin(phi0) ** 2); // kN
+    expectClose(num(s(), 'W_dome'), W, 1e-9);
+    expectClose(num(s(), 'N_base'), -W / (2 * Math.PI * a), 1e-9);
+  });
+
+  it('hoop tension begins where a·(q cos φ + p cos²φ) + N_φ = 0 on a sphere (N_φ + N_θ = −a·Z), found here by bisection', () => {
+    const Nphi = (f: number) => -(P + 2 * Math.PI * a * a * q * (Math.cos(phi0) - Math.cos(f)) + Math.PI * p * a * a * (Math.sin(f) ** 2 - Math.sin(phi0) ** 2)) / (2 * Math.PI * a * Math.sin(f) ** 2);
+    const Nth = (f: number) => -a * (q * Math.cos(f) + p * Math.cos(f) ** 2) - Nphi(f);
+    let lo = 0.5, hi = 1.2;
+    for (let i = 0; i < 80; i++) { const mid = (lo + hi) / 2; if (Nth(mid) > 0) hi = mid; else lo = mid; }
+    expectClose(num(s(), 'phi_t'), (hi * 180) / Math.PI, 1e-7);
+  });
+
+  it('the cracked dome: t_min/R near Heyman\'s 0.042 for a bare hemisphere, raised by the lantern; ring tension T = H·r with EN 1990 factors', () => {
+    expect(num(s(), 't_min') / a).toBeGreaterThan(0.042);
+    expectClose(num(s(), 'gsf'), t / num(s(), 't_min'), 1e-9);
+    const T = (1.35 * num(s(), 'H_G') + 1.5 * (num(s(), 'H_GQ') - num(s(), 'H_G'))) * a;
+    expectClose(num(s(), 'T_ring'), T, 1e-9);
+    expectClose(num(s(), 'gsf'), 2.131, 2e-3); // regression value, from this kernel on 2026-12-02
+  });
+});
+
+describe('templates/clerestory.md — key numbers (issue 15)', () => {
+  const s = () => summaries.clerestory;
+
+  it('a pier between two bays takes both corners\' thrusts across the nave (statics of the free body; along the nave they cancel)', () => {
+    expectClose(num(s(), 'T_lo'), 2 * num(s(), 'H_lo'), 1e-9);
+    expectClose(num(s(), 'T_hi'), 2 * num(s(), 'H_hi'), 1e-9);
+  });
+
+  it('the drop-pointed webs need no solid pocket; the thrust range and the flyer\'s least thrust', () => {
+    expect(num(s(), 'z_needed')).toBe(0);
+    expectClose(num(s(), 'H_lo'), 18.78, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'H_hi'), 41.24, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'F_lo'), 9.916, 2e-3); // regression value, from this kernel on 2026-12-02
+    expect(num(s(), 'F_lo')).toBeLessThan(num(s(), 'T_lo'));
   });
 });

@@ -152,3 +152,52 @@ describe('support_figure(b, options)', () => {
     expect(() => supportFigure(b, { ...o, width: 2 })).toThrow(/same options/);
   });
 });
+
+describe('vault_plan(v) of an oblong bay (issue 15)', () => {
+  const v = groinVault({ span_x: 6.0, span_y: 4.2, thickness: 0.18, unit_weight: 18e3 });
+  const svg = vaultPlan(v);
+  it('dimensions the clear spans 6.00 × 4.20 m (not the middle surface 6.18 × 4.38 m) and draws both elevations', () => {
+    const t = texts(svg);
+    expect(t).toContain('clear 6.00 m (x)');
+    expect(t).toContain('clear 4.20 m (y)');
+    expect(t).toContain('clear 6.00 m');
+    expect(t).toContain('clear 4.20 m');
+    expect(t.some((x) => x.startsWith('H_x = '))).toBe(true);
+    expect(t.some((x) => x.startsWith('H_y = '))).toBe(true);
+    expect(t.filter((x) => x.startsWith('across the ')).length).toBe(2);
+    expect(svg).not.toMatch(/NaN|Infinity|undefined/);
+  });
+});
+
+describe('dome_figure, cross_vault_figure, flyer_figure (issue 15)', () => {
+  it('dome_figure draws the shell, the hoop-tension zone from 51.8° and the lune\'s least-thrust line', async () => {
+    const { dome } = await import('../../../cells/vault/dome/dome.js');
+    const { domeLimit } = await import('../../../cells/vault/dome/dome-limit.js');
+    const { domeFigure } = await import('../../../cells/figures/dome-figure.js');
+    const d = dome({ radius: 8, half_angle: Math.PI / 2, thickness: 0.5, unit_weight: 18e3 });
+    const svg = domeFigure(d, domeLimit(d));
+    expect(isFigure(svg)).toBe(true);
+    expect(texts(svg)).toContain('51.8°');
+    expect(texts(svg).some((t) => t.startsWith('lunes, no hoop tension: t_min'))).toBe(true);
+    expect(svg).not.toMatch(/NaN|undefined/);
+  });
+
+  it('cross_vault_figure dimensions the clear spans and marks each corner thrust at its height', async () => {
+    const { crossVault } = await import('../../../cells/vault/groin/cross-vault.js');
+    const { crossVaultFigure } = await import('../../../cells/figures/cross-vault-figure.js');
+    const c = crossVault({ span_x: 6, span_y: 4.2, shape: 'pointed', thickness: 0.25, unit_weight: 18e3 });
+    const t = texts(crossVaultFigure(c));
+    expect(t).toContain('clear 6.00 m (x)');
+    expect(t).toContain('clear 4.20 m (y)');
+    expect(t.filter((x) => /: H_[xy],min = .* at z = /.test(x)).length).toBe(2);
+  });
+
+  it('flyer_figure shows both lines for an arched flyer and ∞ for a straight one', async () => {
+    const { flyingButtress } = await import('../../../cells/supports/flyer.js');
+    const { flyerFigure } = await import('../../../cells/figures/flyer-figure.js');
+    const arched = flyerFigure(flyingButtress({ shape: 'arched', span: 4.5, rise: 2, sag: 0.5, thickness: 0.45, unit_weight: 22e3 }));
+    expect(parse(arched).querySelectorAll('path').length).toBeGreaterThanOrEqual(3);
+    const straight = texts(flyerFigure(flyingButtress({ span: 4, rise: 2, thickness: 0.4, unit_weight: 2e4 })));
+    expect(straight.some((x) => x.startsWith('greatest thrust ∞'))).toBe(true);
+  });
+});
