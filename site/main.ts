@@ -5,7 +5,7 @@ import 'katex/dist/katex.min.css';
 import './runtime-turn.js';
 import { LiveSheet, type PatchEvent } from './preview.js';
 import { enableEditing, markEditable } from './editor.js';
-import { changeBadge, compareToDocument, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
+import { changeBadge, compareToDocument, flipTone, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
 import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
 import { SHEET_CSS } from './sheet.js';
 
@@ -50,13 +50,12 @@ function showChange(id: string): void {
     }
     if (badge.innerHTML !== html) badge.innerHTML = html;
   }
-  const flip = change?.kind === 'check' && change.flipped ? (change.after === false ? 'fail' : 'pass') : null;
-  el.classList.toggle('lv-flipped-fail', flip === 'fail');
-  el.classList.toggle('lv-flipped-pass', flip === 'pass');
+  const flip = change?.kind === 'check' && change.flipped ? flipTone(change.after) : null;
+  for (const tone of ['fail', 'warn', 'pass'] as const) el.classList.toggle(`lv-flipped-${tone}`, flip === tone);
 }
 
 function renderPanel(): void {
-  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, after: c.after }] : []));
+  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, before: c.before, after: c.after }] : []));
   const html = renderReviewPanel({
     file: loaded.file, inputs: inputChanges(sheet.doc, sheet.overrides), flips, changedResults: changes.size,
     dropped, message, writing,

@@ -17,16 +17,19 @@ import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
 import type { MathNode } from 'mathjs';
 
-/** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
+/**
+ * How a check came out, in the three states used everywhere (holds, fails, not evaluated);
+ * 'near' is a check that holds with less than 5 % to spare, marked as such.
+ */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
 
 /** Utilization above which a passing check is flagged as close to its limit. */
 export const NEAR_LIMIT = 0.95;
 
 const WORDS: Record<Verdict, { mark: string; word: string }> = {
-  pass: { mark: '✓', word: 'SATISFIED' },
-  near: { mark: '◆', word: 'SATISFIED – NEAR LIMIT' },
-  fail: { mark: '✗', word: 'NOT SATISFIED' },
+  pass: { mark: '✓', word: 'HOLDS' },
+  near: { mark: '◆', word: 'HOLDS – NEAR LIMIT' },
+  fail: { mark: '✗', word: 'FAILS' },
   none: { mark: '?', word: 'NOT EVALUATED' },
 };
 
@@ -133,9 +136,9 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   }).join('');
   const bad = tally.fail + tally.none;
   const overall = bad === 0
-    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks satisfied${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
-    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">✗</span> ${[
-      tally.fail ? `${tally.fail} of ${checks.length} checks NOT satisfied` : '',
+    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks hold${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
+    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">${tally.fail ? '✗' : '?'}</span> ${[
+      tally.fail ? `${tally.fail} of ${checks.length} checks FAIL` : '',
       tally.none ? `${tally.none} of ${checks.length} not evaluated` : '',
     ].filter(Boolean).join('; ')}.</p>`;
   return `<h2 class="vb-h">Checks</h2>${overall}<table class="vb-summary"><thead><tr><th class="vb-ref">#</th><th>check</th><th class="vb-num">utilization</th><th></th><th>verdict</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;

@@ -62,13 +62,13 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       // The middle-third check flips, loudly.
       const third = page.locator('[data-cell="c_third"]');
       expect(await third.getAttribute('class')).toContain('lv-flipped-fail');
-      expect(await third.textContent()).toContain('NOW FAILS');
-      expect(await page.locator('[data-part="check-summary"]').innerText()).toMatch(/1 of 3 checks NOT satisfied/i);
+      expect(await third.textContent()).toContain('HOLDS → FAILS');
+      expect(await page.locator('[data-part="check-summary"]').innerText()).toMatch(/1 of 3 checks FAIL/);
       // The review panel: the input, document → now, and the flip.
       const panel = page.locator('#lv-review');
       expect(await panel.isVisible()).toBe(true);
       expect(await panel.locator('tr[data-review-input="L"]').innerText()).toMatch(/L\s+4\.8 m\s+→\s+6 m/);
-      expect(await panel.locator('.lv-flips').innerText()).toMatch(/1 check changed verdict[\s\S]*middle third of the wall base now FAILS/);
+      expect(await panel.locator('.lv-flips').innerText()).toMatch(/1 check changed state[\s\S]*middle third of the wall base ✗ holds → fails/);
       expect(await page.evaluate(() => document.body.classList.contains('lv-reviewing'))).toBe(true);
       expect(live.errors).toEqual([]);
     } finally { await live.close(); }
@@ -106,7 +106,7 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       expect(await page.evaluate(() => window.vaultbook.sheet.overrides.size)).toBe(0);
       expect(await page.locator('#lv-review').isHidden()).toBe(true);
       expect(await page.locator('.lv-badge').count()).toBe(0);
-      expect(await page.locator('.lv-flipped-fail, .lv-flipped-pass').count()).toBe(0);
+      expect(await page.locator('.lv-flipped-fail, .lv-flipped-warn, .lv-flipped-pass').count()).toBe(0);
       expect(await page.locator('#lv-sheet').innerText()).toBe(before);
       expect(live.errors).toEqual([]);
     } finally { await live.close(); }

@@ -45,12 +45,12 @@ describe('renderSheet({doc, states})', () => {
       return [v.classNames.split(' ').find((k) => k.startsWith('vb-verdict--')), v.querySelector('.vb-word')!.text];
     });
     expect(verdicts).toEqual([
-      ['vb-verdict--pass', 'SATISFIED'], ['vb-verdict--fail', 'NOT SATISFIED'], ['vb-verdict--near', 'SATISFIED – NEAR LIMIT'],
-      ['vb-verdict--pass', 'SATISFIED'], ['vb-verdict--fail', 'NOT SATISFIED'], ['vb-verdict--pass', 'SATISFIED'],
+      ['vb-verdict--pass', 'HOLDS'], ['vb-verdict--fail', 'FAILS'], ['vb-verdict--near', 'HOLDS – NEAR LIMIT'],
+      ['vb-verdict--pass', 'HOLDS'], ['vb-verdict--fail', 'FAILS'], ['vb-verdict--pass', 'HOLDS'],
     ]);
     const summary = byData(root, 'data-part', 'check-summary')[0]!;
     expect(summary.querySelectorAll('tbody tr').length).toBe(6);
-    expect(summary.querySelector('.vb-overall')!.text).toContain('2 of 6 checks NOT satisfied');
+    expect(summary.querySelector('.vb-overall')!.text).toContain('2 of 6 checks FAIL');
     // Each summary row links to its check.
     for (const a of summary.querySelectorAll('a')) expect(root.getElementById(a.getAttribute('href')!.slice(1))).not.toBeNull();
     expect(summary.innerHTML).toBe(renderCheckSummary(r.doc, r.states));
@@ -72,7 +72,7 @@ describe('renderSheet({doc, states})', () => {
     const stray = root.querySelectorAll('.vb-step--stray');
     expect(stray.length).toBe(1);
     expect(stray[0]!.querySelector('.vb-source')!.text).toBe('half = (L / 2             # unclosed bracket');
-    // The summary counts a check that could not be evaluated as not satisfied.
+    // The summary counts a check that could not be evaluated as such, never as holding.
     expect(byData(root, 'data-part', 'check-summary')[0]!.text).toContain('1 of 2 not evaluated');
   });
 
