@@ -84,7 +84,7 @@ function pointAssets(): void {
 function afterLoad(): void {
   changes.clear();
   for (const cell of sheet.doc.graph.cells) showChange(cell.id);
-  markEditable(sheetEl);
+  markEditable(sheetEl, describeInput);
   pointAssets();
   fileEl.textContent = loaded.file;
   const title = sheet.doc.meta.title;
@@ -97,7 +97,7 @@ sheet.onPatch((e: PatchEvent) => {
   for (const id of e.changed) showChange(id);
   for (const id of e.patched) {
     const el = sheet.cellElement(id);
-    if (el && sheet.cell(id)?.kind === 'given') markEditable(el);
+    if (el && sheet.cell(id)?.kind === 'given') markEditable(el, describeInput);
   }
   renderPanel();
 });
@@ -179,8 +179,16 @@ panelEl.addEventListener('click', (e) => {
 
 document.getElementById('lv-print')!.addEventListener('click', () => window.print());
 
+/** What an input is, for its accessible name: "t, ring thickness". */
+function describeInput(name: string): string {
+  const description = sheet.cell(name)?.description;
+  return description ? `${name}, ${description}` : name;
+}
+
 enableEditing(sheetEl, {
   current: (name) => sheet.sourceOf(name),
+  documentText: (name) => sheet.documentSourceOf(name),
+  describe: describeInput,
   documentValue: (name) => {
     const s = sheet.baseline.get(name);
     return s?.status === 'ok' ? s.value : undefined;

@@ -18,6 +18,7 @@ import type { Plugin, ViteDevServer } from 'vite';
 import { siteConfig, REPO_ROOT } from './site-config.js';
 import { guardRequest, ASSET_TYPES, type GuardPolicy } from './guard.js';
 import { rewriteGivenValues, RewriteError } from './rewrite.js';
+import { wrongDimension } from './dimension.js';
 import { writeFileAtomic, removeStaleTemps } from './atomic.js';
 import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
@@ -137,6 +138,8 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     if (!roundTrips(current.bytes, current.text)) {
       return sendJson(res, 422, { ok: false, message: `${shownName} is not valid UTF-8 text; nothing was written` });
     }
+    const refusal = wrongDimension(current.text, body.values);
+    if (refusal) return sendJson(res, 422, { ok: false, message: refusal });
     let result;
     try {
       result = rewriteGivenValues(current.text, body.values);

@@ -112,21 +112,57 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
     } finally { await live.close(); }
   });
 
-  it('Escape puts the value back; a value of another kind waits for Enter and then shows the error', async () => {
+  it('an edit applies on Enter only; a value of another dimension is refused beside the field, kept open when leaving it, never applied', async () => {
     const live = await openLive(browser, BARREL);
     try {
       const { page } = live;
+      await page.evaluate(() => {
+        const w = window as unknown as { __patches: number };
+        w.__patches = 0;
+        document.addEventListener('vaultbook:patched', () => { w.__patches++; });
+      });
+      const patches = () => page.evaluate(() => (window as unknown as { __patches: number }).__patches);
+      // Typing key by key applies nothing (no "0" on the way to "0.25"), so no cell flashes.
+      await page.click('[data-input="t"]');
+      await page.keyboard.press('Control+A');
+      await page.keyboard.type('0.25', { delay: 20 });
+      expect(await patches()).toBe(0);
+      expect(await page.evaluate(() => window.vaultbook.sheet.overrides.size)).toBe(0);
+      // A force for a thickness: refused with a message beside the field, marked invalid, nothing applied.
+      await page.keyboard.press('Control+A');
+      await page.keyboard.type('3 kN');
+      await page.keyboard.press('Enter');
+      const field = page.locator('input.lv-edit[data-edit="t"]');
+      expect(await field.getAttribute('aria-invalid')).toBe('true');
+      const msg = page.locator('#lv-edit-msg-t');
+      expect(await msg.isVisible()).toBe(true);
+      expect(await msg.innerText()).toMatch(/t is length \(m\); "3 kN" is force \(N\)\. Not applied\./);
+      expect(await msg.getAttribute('role')).toBe('alert');
+      // Leaving the field does not drop the refused value: the field stays open with its message.
+      await page.keyboard.press('Tab');
+      expect(await field.isVisible()).toBe(true);
+      expect(await field.inputValue()).toBe('3 kN');
+      expect(await page.evaluate(() => window.vaultbook.sheet.overrides.size)).toBe(0);
+      expect(await patches()).toBe(0);
+      // Corrected and committed: applied, and focus stays on the edited input.
+      await nextEvent(page, 'settled', async () => {
+        await field.fill('0.25');
+        await field.press('Enter');
+      });
+      expect(await page.evaluate(() => [...window.vaultbook.sheet.overrides])).toEqual([['t', '0.25 m']]);
+      expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.input)).toBe('t');
+      // Escape keeps the value and the focus.
+      await page.keyboard.press('Enter');
+      await field.fill('9 m');
+      await field.press('Escape');
+      expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.input)).toBe('t');
+      expect(await page.evaluate(() => [...window.vaultbook.sheet.overrides])).toEqual([['t', '0.25 m']]);
+      // The document's value typed another way is no change: 4.80 for 4.8 m.
       await page.click('[data-input="L"]');
-      await page.fill('input.lv-edit', '7 kN');
-      expect(await page.evaluate(() => window.vaultbook.sheet.overrides.size)).toBe(0);
-      expect(await page.locator('input.lv-edit').getAttribute('class')).toContain('lv-edit-bad');
-      await page.keyboard.press('Escape');
-      expect(await page.evaluate(() => window.vaultbook.sheet.overrides.size)).toBe(0);
-      await editInput(page, 'L', '7 kN');
-      // The first cell that reads L reports the mismatch; the ones after it say what blocked them.
-      expect(await cellText(page, 'k_arc')).toMatch(/unit|dimension/i);
-      expect(await cellText(page, 'H')).toMatch(/not computed: it needs k_arc/);
-      expect(await page.locator('[data-part="diagnostics"]').innerText()).not.toBe('');
+      await page.fill('input.lv-edit[data-edit="L"]', '4.80');
+      await page.keyboard.press('Enter');
+      expect(await page.evaluate(() => [...window.vaultbook.sheet.overrides])).toEqual([['t', '0.25 m']]);
+      expect(await page.locator('#lv-review tr[data-review-input]').count()).toBe(1);
       expect(live.errors).toEqual([]);
     } finally { await live.close(); }
   });

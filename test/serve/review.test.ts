@@ -4,7 +4,8 @@ import { join } from 'node:path';
 import { compile, startSession } from '../../engine/index.js';
 import { math } from '../../cells/math.js';
 import { compareToDocument, changeBadge, checkState, flipTone, inputChanges, renderReviewPanel } from '../../site/review.js';
-import { withDocumentUnit, isSameKind } from '../../site/editor.js';
+import { withDocumentUnit } from '../../site/editor.js';
+import { readInputValue, sameValue, valueOfText } from '../../site/input-value.js';
 import { FIXTURES, REPO } from './helpers.js';
 
 const TEXT = readFileSync(join(FIXTURES, 'barrel.md'), 'utf8');
@@ -162,11 +163,22 @@ describe('withDocumentUnit', () => {
     expect(withDocumentUnit('7', 12)).toBe('7');
   });
 
-  it('isSameKind accepts values of the document\'s dimension only', () => {
-    expect(isSameKind('7 ft', math.unit(6.4, 'm'))).toBe(true);
-    expect(isSameKind('7 kN', math.unit(6.4, 'm'))).toBe(false);
-    expect(isSameKind('7 k', math.unit(6.4, 'm'))).toBe(false);
-    expect(isSameKind('7 +', math.unit(6.4, 'm'))).toBe(false);
-    expect(isSameKind('3', 2)).toBe(true);
+  it('readInputValue refuses a value of another dimension with the input\'s name and both dimensions', () => {
+    const t = math.unit(0.215, 'm');
+    expect(readInputValue('t', '3 kN', t)).toEqual({ ok: false, text: '3 kN', message: 't is length (m); "3 kN" is force (N). Not applied.' });
+    expect(readInputValue('t', '0.25 ft', t)).toMatchObject({ ok: true, text: '0.25 ft' });
+    expect(readInputValue('t', '0.25', t)).toMatchObject({ ok: true, text: '0.25 m' });
+    expect(readInputValue('t', '7 k', t).ok).toBe(false);
+    expect(readInputValue('t', '7 +', t)).toMatchObject({ ok: false, message: expect.stringMatching(/^cannot read "7 \+"/) });
+    expect(readInputValue('t', '  ', t)).toMatchObject({ ok: false, message: expect.stringMatching(/t needs a value/) });
+    expect(readInputValue('n', '3', 2)).toMatchObject({ ok: true, value: 3 });
+    expect(readInputValue('n', '3 m', 2).ok).toBe(false);
+  });
+
+  it('sameValue sees 5.40 m, 5.4 m and 5400 mm as one value, and 5.41 m as another', () => {
+    expect(sameValue(valueOfText('5.40 m'), math.unit('5.4 m'))).toBe(true);
+    expect(sameValue(valueOfText('5400 mm'), math.unit('5.4 m'))).toBe(true);
+    expect(sameValue(valueOfText('5.41 m'), math.unit('5.4 m'))).toBe(false);
+    expect(sameValue(valueOfText('5.4 kN'), math.unit('5.4 m'))).toBe(false);
   });
 });
