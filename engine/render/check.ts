@@ -7,7 +7,7 @@ import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../types.js';
 import { splitQuantity } from '../values/format.js';
-import { anchorId, escapeHtml } from './escape.js';
+import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { exprTex, readsNames } from './tex.js';
 import { symbolTex } from './names.js';
@@ -15,6 +15,7 @@ import { readableUnit, utilizationText, valueTex } from './quantity.js';
 import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
+import { workingHtml } from './working.js';
 import type { MathNode } from 'mathjs';
 
 /**
@@ -71,7 +72,7 @@ function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
 
 const OP_TEX: Record<string, string> = { '<=': '\\le', '>=': '\\ge', '<': '<', '>': '>' };
 
-function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, records: MathNode[]): string {
+function workingRows(cell: Cell, r: CheckResult | null, ctx: RenderContext, records: MathNode[]): string[] {
   const rows: string[] = [];
   const formula = exprTex(cell.node, ctx.scope, false, records);
   rows.push(formula);
@@ -90,7 +91,7 @@ function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, recor
       }
     }
   }
-  return rows.length === 1 ? rows[0]! : `\\begin{aligned}${rows.map((r) => `&${r}`).join('\\\\')}\\end{aligned}`;
+  return rows;
 }
 
 /**
@@ -102,14 +103,15 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc) : '';
   const verdict = verdictOf(state);
   const records: MathNode[] = [];
-  return `<div class="vb-work"><div class="vb-math">${typeset(workingTex(cell, r, ctx, records), true)}</div>${recordsHtml(records, ctx)}${trouble}</div>`
+  const rows = workingRows(cell, r, ctx, records).map((tex) => ({ tex }));
+  return `<div class="vb-work"><div class="vb-math">${workingHtml(rows)}</div>${recordsHtml(records, ctx)}${trouble}</div>`
     + `<div class="vb-out">${verdictHtml(verdict, r?.utilization ?? null)}</div>`;
 }
 
 /** One ```check line as a step of the calculation. */
 export function renderCheck(cell: Cell, ctx: RenderContext): string {
   const name = cell.name ? `${typeset(symbolTex(cell.name))} ` : '';
-  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(cell.description)}</p>` : '';
+  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${descriptionHtml(cell.description)}</p>` : '';
   return `<div class="vb-step vb-step--check" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
     + `<div class="vb-body">${head}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
 }
@@ -128,7 +130,7 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
     const verdict = verdictOf(state);
     tally[verdict]++;
     const u = state.status === 'ok' ? (state.value as CheckResult).utilization : null;
-    const what = cell.description ? escapeHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false));
+    const what = cell.description ? descriptionHtml(cell.description) : typeset(exprTex(cell.node, ctx.scope, false));
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationText(u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
       + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`

@@ -49,3 +49,11 @@ export function texText(text: string): string {
 export function anchorId(cellId: string): string {
   return `cell-${cellId.replace(/[^A-Za-z0-9_-]/g, '-')}`;
 }
+
+/**
+ * A cell's description as HTML: escaped, with text between backticks set as code, as in the prose.
+ * @example descriptionHtml('the `a_1` length') // 'the <code>a_1</code> length'
+ */
+export function descriptionHtml(text: string): string {
+  return escapeHtml(text).replace(/`([^`]+)`/g, '<code>$1</code>');
+}

@@ -4,7 +4,7 @@
  */
 import type { Cell, CellState } from '../types.js';
 import { isFigure } from '../../cells/figures/registry.js';
-import { anchorId, escapeHtml } from './escape.js';
+import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { typeset } from './katex.js';
@@ -29,7 +29,7 @@ export function renderFigureOutput(cell: Cell, state: CellState, ctx: RenderCont
 /** One ```figure line: the drawing, captioned with its description and the call. */
 export function renderFigure(cell: Cell, ctx: RenderContext, number: number): string {
   const call = typeset(exprTex(cell.node, ctx.scope, false));
-  const caption = `<figcaption><span class="vb-fignum">Figure ${number}.</span> ${escapeHtml(cell.description)} <span class="vb-figcall">${call}</span></figcaption>`;
+  const caption = `<figcaption><span class="vb-fignum">Figure ${number}.</span> ${descriptionHtml(cell.description)} <span class="vb-figcall">${call}</span></figcaption>`;
   return `<figure class="vb-figure" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
     + `<div class="vb-figbody"><div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderFigureOutput(cell, stateOf(ctx, cell.id), ctx)}</div>${caption}</div></figure>`;
 }

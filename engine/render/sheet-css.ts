@@ -125,11 +125,19 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-step .vb-ref { padding-top: 0.8mm; }
 .vb-desc { margin: 0 0 0.5mm; font-size: 9pt; color: var(--vb-muted); }
 .vb-cellout { display: grid; grid-template-columns: minmax(0, 1fr) 50mm; column-gap: 3mm; align-items: center; }
-.vb-work { min-width: 0; overflow-x: auto; }
-.vb-math .katex-display { margin: 0.6mm 0; text-align: left; }
-.vb-math .katex-display > .katex { text-align: left; }
-.vb-out { border-left: 0.8pt solid var(--vb-rule); padding-left: 2.5mm; align-self: stretch; display: flex; flex-direction: column; justify-content: center; }
+.vb-work { min-width: 0; overflow-wrap: anywhere; }
+/* Working rows: inline maths in display style, so a long row breaks at its operators; the name in the
+   first column, every row's relation at the start of the second, continuation lines indented. */
+.vb-rows { display: grid; grid-template-columns: minmax(0, 1fr); row-gap: 0.8mm; margin: 0.6mm 0; align-items: first baseline; }
+.vb-rows--named { grid-template-columns: max-content minmax(0, 1fr); column-gap: 0.3em; }
+.vb-lhs { text-align: right; }
+.vb-rhs { min-width: 0; padding-left: 2.2em; text-indent: -2.2em; }
+.vb-rhs .katex { text-indent: 0; }
+.vb-rhs .katex .base { margin: 0.2em 0; }
+.vb-out { min-width: 0; border-left: 0.8pt solid var(--vb-rule); padding-left: 2.5mm; align-self: stretch; display: flex; flex-direction: column; justify-content: center; overflow-wrap: anywhere; }
 .vb-result { font-weight: bold; }
+.vb-fields { table-layout: fixed; }
+.vb-fields .vb-num { white-space: normal; overflow-wrap: anywhere; }
 .vb-result .katex { font-size: 1.08em; }
 .vb-call { margin: 0; font-size: 9pt; }
 .vb-call code { font-weight: bold; color: var(--vb-accent); }

@@ -1,0 +1,59 @@
+/**
+ * The sheet's layout in real Chromium, for every template and a stress sheet of long formulas,
+ * long lists and long names: nothing sticks out of its column at 1024 px or in print, the PDF
+ * holds every number the working shows, and the body text keeps its size on every page.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { CHROMIUM_PATH, launchPrinter, printPdf, type Printer } from '../../bin/pdf.js';
+import { renderDocument } from '../../bin/commands/render.js';
+import { textSize, figureTextSizes, overflowsIn, pdfFontSizes, workingNumbers } from './sheet-measure.js';
+
+const haveTools = existsSync(CHROMIUM_PATH) && (() => { try { execFileSync('pdftohtml', ['-v'], { stdio: 'ignore' }); return true; } catch { return false; } })();
+const artifacts = fileURLToPath(new URL('../../test-artifacts/', import.meta.url));
+const SHEETS = ['templates/barrel-vault.md', 'templates/cross-vault.md', 'templates/arch-ring.md', 'templates/buttress.md', 'test/fixtures/sheets/long-formulas.md'];
+const repo = (p: string) => fileURLToPath(new URL(`../../${p}`, import.meta.url));
+/** A4 less the sheet's left and right margins (18 mm + 15 mm), in CSS px. */
+const PRINT_WIDTH = Math.floor((210 - 33) / 25.4 * 96);
+
+describe.skipIf(!haveTools)('sheet layout in Chromium', () => {
+  let printer: Printer;
+  beforeAll(async () => {
+    mkdirSync(artifacts, { recursive: true });
+    printer = await launchPrinter();
+  }, 60_000);
+  afterAll(async () => { await printer?.close(); });
+
+  for (const file of SHEETS) {
+    const name = file.split('/').pop()!.replace(/\.md$/, '');
+    it(`${name}: nothing overflows its box at 1024 px or in print; the PDF keeps the body size and every number`, async () => {
+      const { html } = await renderDocument(readFileSync(repo(file), 'utf8'), `${name}.md`, {}, { hash: 'f'.repeat(64) });
+      const page = await printer.open(html);
+      await page.setViewportSize({ width: 1024, height: 900 });
+      expect(await overflowsIn(page), 'screen, 1024 px').toEqual([]);
+      const numbers = await workingNumbers(page);
+      await page.emulateMedia({ media: 'print' });
+      await page.setViewportSize({ width: PRINT_WIDTH, height: 1100 });
+      expect(await overflowsIn(page), 'print width').toEqual([]);
+      const figureText = await figureTextSizes(page);
+      await page.close();
+
+      const pdf = `${artifacts}layout-${name}.pdf`;
+      await printPdf(html, pdf, printer);
+      // Every number of the working is in the PDF's text (none was cut off at a margin).
+      const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+      const missing = numbers.filter((n) => !text.includes(n));
+      expect(missing, `${numbers.length} numbers in the working`).toEqual([]);
+      expect(numbers.length).toBeGreaterThan(5);
+      // The text keeps its size on every page (prose 10.5 pt, working 10 pt, tables 9 pt): nothing shrank a page to fit,
+      // which Chromium does to a whole printout when one element is wider than the paper (it was 6.5 pt before).
+      const pages = pdfFontSizes(pdf);
+      const bodies = pages.map(textSize);
+      console.log(`${name}: ${pages.length} pages, text sizes ${bodies.join(' ')} pt, smallest ${Math.min(...pages.flatMap((p) => [...p.keys()]))} pt; `
+        + `figure text ${figureText.length ? Math.min(...figureText.map((t) => t.pt)) : '—'} pt smallest`);
+      for (const [i, b] of bodies.entries()) expect(b, `text size on page ${i + 1}`).toBeGreaterThanOrEqual(8.5);
+    }, 120_000);
+  }
+});
