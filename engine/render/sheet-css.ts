@@ -90,7 +90,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-cautions .vb-h { font-size: 8.5pt; color: var(--vb-muted); border-bottom-width: 0.5pt; border-bottom-color: var(--vb-rule); margin-top: 4mm; }
 .vb-cautions ol { margin: 0; padding-left: 5mm; }
 .vb-cautions strong { color: var(--vb-ink); }
-.vb-archive { margin-top: 8mm; padding-top: 1.5mm; border-top: 0.5pt solid var(--vb-rule); font-size: 7.5pt; color: var(--vb-muted); overflow-wrap: anywhere; break-inside: avoid; }
+.vb-archive { break-before: avoid; margin-top: 8mm; padding-top: 1.5mm; border-top: 0.5pt solid var(--vb-rule); font-size: 7.5pt; color: var(--vb-muted); overflow-wrap: anywhere; break-inside: avoid; }
 .vb-hash { font-size: 7pt; }
 .vb-dirty { color: var(--vb-fail); }
 
@@ -102,6 +102,11 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-prose h3 { font-size: 11pt; margin: 5mm 0 1.5mm; }
 .vb-prose h4, .vb-prose h5, .vb-prose h6 { font-size: 10pt; margin: 4mm 0 1mm; }
 .vb-prose p { margin: 1.5mm 0 2mm; }
+/* No page starts or ends with a lone line of a paragraph or list item, or a lone table row. */
+.vb-prose p, .vb-prose li, .vb-cautions li { orphans: 3; widows: 3; }
+.vb-prose li:last-child, .vb-cautions li:last-child { break-before: avoid; }
+.vb-summary tr:last-child, .vb-inputs tr:last-child, .vb-fields tr:last-child, .vb-prose tr:last-child { break-before: avoid; }
+.vb-summary tbody tr:first-child, .vb-inputs tbody tr:first-child, .vb-prose tbody tr:first-child { break-after: avoid; }
 .vb-prose table { border-collapse: collapse; font-family: var(--vb-sans); font-size: 9pt; }
 .vb-prose th, .vb-prose td { border: 0.5pt solid var(--vb-rule); padding: 0.6mm 2mm; }
 .vb-prose img { max-width: 100%; }

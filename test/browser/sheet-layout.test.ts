@@ -54,6 +54,21 @@ describe.skipIf(!haveTools)('sheet layout in Chromium', () => {
       console.log(`${name}: ${pages.length} pages, text sizes ${bodies.join(' ')} pt, smallest ${Math.min(...pages.flatMap((p) => [...p.keys()]))} pt; `
         + `figure text ${figureText.length ? Math.min(...figureText.map((t) => t.pt)) : '—'} pt smallest`);
       for (const [i, b] of bodies.entries()) expect(b, `text size on page ${i + 1}`).toBeGreaterThanOrEqual(8.5);
+      // The running footer is never cut, and no page holds only the end of the document and its archive footer.
+      const rawPages = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).split('\f').filter((t) => t.trim());
+      const pageTexts = rawPages.map((t) => t.replace(/\s+/g, ' '));
+      for (const [i, t] of pageTexts.entries()) {
+        expect(t, `footer of page ${i + 1}`).not.toMatch(/prepared [^·]*…/);
+        // What the page holds besides its running header (first line), footer (last lines, from the project on) and archive line.
+        const lines = rawPages[i]!.split('\n').filter((l) => l.trim());
+        const footerAt = lines.findLastIndex((l) => /^Hartwell Hill College|^job /.test(l));
+        const body = lines.slice(1, footerAt < 0 ? undefined : footerAt).join(' ').replace(/source \S+ · SHA-256 f+/, '').replace(/sheet \d+ of \d+/, '');
+        expect(body.length, `text on page ${i + 1} besides header, footer and archive line`).toBeGreaterThan(200);
+      }
+      // A footer too long for one line wraps (pdftotext reads "sheet n of N" into the middle of it).
+      if (name === 'long-formulas') {
+        for (const t of pageTexts) expect(t.replace(/ sheet \d+ of \d+/, '')).toContain('checked K. Osei-Brightwater, independent checker for the college estates department');
+      }
     }, 120_000);
   }
 });
