@@ -171,7 +171,8 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-figure { display: grid; grid-template-columns: 9mm 1fr; margin: 3mm 0; break-inside: avoid; }
 .vb-figbody { min-width: 0; }
 .vb-figbody .vb-cellout { display: block; }
-.vb-svg svg { display: block; width: 100%; height: auto; max-height: 150mm; }
+/* A figure prints at its own size, or scaled only to the column's width: its text stays at least 8 pt. */
+.vb-svg svg { display: block; width: 100%; height: auto; max-width: 100%; }
 .vb-figure figcaption { font-size: 8.5pt; color: var(--vb-muted); margin-top: 1mm; }
 .vb-fignum { font-weight: bold; color: var(--vb-ink); }
 .vb-figcall { margin-left: 2mm; font-size: 0.9em; }

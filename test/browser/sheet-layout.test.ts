@@ -9,7 +9,7 @@ import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { CHROMIUM_PATH, launchPrinter, printPdf, type Printer } from '../../bin/pdf.js';
 import { renderDocument } from '../../bin/commands/render.js';
-import { textSize, figureTextSizes, overflowsIn, pdfFontSizes, workingNumbers } from './sheet-measure.js';
+import { textSize, figureClashes, figureTextSizes, overflowsIn, pdfFontSizes, workingNumbers } from './sheet-measure.js';
 
 const haveTools = existsSync(CHROMIUM_PATH) && (() => { try { execFileSync('pdftohtml', ['-v'], { stdio: 'ignore' }); return true; } catch { return false; } })();
 const artifacts = fileURLToPath(new URL('../../test-artifacts/', import.meta.url));
@@ -38,6 +38,9 @@ describe.skipIf(!haveTools)('sheet layout in Chromium', () => {
       await page.setViewportSize({ width: PRINT_WIDTH, height: 1100 });
       expect(await overflowsIn(page), 'print width').toEqual([]);
       const figureText = await figureTextSizes(page);
+      // Figures: every text at least 8 pt on paper; no label crossed by a line or another text; nothing outside the drawing.
+      expect(figureText.filter((t) => t.pt < 8), 'figure texts under 8 pt').toEqual([]);
+      expect(await figureClashes(page)).toEqual([]);
       await page.close();
 
       const pdf = `${artifacts}layout-${name}.pdf`;
@@ -61,7 +64,7 @@ describe.skipIf(!haveTools)('sheet layout in Chromium', () => {
         expect(t, `footer of page ${i + 1}`).not.toMatch(/prepared [^·]*…/);
         // What the page holds besides its running header (first line), footer (last lines, from the project on) and archive line.
         const lines = rawPages[i]!.split('\n').filter((l) => l.trim());
-        const footerAt = lines.findLastIndex((l) => /^Hartwell Hill College|^job /.test(l));
+        const footerAt = lines.map((l) => /^Hartwell Hill College|^job /.test(l)).lastIndexOf(true);
         const body = lines.slice(1, footerAt < 0 ? undefined : footerAt).join(' ').replace(/source \S+ · SHA-256 f+/, '').replace(/sheet \d+ of \d+/, '');
         expect(body.length, `text on page ${i + 1} besides header, footer and archive line`).toBeGreaterThan(200);
       }

@@ -77,3 +77,52 @@ export function figureTextSizes(page: Page): Promise<Array<{ text: string; pt: n
 export function workingNumbers(page: Page): Promise<string[]> {
   return page.evaluate(() => [...new Set([...document.querySelectorAll('.vb-rows .katex-mathml mn')].map((n) => n.textContent ?? '').filter((t) => /\d/.test(t)))]);
 }
+
+/**
+ * Labels of figures (texts the placement pass moved, class vb-label) that a line, a path or another
+ * text crosses, measured on the glyphs Chromium draws; and texts that stick out of their drawing.
+ */
+export function figureClashes(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const out: string[] = [];
+    const INSET = 0.25; // mm: a line touching a label's outermost pixel is not crossing it
+    for (const [f, svg] of [...document.querySelectorAll<SVGSVGElement>('.vb-svg svg')].entries()) {
+      const root = svg.getCTM()!;
+      const texts = [...svg.querySelectorAll<SVGTextElement>('text')];
+      const boxOf = (t: SVGTextElement) => {
+        const b = t.getBBox();
+        return { x0: b.x + INSET, y0: b.y + INSET, x1: b.x + b.width - INSET, y1: b.y + b.height - INSET };
+      };
+      // Points of every line and path, in the svg's own units.
+      const polylines: DOMPoint[][] = [];
+      for (const l of svg.querySelectorAll<SVGLineElement>('line')) polylines.push([new DOMPoint(l.x1.baseVal.value, l.y1.baseVal.value), new DOMPoint(l.x2.baseVal.value, l.y2.baseVal.value)]);
+      for (const p of svg.querySelectorAll<SVGPathElement>('path')) {
+        const n = p.getTotalLength();
+        const pts: DOMPoint[] = [];
+        for (let s = 0; s <= n; s += 0.3) { const q = p.getPointAtLength(s); pts.push(new DOMPoint(q.x, q.y)); }
+        polylines.push(pts);
+      }
+      const vb = svg.viewBox.baseVal;
+      for (const t of texts) {
+        const b = t.getBBox();
+        const m = root.inverse().multiply(t.getCTM()!);
+        const corners = [[b.x, b.y], [b.x + b.width, b.y], [b.x, b.y + b.height], [b.x + b.width, b.y + b.height]].map(([x, y]) => new DOMPoint(x, y).matrixTransform(m));
+        if (corners.some((c) => c.x < vb.x - 0.5 || c.y < vb.y - 0.5 || c.x > vb.x + vb.width + 0.5 || c.y > vb.y + vb.height + 0.5)) out.push(`figure ${f + 1}: "${t.textContent}" runs out of the drawing`);
+        if (!t.classList.contains('vb-label')) continue;
+        const box = boxOf(t);
+        const toText = m.inverse();
+        const inBox = (p: DOMPoint) => { const q = p.matrixTransform(toText); return q.x > box.x0 && q.x < box.x1 && q.y > box.y0 && q.y < box.y1; };
+        if (polylines.some((pl) => pl.some(inBox))) out.push(`figure ${f + 1}: a line crosses "${t.textContent}"`);
+        for (const o of texts) {
+          if (o === t) continue;
+          const ob = o.getBBox();
+          const om = root.inverse().multiply(o.getCTM()!);
+          const oc = [[ob.x + INSET, ob.y + INSET], [ob.x + ob.width - INSET, ob.y + INSET], [ob.x + INSET, ob.y + ob.height - INSET], [ob.x + ob.width - INSET, ob.y + ob.height - INSET], [ob.x + ob.width / 2, ob.y + ob.height / 2]]
+            .map(([x, y]) => new DOMPoint(x, y).matrixTransform(om));
+          if (oc.some(inBox)) out.push(`figure ${f + 1}: "${o.textContent}" overlaps "${t.textContent}"`);
+        }
+      }
+    }
+    return [...new Set(out)];
+  });
+}
