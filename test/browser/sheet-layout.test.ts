@@ -26,6 +26,14 @@ describe.skipIf(!haveTools)('sheet layout in Chromium', () => {
   }, 60_000);
   afterAll(async () => { await printer?.close(); });
 
+  it('figureClashes finds a line through a label and a label over another text (the measure itself can fail)', async () => {
+    const page = await printer.open('<div class="vb-svg"><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 100 50" width="100mm" height="50mm" font-size="3">'
+      + '<line x1="0" y1="20" x2="100" y2="20" stroke="#000"/><text class="vb-label" x="50" y="21" text-anchor="middle">H = 77.0 kN</text>'
+      + '<text x="10" y="40">fixed</text><text class="vb-label" x="12" y="40">over</text><text class="vb-label" x="50" y="45">alone</text></svg></div>');
+    expect(await figureClashes(page)).toEqual(['figure 1: a line crosses "H = 77.0 kN"', 'figure 1: "fixed" overlaps "over"']);
+    await page.close();
+  });
+
   for (const file of SHEETS) {
     const name = file.split('/').pop()!.replace(/\.md$/, '');
     it(`${name}: nothing overflows its box at 1024 px or in print; the PDF keeps the body size and every number`, async () => {

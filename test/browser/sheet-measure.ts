@@ -95,7 +95,11 @@ export function figureClashes(page: Page): Promise<string[]> {
       };
       // Points of every line and path, in the svg's own units.
       const polylines: DOMPoint[][] = [];
-      for (const l of svg.querySelectorAll<SVGLineElement>('line')) polylines.push([new DOMPoint(l.x1.baseVal.value, l.y1.baseVal.value), new DOMPoint(l.x2.baseVal.value, l.y2.baseVal.value)]);
+      for (const l of svg.querySelectorAll<SVGLineElement>('line')) {
+        const [x1, y1, x2, y2] = [l.x1.baseVal.value, l.y1.baseVal.value, l.x2.baseVal.value, l.y2.baseVal.value];
+        const steps = Math.max(1, Math.ceil(Math.hypot(x2 - x1, y2 - y1) / 0.3));
+        polylines.push(Array.from({ length: steps + 1 }, (_, i) => new DOMPoint(x1 + ((x2 - x1) * i) / steps, y1 + ((y2 - y1) * i) / steps)));
+      }
       for (const p of svg.querySelectorAll<SVGPathElement>('path')) {
         const n = p.getTotalLength();
         const pts: DOMPoint[] = [];
