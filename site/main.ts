@@ -179,6 +179,13 @@ panelEl.addEventListener('click', (e) => {
 
 document.getElementById('lv-print')!.addEventListener('click', () => window.print());
 
+// Alt+R: to the trial values from anywhere (the write action is then one or two Tab presses away).
+document.addEventListener('keydown', (e) => {
+  if (!e.altKey || e.ctrlKey || e.metaKey || e.key.toLowerCase() !== 'r' || panelEl.hidden) return;
+  e.preventDefault();
+  (panelEl.querySelector<HTMLElement>('[data-action="write"]') ?? panelEl).focus();
+});
+
 /** What an input is, for its accessible name: "t, ring thickness". */
 function describeInput(name: string): string {
   const description = sheet.cell(name)?.description;

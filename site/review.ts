@@ -252,7 +252,7 @@ export function renderReviewPanel(m: PanelModel): string {
     ? `<p class="lv-dropped">No longer in the document, so no longer applied: ${m.dropped.map(esc).join(', ')}</p>`
     : '';
   const msg = m.message
-    ? `<p class="lv-msg lv-msg-${m.message.kind}" role="status">${esc(m.message.text)}`
+    ? `<p class="lv-msg lv-msg-${m.message.kind}" role="${m.message.kind === 'error' ? 'alert' : 'status'}">${esc(m.message.text)}`
       + `${m.message.conflict ? ' <button type="button" data-action="reload">Load the version on disk</button>' : ''}</p>`
     : '';
   if (!m.inputs.length) return `${dropped}${msg}`;
