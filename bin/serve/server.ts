@@ -23,6 +23,7 @@ import { writeFileAtomic, removeStaleTemps } from './atomic.js';
 import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
 import { archiveInfo } from '../commands/render.js';
+import { buildSite, serveBuiltSite, type BuiltSite } from './built-site.js';
 
 export interface ServeOptions {
   /** The calc document to serve (and the only file ever written). */
@@ -35,6 +36,8 @@ export interface ServeOptions {
   logLevel?: 'info' | 'warn' | 'error' | 'silent';
   /** Watcher timings, for tests. */
   watch?: { debounceMs?: number; pollMs?: number };
+  /** 'built' (default): the page from a bundle built once and reused (built-site.ts); 'dev': Vite's development server. */
+  site?: 'built' | 'dev';
 }
 
 export interface ServeHandle {
@@ -110,6 +113,15 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     docDir,
   };
   let watcher: DocumentWatch | null = null;
+  // The page from a built bundle when it can be built; else from the development server, as before.
+  let site: BuiltSite | null = null;
+  if ((options.site ?? 'built') === 'built') {
+    try {
+      site = serveBuiltSite((await buildSite()).dir);
+    } catch (e) {
+      console.warn(`vaultbook serve: could not build the page (${(e as Error).message}); serving it from the development server`);
+    }
+  }
 
   const readDoc = () => {
     const bytes = readFileSync(file);
@@ -165,6 +177,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
           res.writeHead(403, { 'Content-Type': 'text/plain' }).end('refused: unexpected Host header');
           return;
         }
+        if (site?.handle(req, res)) return;
         const verdict = guardRequest(url, policy);
         if (!verdict.ok) {
           res.writeHead(verdict.status, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${verdict.reason}`);
@@ -210,6 +223,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   const initial = readDoc();
   watcher = watchDocument(file, initial.version, (_bytes, version) => {
     vite.ws.send({ type: 'custom', event: 'vaultbook:doc', data: { version } });
+    site?.notify(version);
   }, options.watch);
   return {
     url: `http://127.0.0.1:${port}/`,
@@ -218,6 +232,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     vite,
     close: async () => {
       watcher?.close();
+      site?.close();
       await vite.close();
     },
   };

@@ -216,14 +216,19 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
   });
 
   it('write-back after a change on disk the page has not seen is refused; nothing is overwritten', async () => {
-    let hold = false;
+    // Held from the start: an event stream already open cannot be paused, only refused.
+    let hold = true;
     const live = await openLive(browser, BARREL, {
-      // Stand in for a slow notification: while `hold` is set, the server's file-change events do not reach the page.
-      prepare: (page) => page.routeWebSocket(/.*/, (ws) => {
-        const server = ws.connectToServer();
-        server.onMessage((m) => { if (!(hold && String(m).includes('vaultbook:doc'))) ws.send(m); });
-        ws.onMessage((m) => server.send(m));
-      }),
+      // Stand in for a slow notification: while `hold` is set, the server's file-change events do not reach the page
+      // (the built page hears them on /__events, the development server's page on its websocket).
+      prepare: async (page) => {
+        await page.route('**/__events', (route) => (hold ? route.abort() : route.continue()));
+        await page.routeWebSocket(/.*/, (ws) => {
+          const server = ws.connectToServer();
+          server.onMessage((m) => { if (!(hold && String(m).includes('vaultbook:doc'))) ws.send(m); });
+          ws.onMessage((m) => server.send(m));
+        });
+      },
     });
     try {
       const { page, file } = live;
@@ -244,7 +249,7 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       expect(ok.ok).toBe(true);
       expect(readFileSync(file, 'utf8')).toBe(external.replace('L = 4.8 m             #', 'L = 5.2 m             #'));
       // The browser logs the refused request itself; nothing else went wrong.
-      expect(live.errors.filter((e) => !/status of 409 \(Conflict\)/.test(e))).toEqual([]);
+      expect(live.errors.filter((e) => !/status of 409 \(Conflict\)|net::ERR_FAILED/.test(e))).toEqual([]);
     } finally { await live.close(); }
   });
 });
