@@ -220,9 +220,27 @@ declare global {
   }
 }
 
+/**
+ * First paint: the built page's server renders the sheet when it starts; it is shown at once, marked
+ * as waiting (not editable yet), until the live sheet, evaluated here, takes its place.
+ */
+function paintFirst(): void {
+  if (import.meta.hot) return; // the development server has no /__sheet
+  document.body.classList.add('lv-waiting');
+  showStatus('computing the sheet…');
+  void fetch('/__sheet', { cache: 'no-store' }).then((r) => (r.ok ? r.json() as Promise<{ html: string }> : null)).then((first) => {
+    if (first && document.body.classList.contains('lv-waiting')) {
+      sheetEl.innerHTML = first.html;
+      pointAssets();
+    }
+  }, () => undefined);
+}
+paintFirst();
+
 const ready = serially(async () => {
   try {
     await show(await fetchDocument(), 'start');
+    document.body.classList.remove('lv-waiting');
   } catch (e) {
     showStatus((e as Error).message);
     throw e;

@@ -17,6 +17,7 @@ import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, s
 import { extname, join, relative, sep } from 'node:path';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { siteConfig, REPO_ROOT } from './site-config.js';
+import type { FirstPaint } from './first-paint.js';
 
 const SOURCES = ['site', 'engine', 'cells'];
 const TYPES: Record<string, string> = {
@@ -84,8 +85,9 @@ export interface BuiltSite {
 /**
  * Serves a built page.
  * @param dir from buildSite
+ * @param first the server-rendered sheet, served at /__sheet for the page's first paint
  */
-export function serveBuiltSite(dir: string): BuiltSite {
+export function serveBuiltSite(dir: string, first?: FirstPaint): BuiltSite {
   const files = new Map<string, string>();
   for (const file of listFiles(dir)) files.set(`/${relative(dir, file).split(sep).join('/')}`, file);
   files.set('/', join(dir, 'index.html'));
@@ -101,6 +103,16 @@ export function serveBuiltSite(dir: string): BuiltSite {
         res.write(': connected\n\n');
         streams.add(res);
         req.on('close', () => streams.delete(res));
+        return true;
+      }
+      if (path === '/__sheet' && first && req.method === 'GET') {
+        first.get().then((sheet) => {
+          res.writeHead(200, { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store', 'X-Content-Type-Options': 'nosniff' });
+          res.end(JSON.stringify(sheet));
+        }, (e: Error) => {
+          res.writeHead(500, { 'Content-Type': 'text/plain; charset=utf-8' });
+          res.end(`cannot render the sheet: ${e.message}`);
+        });
         return true;
       }
       const file = files.get(path);

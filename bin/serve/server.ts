@@ -24,6 +24,7 @@ import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
 import { archiveInfo } from '../commands/render.js';
 import { buildSite, serveBuiltSite, type BuiltSite } from './built-site.js';
+import { firstPaint } from './first-paint.js';
 
 export interface ServeOptions {
   /** The calc document to serve (and the only file ever written). */
@@ -117,7 +118,9 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   let site: BuiltSite | null = null;
   if ((options.site ?? 'built') === 'built') {
     try {
-      site = serveBuiltSite((await buildSite()).dir);
+      const first = firstPaint(file, shownName);
+      void first.get().catch(() => undefined); // rendered while the browser connects
+      site = serveBuiltSite((await buildSite()).dir, first);
     } catch (e) {
       console.warn(`vaultbook serve: could not build the page (${(e as Error).message}); serving it from the development server`);
     }

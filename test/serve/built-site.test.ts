@@ -49,6 +49,16 @@ describe('serve from the built page', () => {
     expect([js.status, js.headers['content-type']]).toEqual([200, 'text/javascript; charset=utf-8']);
   });
 
+  it('GET /__sheet is the sheet rendered by the server, for the page to paint at once', async () => {
+    const r = await rawRequest(server.port, '/__sheet');
+    expect(r.status).toBe(200);
+    const body = JSON.parse(r.body) as { version: string; html: string };
+    const doc = JSON.parse((await rawRequest(server.port, '/__doc')).body) as { version: string };
+    expect(body.version).toBe(doc.version);
+    expect(body.html).toMatch(/^<article class="vb-sheet"/);
+    expect(body.html).toContain('data-input="L"');
+  });
+
   it('/__events streams a "doc" event when the file changes on disk', async () => {
     const got = await new Promise<string>((ok, fail) => {
       const req = request({ host: '127.0.0.1', port: server.port, path: '/__events', headers: { Host: `127.0.0.1:${server.port}` } }, (res) => {
