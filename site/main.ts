@@ -81,7 +81,18 @@ function pointAssets(): void {
   }
 }
 
+/**
+ * Lays every part out once, so that each remembers its height (see .lv-measure in app.css): the frames
+ * after a load, and again once the fonts that this layout asked for have arrived.
+ */
+function reserveHeights(): void {
+  const frames = () => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(ok)));
+  document.body.classList.add('lv-measure');
+  void frames().then(() => document.fonts.ready).then(frames).then(() => document.body.classList.remove('lv-measure'));
+}
+
 function afterLoad(): void {
+  reserveHeights();
   changes.clear();
   for (const cell of sheet.doc.graph.cells) showChange(cell.id);
   markEditable(sheetEl, describeInput);

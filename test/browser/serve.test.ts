@@ -74,6 +74,23 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
     } finally { await live.close(); }
   });
 
+  it('the page keeps its height while scrolling: every part has its space reserved (barrel-vault template)', async () => {
+    const live = await openLive(browser, join(FIXTURES, '..', '..', '..', 'templates', 'barrel-vault.md'));
+    try {
+      const { page } = live;
+      await page.evaluate(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(() => requestAnimationFrame(ok)))));
+      const heights: number[] = [await page.evaluate(() => document.documentElement.scrollHeight)];
+      for (let y = 0; y < heights[0]!; y += 900) {
+        await page.evaluate((top) => window.scrollTo(0, top), y);
+        await page.evaluate(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(ok))));
+        heights.push(await page.evaluate(() => document.documentElement.scrollHeight));
+      }
+      console.log(`page height while scrolling: ${Math.min(...heights)}–${Math.max(...heights)} px (${heights.join(" ")})`);
+      expect(Math.max(...heights) - Math.min(...heights)).toBeLessThanOrEqual(0.01 * heights[0]!);
+      expect(live.errors).toEqual([]);
+    } finally { await live.close(); }
+  });
+
   it('figures and kernel results follow an edit (fictional arch with its line of thrust)', async () => {
     const live = await openLive(browser, join(FIXTURES, 'arch.md'));
     try {
