@@ -81,7 +81,7 @@ function listInputs(page: Page): Promise<InputInfo[]> {
 }
 
 /** One edit through the input's field, timed in the page. */
-async function timeEdit(page: Page, input: InputInfo, step: number): Promise<Sample> {
+async function timeEdit(page: Page, input: InputInfo, step: number): Promise<Sample | null> {
   if (await page.locator(`input.lv-edit[data-edit="${input.name}"]`).count() === 0) {
     await page.keyboard.press('Escape');
     await page.click(`[data-input="${input.name}"]`);
@@ -91,8 +91,16 @@ async function timeEdit(page: Page, input: InputInfo, step: number): Promise<Sam
     // A bare number: the page keeps the document's unit. Alternate up and down by a few per cent.
     const text = String(Number((number * (1 + (step % 2 ? -1 : 1) * 0.01 * (1 + (step % 7)))).toPrecision(6)));
     type Detail = { at: number; patched: string[]; computeStart: number; renderStart: number };
-    const on = (event: string) => new Promise<Detail>((ok) => document.addEventListener(event, (e) => ok((e as CustomEvent).detail), { once: true }));
+    // An edit that changes nothing (the value in use typed again) patches nothing: give up on it after 10 s.
+    const on = (event: string) => Promise.race([
+      new Promise<Detail>((ok) => document.addEventListener(event, (e) => ok((e as CustomEvent).detail), { once: true })),
+      new Promise<never>((_, no) => setTimeout(() => no(new Error(`no ${event}`)), 10_000)),
+    ]);
     const patched = on('vaultbook:patched'), settled = on('vaultbook:settled');
+    patched.catch(() => undefined);
+    settled.catch(() => undefined);
+    // Never the value in use: that would be no change.
+    if (text === window.vaultbook.sheet.sourceOf(name).replace(/\s.*$/, '')) return null;
     const total = () => [...window.vaultbook.sheet.session.evaluations.values()].reduce((a, b) => a + b, 0);
     const before = total();
     field.value = text;
@@ -106,10 +114,12 @@ async function timeEdit(page: Page, input: InputInfo, step: number): Promise<Sam
     const t0 = performance.now();
     field.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
     const task = (await taskEnd) - t0;
-    const p = await patched;
+    let p: Detail;
+    try { p = await patched; } catch { observer.disconnect(); return null; }
     // The next frame has been laid out and painted once a task queued from its rAF callback runs.
     const painted = await new Promise<number>((ok) => requestAnimationFrame(() => setTimeout(() => ok(performance.now()), 0)));
-    const s = await settled;
+    let s: Detail;
+    try { s = await settled; } catch { observer.disconnect(); return null; }
     observer.disconnect();
     return {
       task: Math.max(task, ...long),
@@ -154,7 +164,7 @@ export async function run(): Promise<string[]> {
       const out: Sample[] = [];
       for (let i = 0; i < EDITS + WARMUP; i++) {
         const s = await timeEdit(page, pick(i), i);
-        if (i >= WARMUP) out.push(s);
+        if (i >= WARMUP && s) out.push(s);
         // A pause between edits, as between keystrokes (random, so edits fall anywhere in a frame).
         await page.waitForTimeout(30 + Math.random() * 20);
       }
@@ -164,8 +174,11 @@ export async function run(): Promise<string[]> {
     const perInput: string[] = [];
     for (const input of inputs) {
       const tasks: number[] = [];
-      for (let i = 0; i < 6; i++) tasks.push((await timeEdit(page, input, i)).task);
-      perInput.push(`${input.name} ${Math.max(...tasks.slice(1)).toFixed(0)} ms`);
+      for (let i = 0; i < 6; i++) {
+        const sample = await timeEdit(page, input, i);
+        if (i > 0 && sample) tasks.push(sample.task);
+      }
+      perInput.push(`${input.name} ${tasks.length ? `${Math.max(...tasks).toFixed(0)} ms` : '—'}`);
     }
     const worstSamples = await series(() => worst);
     const everySamples = await series((i) => inputs[i % inputs.length]!);
