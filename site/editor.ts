@@ -71,16 +71,13 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
     };
     /** Applies the field's text; false (with the message shown) when it is refused. */
     const commit = (): boolean => {
-      if (field.value.trim() === opened.trim()) return report(null), true;
-      const reading = readInputValue(name, field.value, host.documentValue(name));
-      if (!reading.ok) {
-        report(reading.message);
-        return false;
-      }
+      const reading = field.value.trim() === opened.trim() ? null : readInputValue(name, field.value, host.documentValue(name));
+      let error: string | null = null;
+      if (reading && !reading.ok) error = reading.message;
       // The value in use, typed again another way, is no change; the document's value clears the override.
-      if (sameValue(reading.value, valueOfText(host.current(name)))) return report(null), true;
-      const text = sameValue(reading.value, host.documentValue(name)) ? host.documentText(name) : reading.text;
-      const error = host.apply(name, text);
+      else if (reading && !sameValue(reading.value, valueOfText(host.current(name)))) {
+        error = host.apply(name, sameValue(reading.value, host.documentValue(name)) ? host.documentText(name) : reading.text);
+      }
       report(error);
       return error === null;
     };

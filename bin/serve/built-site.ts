@@ -20,6 +20,7 @@ import { siteConfig, REPO_ROOT } from './site-config.js';
 import type { FirstPaint } from './first-paint.js';
 
 const SOURCES = ['site', 'engine', 'cells'];
+const KEEP_OLD_MS = 10 * 60 * 1000;
 const TYPES: Record<string, string> = {
   '.html': 'text/html; charset=utf-8', '.js': 'text/javascript; charset=utf-8', '.css': 'text/css; charset=utf-8',
   '.woff2': 'font/woff2', '.woff': 'font/woff', '.ttf': 'font/ttf', '.svg': 'image/svg+xml', '.png': 'image/png',
@@ -67,9 +68,11 @@ export async function buildSite(): Promise<{ dir: string; built: boolean; ms: nu
   } catch {
     rmSync(tmp, { recursive: true, force: true }); // another server finished the same build first
   }
-  // Older builds are of no use once the sources moved on.
+  // Older builds are of no use once the sources moved on, except to a server still running from one:
+  // those of the last ten minutes stay (as the command bundle's do).
   for (const old of readdirSync(cache)) {
-    if (old.startsWith('site-') && join(cache, old) !== dir && !old.includes('.tmp-')) rmSync(join(cache, old), { recursive: true, force: true });
+    const path = join(cache, old);
+    if (old.startsWith('site-') && path !== dir && Date.now() - statSync(path).mtimeMs > KEEP_OLD_MS) rmSync(path, { recursive: true, force: true });
   }
   return { dir, built: true, ms: performance.now() - t0 };
 }
