@@ -7,6 +7,7 @@ import type { MathNode } from 'mathjs';
 import type { Cell, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic } from '../diagnostic.js';
 import type { TexScope } from './tex.js';
+import { usesUsUnits } from './figure-units.js';
 
 /** Identification of the source for the archive footer. */
 export interface ArchiveInfo {
@@ -43,6 +44,8 @@ export interface RenderContext {
   usersOf: Map<string, Cell[]>;
   /** Kernel function name → the first cell that calls it at its top level (where its description is printed). */
   firstCall: Map<string, string>;
+  /** The document writes its inputs in US customary units (ft, kip, psf …): figures show theirs so too. */
+  usUnits: boolean;
 }
 
 type AnyNode = MathNode & { object?: AnyNode; index?: { dimensions: AnyNode[]; dotNotation?: boolean }; name?: string; value?: unknown };
@@ -105,7 +108,7 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
       return { value, unit: path.length === 1 ? cell.displayUnit : null };
     },
   };
-  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall };
+  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall, usUnits: usesUsUnits(doc, states) };
 }
 
 /** The state of a cell, pending when unknown. */
