@@ -12,7 +12,7 @@ import vm from 'node:vm';
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const cache = join(root, 'node_modules', '.cache', 'vaultbook');
 const pointer = join(cache, 'current');
-const SOURCES = ['engine', 'cells', 'bin'];
+const SOURCES = ['engine', 'cells', 'bin', 'site'];
 const KEEP_OLD_MS = 10 * 60 * 1000;
 
 // mathjs's main entry builds a complete default instance when it is imported (~0.4 s), and

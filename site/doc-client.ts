@@ -41,5 +41,10 @@ export async function writeInputs(version: string, values: Record<string, string
 
 /** Calls back with the new version each time the server sees the file change on disk. */
 export function onDocumentChanged(callback: (version: string) => void): void {
-  import.meta.hot?.on('vaultbook:doc', (data: { version: string }) => callback(data.version));
+  // From the development server, its websocket; from the built page, the server's event stream.
+  if (import.meta.hot) {
+    import.meta.hot.on('vaultbook:doc', (data: { version: string }) => callback(data.version));
+    return;
+  }
+  new EventSource('/__events').addEventListener('doc', (e) => callback((JSON.parse((e as MessageEvent<string>).data) as { version: string }).version));
 }

@@ -5,7 +5,7 @@ import 'katex/dist/katex.min.css';
 import './runtime-turn.js';
 import { LiveSheet, type PatchEvent } from './preview.js';
 import { enableEditing, markEditable } from './editor.js';
-import { changeBadge, compareToDocument, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
+import { changeBadge, compareToDocument, flipTone, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
 import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
 import { SHEET_CSS } from './sheet.js';
 import { LiveCases } from './cases.js';
@@ -52,13 +52,12 @@ function showChange(id: string): void {
     if (badge.innerHTML !== html) badge.innerHTML = html;
   }
   // A check limited to other cases than the one shown is not judged here: its flip is no news.
-  const flip = change?.kind === 'check' && change.flipped && cases.judgesHere(id) ? (change.after === false ? 'fail' : 'pass') : null;
-  el.classList.toggle('lv-flipped-fail', flip === 'fail');
-  el.classList.toggle('lv-flipped-pass', flip === 'pass');
+  const flip = change?.kind === 'check' && change.flipped && cases.judgesHere(id) ? flipTone(change.after) : null;
+  for (const tone of ['fail', 'warn', 'pass'] as const) el.classList.toggle(`lv-flipped-${tone}`, flip === tone);
 }
 
 function renderPanel(): void {
-  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped && cases.judgesHere(c.id) ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, after: c.after }] : []));
+  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped && cases.judgesHere(c.id) ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, before: c.before, after: c.after }] : []));
   const html = renderReviewPanel({
     file: loaded.file, inputs: inputChanges(sheet.doc, sheet.overrides), flips, changedResults: changes.size,
     dropped, message, writing,
@@ -84,10 +83,21 @@ function pointAssets(): void {
   }
 }
 
+/**
+ * Lays every part out once, so that each remembers its height (see .lv-measure in app.css): the frames
+ * after a load, and again once the fonts that this layout asked for have arrived.
+ */
+function reserveHeights(): void {
+  const frames = () => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(ok)));
+  document.body.classList.add('lv-measure');
+  void frames().then(() => document.fonts.ready).then(frames).then(() => document.body.classList.remove('lv-measure'));
+}
+
 function afterLoad(): void {
+  reserveHeights();
   changes.clear();
   for (const cell of sheet.doc.graph.cells) showChange(cell.id);
-  markEditable(sheetEl);
+  markEditable(sheetEl, describeInput);
   pointAssets();
   fileEl.textContent = loaded.file;
   const title = sheet.doc.meta.title;
@@ -104,7 +114,7 @@ sheet.onPatch((e: PatchEvent) => {
   for (const id of e.changed) showChange(id);
   for (const id of e.patched) {
     const el = sheet.cellElement(id);
-    if (el && sheet.cell(id)?.kind === 'given') markEditable(el);
+    if (el && sheet.cell(id)?.kind === 'given') markEditable(el, describeInput);
   }
   renderPanel();
 });
@@ -186,8 +196,23 @@ panelEl.addEventListener('click', (e) => {
 
 document.getElementById('lv-print')!.addEventListener('click', () => window.print());
 
+// Alt+R: to the trial values from anywhere (the write action is then one or two Tab presses away).
+document.addEventListener('keydown', (e) => {
+  if (!e.altKey || e.ctrlKey || e.metaKey || e.key.toLowerCase() !== 'r' || panelEl.hidden) return;
+  e.preventDefault();
+  (panelEl.querySelector<HTMLElement>('[data-action="write"]') ?? panelEl).focus();
+});
+
+/** What an input is, for its accessible name: "t, ring thickness". */
+function describeInput(name: string): string {
+  const description = sheet.cell(name)?.description;
+  return description ? `${name}, ${description}` : name;
+}
+
 enableEditing(sheetEl, {
   current: (name) => sheet.sourceOf(name),
+  documentText: (name) => sheet.documentSourceOf(name),
+  describe: describeInput,
   documentValue: (name) => {
     const s = sheet.baseline.get(name);
     return s?.status === 'ok' ? s.value : undefined;
@@ -212,9 +237,27 @@ declare global {
   }
 }
 
+/**
+ * First paint: the built page's server renders the sheet when it starts; it is shown at once, marked
+ * as waiting (not editable yet), until the live sheet, evaluated here, takes its place.
+ */
+function paintFirst(): void {
+  if (import.meta.hot) return; // the development server has no /__sheet
+  document.body.classList.add('lv-waiting');
+  showStatus('computing the sheet…');
+  void fetch('/__sheet', { cache: 'no-store' }).then((r) => (r.ok ? r.json() as Promise<{ html: string }> : null)).then((first) => {
+    if (first && document.body.classList.contains('lv-waiting')) {
+      sheetEl.innerHTML = first.html;
+      pointAssets();
+    }
+  }, () => undefined);
+}
+paintFirst();
+
 const ready = serially(async () => {
   try {
     await show(await fetchDocument(), 'start');
+    document.body.classList.remove('lv-waiting');
   } catch (e) {
     showStatus((e as Error).message);
     throw e;

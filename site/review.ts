@@ -161,8 +161,27 @@ export function inputChanges(doc: CompiledDocument, overrides: ReadonlyMap<strin
 const ESC: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
 export const esc = (s: unknown) => String(s).replace(/[&<>"']/g, (c) => ESC[c]!);
 
-function verdict(pass: boolean | null): string {
-  return pass === null ? 'no verdict' : pass ? 'holds' : 'FAILS';
+/** A check's state: exactly one of three, on the page as on the sheet and in the JSON. */
+export type CheckState = 'holds' | 'fails' | 'not evaluated';
+
+/** The state of a check from its `pass` (null: it could not be evaluated). */
+export function checkState(pass: boolean | null): CheckState {
+  return pass === null ? 'not evaluated' : pass ? 'holds' : 'fails';
+}
+
+/**
+ * How a change of state is shown: a failure is loud, a check that can no longer be evaluated is a
+ * warning (never a pass), and only a check that now holds is green.
+ */
+export function flipTone(after: boolean | null): 'fail' | 'warn' | 'pass' {
+  return after === false ? 'fail' : after === null ? 'warn' : 'pass';
+}
+
+const FLIP_MARK = { fail: '✗', warn: '⚠', pass: '✓' } as const;
+
+/** "holds → not evaluated": the change of state, exactly. */
+export function flipText(before: boolean | null, after: boolean | null): string {
+  return `${checkState(before)} → ${checkState(after)}`;
 }
 
 /** A utilization as every output prints it (two decimals, rounded up, agreeing with the verdict). */
@@ -182,9 +201,9 @@ export function changeBadge(change: ResultChange | null): string {
         + `Δ ${esc(change.delta)}${change.percent ? ` <small>(${esc(change.percent)})</small>` : ''}</span>`;
     case 'check':
       if (change.flipped) {
-        const fails = change.after === false;
-        return `<span class="lv-flip ${fails ? 'lv-flip-fail' : 'lv-flip-pass'}" role="alert">`
-          + `${fails ? '✗ NOW FAILS' : '✓ NOW HOLDS'} — the document's values give: ${verdict(change.before)}`
+        const tone = flipTone(change.after);
+        return `<span class="lv-flip lv-flip-${tone}" role="alert">`
+          + `${FLIP_MARK[tone]} ${flipText(change.before, change.after).toUpperCase()}`
           + `${change.utilBefore !== null || change.utilAfter !== null ? ` (utilization ${utilText(change.utilBefore, change.before)} → ${utilText(change.utilAfter, change.after)})` : ''}</span>`;
       }
       return `<span class="lv-delta">utilization ${utilText(change.utilBefore, change.before)} → ${utilText(change.utilAfter, change.after)}</span>`;
@@ -205,7 +224,7 @@ export function changeBadge(change: ResultChange | null): string {
 export interface PanelModel {
   file: string;
   inputs: InputChange[];
-  flips: Array<{ id: string; label: string; after: boolean | null }>;
+  flips: Array<{ id: string; label: string; before: boolean | null; after: boolean | null }>;
   changedResults: number;
   /** Inputs kept from before a reload that the new document no longer has. */
   dropped: string[];
@@ -223,15 +242,16 @@ export function renderReviewPanel(m: PanelModel): string {
     + `<td class="lv-from">${esc(i.from)}</td><td class="lv-arrow">→</td><td class="lv-to">${esc(i.to)}</td>`
     + `<td><button type="button" data-action="reset-one" data-name="${esc(i.name)}" title="back to ${esc(i.from)}">undo</button></td></tr>`).join('');
   const flips = m.flips.length
-    ? `<div class="lv-flips" role="alert"><strong>${m.flips.length} check${m.flips.length === 1 ? '' : 's'} changed verdict:</strong><ul>`
-      + m.flips.map((f) => `<li class="${f.after === false ? 'lv-fliprow-fail' : 'lv-fliprow-pass'}"><a href="#" data-goto="${esc(f.id)}">${esc(f.label)}</a> ${f.after === false ? 'now FAILS' : f.after ? 'now holds' : 'has no verdict'}</li>`).join('')
+    ? `<div class="lv-flips" role="alert"><strong>${m.flips.length} check${m.flips.length === 1 ? '' : 's'} changed state:</strong><ul>`
+      + m.flips.map((f) => `<li class="lv-fliprow-${flipTone(f.after)}"><a href="#" data-goto="${esc(f.id)}">${esc(f.label)}</a> `
+        + `${FLIP_MARK[flipTone(f.after)]} ${esc(flipText(f.before, f.after))}</li>`).join('')
       + '</ul></div>'
     : '';
   const dropped = m.dropped.length
     ? `<p class="lv-dropped">No longer in the document, so no longer applied: ${m.dropped.map(esc).join(', ')}</p>`
     : '';
   const msg = m.message
-    ? `<p class="lv-msg lv-msg-${m.message.kind}" role="status">${esc(m.message.text)}`
+    ? `<p class="lv-msg lv-msg-${m.message.kind}" role="${m.message.kind === 'error' ? 'alert' : 'status'}">${esc(m.message.text)}`
       + `${m.message.conflict ? ' <button type="button" data-action="reload">Load the version on disk</button>' : ''}</p>`
     : '';
   if (!m.inputs.length) return `${dropped}${msg}`;

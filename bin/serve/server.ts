@@ -18,10 +18,13 @@ import type { Plugin, ViteDevServer } from 'vite';
 import { siteConfig, REPO_ROOT } from './site-config.js';
 import { guardRequest, ASSET_TYPES, type GuardPolicy } from './guard.js';
 import { rewriteGivenValues, RewriteError } from './rewrite.js';
+import { wrongDimension } from './dimension.js';
 import { writeFileAtomic, removeStaleTemps } from './atomic.js';
 import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
 import { archiveInfo } from '../commands/render.js';
+import { buildSite, serveBuiltSite, type BuiltSite } from './built-site.js';
+import { firstPaint } from './first-paint.js';
 
 export interface ServeOptions {
   /** The calc document to serve (and the only file ever written). */
@@ -36,6 +39,8 @@ export interface ServeOptions {
   watch?: { debounceMs?: number; pollMs?: number };
   /** `--case NAME`: the case the page shows first (its inputs set as trial values). */
   case?: string;
+  /** 'built' (default): the page from a bundle built once and reused (built-site.ts); 'dev': Vite's development server. */
+  site?: 'built' | 'dev';
 }
 
 export interface ServeHandle {
@@ -111,6 +116,17 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     docDir,
   };
   let watcher: DocumentWatch | null = null;
+  // The page from a built bundle when it can be built; else from the development server, as before.
+  let site: BuiltSite | null = null;
+  if ((options.site ?? 'built') === 'built') {
+    try {
+      const first = firstPaint(file, shownName);
+      void first.get().catch(() => undefined); // rendered while the browser connects
+      site = serveBuiltSite((await buildSite()).dir, first);
+    } catch (e) {
+      console.warn(`vaultbook serve: could not build the page (${(e as Error).message}); serving it from the development server`);
+    }
+  }
 
   const readDoc = () => {
     const bytes = readFileSync(file);
@@ -139,6 +155,8 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     if (!roundTrips(current.bytes, current.text)) {
       return sendJson(res, 422, { ok: false, message: `${shownName} is not valid UTF-8 text; nothing was written` });
     }
+    const refusal = wrongDimension(current.text, body.values);
+    if (refusal) return sendJson(res, 422, { ok: false, message: refusal });
     let result;
     try {
       result = rewriteGivenValues(current.text, body.values);
@@ -164,6 +182,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
           res.writeHead(403, { 'Content-Type': 'text/plain' }).end('refused: unexpected Host header');
           return;
         }
+        if (site?.handle(req, res)) return;
         const verdict = guardRequest(url, policy);
         if (!verdict.ok) {
           res.writeHead(verdict.status, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${verdict.reason}`);
@@ -209,6 +228,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   const initial = readDoc();
   watcher = watchDocument(file, initial.version, (_bytes, version) => {
     vite.ws.send({ type: 'custom', event: 'vaultbook:doc', data: { version } });
+    site?.notify(version);
   }, options.watch);
   return {
     url: `http://127.0.0.1:${port}/`,
@@ -217,6 +237,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     vite,
     close: async () => {
       watcher?.close();
+      site?.close();
       await vite.close();
     },
   };

@@ -2,7 +2,7 @@
  * A plot panel: linear axes with round ticks, a light grid, a heavier zero
  * line, and curves drawn in distinct dash patterns (readable in greyscale).
  */
-import { el, pathData, text, INK, MUTED, type P } from './svg.js';
+import { el, pathData, text, INK, MUTED, SMALL_TEXT, type P } from './svg.js';
 import { niceStep } from './frame.js';
 
 export interface Box { left: number; top: number; width: number; height: number }
@@ -48,7 +48,7 @@ export function panel(box: Box, xr: [number, number], yr: [number, number], xLab
   frame += el('g', { stroke: '#d9dee3', 'stroke-width': 0.15 }, ty.values.map((v) => el('line', { x1: box.left, y1: y(v), x2: box.left + box.width, y2: y(v) })).join('')
     + tx.values.filter((v) => v >= x0 && v <= x1).map((v) => el('line', { x1: x(v), y1: box.top, x2: x(v), y2: box.top + box.height })).join(''));
   frame += el('line', { x1: box.left, y1: y(0), x2: box.left + box.width, y2: y(0), stroke: INK, 'stroke-width': 0.35 });
-  frame += el('g', { fill: MUTED, 'font-size': 2.2 }, ty.values.map((v) => text(box.left - 1.2, y(v) + 0.8, tickText(v, ty.step), { 'text-anchor': 'end' })).join('')
+  frame += el('g', { fill: MUTED, 'font-size': SMALL_TEXT }, ty.values.map((v) => text(box.left - 1.2, y(v) + 0.8, tickText(v, ty.step), { 'text-anchor': 'end' })).join('')
     + tx.values.filter((v) => v >= x0 && v <= x1).map((v) => text(x(v), box.top + box.height + 3, tickText(v, tx.step), { 'text-anchor': 'middle' })).join(''));
   frame += text(box.left + box.width / 2, box.top + box.height + 6.5, xLabel, { 'text-anchor': 'middle', fill: INK });
   const yl: P = { x: box.left - 11, y: box.top + box.height / 2 };

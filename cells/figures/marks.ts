@@ -5,10 +5,13 @@
 import { el, num, text, INK, MUTED, TEXT_SIZE, type P } from './svg.js';
 import { niceStep } from './frame.js';
 
-/** A length in metres as a dimension label: "6.40 m" below 10 m, "12.5 m" above. */
+/**
+ * A length in metres as a dimension label, to at least three significant figures so that a 0.215 m ring
+ * is not labelled 0.21 m: "0.215 m", "6.40 m", "12.5 m".
+ */
 export function metres(x: number): string {
   const a = Math.abs(x);
-  return `${a < 10 ? x.toFixed(2) : a < 100 ? x.toFixed(1) : x.toFixed(0)} m`;
+  return `${a < 1 && a > 0 ? String(+x.toPrecision(3)) : a < 10 ? x.toFixed(2) : a < 100 ? x.toFixed(1) : x.toFixed(0)} m`;
 }
 
 /** A force in kN with three significant figures, for arrow labels. */
@@ -20,7 +23,9 @@ export function kilonewtons(n: number, unit = 'kN'): string {
 
 /** A label with a white halo. */
 export function label(x: number, y: number, content: string, anchor: 'start' | 'middle' | 'end' = 'middle', extra: Record<string, string | number> = {}): string {
-  return text(x, y, content, { 'text-anchor': anchor, fill: INK, stroke: '#fff', 'stroke-width': 0.8, 'paint-order': 'stroke', ...extra });
+  // Marked for the placement pass (labels.ts), which moves it off lines and other texts; a rotated label slides along its line.
+  const place = 'transform' in extra ? 'along' : 'free';
+  return text(x, y, content, { 'text-anchor': anchor, fill: INK, stroke: '#fff', 'stroke-width': 0.8, 'paint-order': 'stroke', 'data-place': place, ...extra });
 }
 
 /**

@@ -5,6 +5,8 @@
  * millimetres; the sheet scales the drawing to its column.
  */
 
+import { placeLabels } from './labels.js';
+
 const XML: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
 
 /**
@@ -66,15 +68,23 @@ export function pathData(points: readonly P[], closed = false): string {
 export const INK = '#1c2630';
 export const MUTED = '#5b6773';
 export const FONT = 'Liberation Sans, DejaVu Sans, Arial, sans-serif';
-export const TEXT_SIZE = 2.6;
+/**
+ * Text size in paper mm: a figure is drawn 170 mm wide and printed in a column of about 168 mm,
+ * so 2.9 mm prints at 8.1 pt, the least we print (small print below 8 pt is hard to read on a site copy).
+ */
+export const TEXT_SIZE = 2.9;
+/** Tick labels, notes: the same least size, so nothing on paper is smaller. */
+export const SMALL_TEXT = 2.9;
 
 /**
  * The whole figure: an <svg> of the given paper size (mm) with a title for screen readers.
  * @example svgDocument(170, 90, 'Ring section', body)
  */
 export function svgDocument(width: number, height: number, title: string, body: string): string {
+  // Labels move off lines and other texts before the drawing is closed.
+  const drawn = placeLabels(body, width, height);
   return el('svg', {
     xmlns: 'http://www.w3.org/2000/svg', viewBox: `0 0 ${num(width)} ${num(height)}`, width: `${num(width)}mm`, height: `${num(height)}mm`,
     role: 'img', 'font-family': FONT, 'font-size': TEXT_SIZE, fill: 'none', stroke: 'none',
-  }, el('title', {}, esc(title)) + body);
+  }, el('title', {}, esc(title)) + drawn);
 }

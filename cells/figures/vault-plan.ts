@@ -6,10 +6,11 @@
  */
 import type { GroinVault } from '../vault/groin/groin-vault.js';
 import type { BarrelSection } from '../vault/groin/sections.js';
-import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
+import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, type P } from './svg.js';
 import { fitFrame } from './frame.js';
 import { arrow, dimension, kilonewtons, label, metres, scaleBar } from './marks.js';
 import { markFigure } from './registry.js';
+import { wrapLines } from './labels.js';
 
 const WIDTH = 170;
 const RED = '#a3162b';
@@ -118,8 +119,9 @@ export function vaultPlan(v: GroinVault): string {
     if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), -3, `crown ${metres(v.crown)}`);
   });
   body += scaleBar(scale, { x: 8, y: 92 }, 40);
-  body += text(8, 97, 'Clear spans between the supports; corners at the springing of the middle surface; thrust per corner.', { fill: MUTED, 'font-size': 2.2 });
-  return markFigure(svgDocument(WIDTH, 100, 'Cross vault in plan and in both elevations with its corner thrusts', body));
+  body += wrapLines('Clear spans between the supports; corners at the springing of the middle surface; thrust per corner.', WIDTH - 90 - 2, SMALL_TEXT)
+    .map((line, i) => text(90, 94 + i * 3.6, line, { fill: MUTED, 'font-size': SMALL_TEXT })).join('');
+  return markFigure(svgDocument(WIDTH, 102, 'Cross vault in plan and in both elevations with its corner thrusts', body));
 }
 
 /** Where a groin crosses a generator line: for web x the |y| of the groin at plan x, for web y the |x| at plan y. */

@@ -7,7 +7,7 @@ import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../types.js';
 import { formatUtilization, splitQuantity } from '../values/format.js';
-import { anchorId, escapeHtml } from './escape.js';
+import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { exprTex, readsNames } from './tex.js';
 import { symbolTex } from './names.js';
@@ -15,19 +15,23 @@ import { readableUnit, valueTex } from './quantity.js';
 import { makeRenderContext, stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { recordsHtml } from './kernel.js';
+import { workingHtml } from './working.js';
 import type { MathNode } from 'mathjs';
 import { caseVerdict, checkCasesNote, notJudgedHere, withoutLimitMarker } from './cases.js';
 
-/** How a check came out: holds, holds with less than 5 % to spare, fails, or could not be evaluated. */
+/**
+ * How a check came out, in the three states used everywhere (holds, fails, not evaluated);
+ * 'near' is a check that holds with less than 5 % to spare, marked as such.
+ */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
 
 /** Utilization above which a passing check is flagged as close to its limit. */
 export const NEAR_LIMIT = 0.95;
 
 const WORDS: Record<Verdict, { mark: string; word: string }> = {
-  pass: { mark: '✓', word: 'SATISFIED' },
-  near: { mark: '◆', word: 'SATISFIED – NEAR LIMIT' },
-  fail: { mark: '✗', word: 'NOT SATISFIED' },
+  pass: { mark: '✓', word: 'HOLDS' },
+  near: { mark: '◆', word: 'HOLDS – NEAR LIMIT' },
+  fail: { mark: '✗', word: 'FAILS' },
   none: { mark: '?', word: 'NOT EVALUATED' },
 };
 
@@ -74,7 +78,7 @@ function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
 
 const OP_TEX: Record<string, string> = { '<=': '\\le', '>=': '\\ge', '<': '<', '>': '>' };
 
-function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, records: MathNode[]): string {
+function workingRows(cell: Cell, r: CheckResult | null, ctx: RenderContext, records: MathNode[]): string[] {
   const rows: string[] = [];
   const formula = exprTex(cell.node, ctx.scope, false, records);
   rows.push(formula);
@@ -93,7 +97,7 @@ function workingTex(cell: Cell, r: CheckResult | null, ctx: RenderContext, recor
       }
     }
   }
-  return rows.length === 1 ? rows[0]! : `\\begin{aligned}${rows.map((r) => `&${r}`).join('\\\\')}\\end{aligned}`;
+  return rows;
 }
 
 /**
@@ -111,14 +115,15 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc, state.note) : '';
   const verdict = verdictOf(state);
   const records: MathNode[] = [];
-  return `<div class="vb-work"><div class="vb-math">${typeset(workingTex(cell, r, ctx, records), true)}</div>${recordsHtml(records, ctx)}${trouble}</div>`
+  const rows = workingRows(cell, r, ctx, records).map((tex) => ({ tex }));
+  return `<div class="vb-work"><div class="vb-math">${workingHtml(rows)}</div>${recordsHtml(records, ctx)}${trouble}</div>`
     + `<div class="vb-out">${verdictHtml(verdict, r?.utilization ?? null)}</div>`;
 }
 
 /** One ```check line as a step of the calculation. */
 export function renderCheck(cell: Cell, ctx: RenderContext): string {
   const name = cell.name ? `${typeset(symbolTex(cell.name))} ` : '';
-  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${escapeHtml(withoutLimitMarker(cell.description))}</p>` : '';
+  const head = cell.description || cell.name ? `<p class="vb-desc">${name}${descriptionHtml(withoutLimitMarker(cell.description))}</p>` : '';
   return `<div class="vb-step vb-step--check" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
     + `<div class="vb-body">${head}${checkCasesNote(cell, ctx)}<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCheckOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
 }
@@ -139,7 +144,7 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
     tally[verdict]++;
     const u = byCase ? byCase.utilization : state.status === 'ok' ? (state.value as CheckResult).utilization : null;
     const governs = byCase && !byCase.neutral ? `<br><span class="vb-note">${escapeHtml(byCase.note)}</span>` : '';
-    const what = (cell.description ? escapeHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
+    const what = (cell.description ? descriptionHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationOf(verdict, u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
       + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`
@@ -147,9 +152,9 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   }).join('');
   const bad = tally.fail + tally.none;
   const overall = bad === 0
-    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks satisfied${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
-    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">✗</span> ${[
-      tally.fail ? `${tally.fail} of ${checks.length} checks NOT satisfied` : '',
+    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks hold${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
+    : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">${tally.fail ? '✗' : '?'}</span> ${[
+      tally.fail ? `${tally.fail} of ${checks.length} checks FAIL` : '',
       tally.none ? `${tally.none} of ${checks.length} not evaluated` : '',
     ].filter(Boolean).join('; ')}.</p>`;
   return `<h2 class="vb-h">Checks</h2>${overall}<table class="vb-summary"><thead><tr><th class="vb-ref">#</th><th>check</th><th class="vb-num">utilization</th><th></th><th>verdict</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;

@@ -8,6 +8,7 @@ import type { Cell, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic } from '../diagnostic.js';
 import type { TexScope } from './tex.js';
 import type { CaseRun } from '../cases/index.js';
+import { usesUsUnits } from './figure-units.js';
 
 /** Identification of the source for the archive footer. */
 export interface ArchiveInfo {
@@ -46,6 +47,8 @@ export interface RenderContext {
   firstCall: Map<string, string>;
   /** Every check in every case (engine/cases), when the document was evaluated with its cases. */
   cases?: CaseRun;
+  /** The document writes its inputs in US customary units (ft, kip, psf …): figures show theirs so too. */
+  usUnits: boolean;
 }
 
 type AnyNode = MathNode & { object?: AnyNode; index?: { dimensions: AnyNode[]; dotNotation?: boolean }; name?: string; value?: unknown };
@@ -108,7 +111,7 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
       return { value, unit: path.length === 1 ? cell.displayUnit : null };
     },
   };
-  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall };
+  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall, usUnits: usesUsUnits(doc, states) };
 }
 
 /** The state of a cell, pending when unknown. */

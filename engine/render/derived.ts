@@ -4,7 +4,7 @@
  * unit in the output column.
  */
 import type { Cell, CellState } from '../types.js';
-import { anchorId, escapeHtml } from './escape.js';
+import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { exprTex, readsNames } from './tex.js';
 import { symbolTex } from './names.js';
@@ -12,6 +12,7 @@ import { valueHtml, valueTex } from './quantity.js';
 import { stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { kernelCallOf, recordsHtml, renderKernelCall } from './kernel.js';
+import { workingHtml, type WorkingRow } from './working.js';
 import type { MathNode } from 'mathjs';
 import { math } from '../../cells/math.js';
 
@@ -32,16 +33,15 @@ function isRecord(v: unknown): boolean {
  * Rows of the working: `name = formula`, then `= substituted` when it adds something.
  * Record literals become numbered `{…}` in the formula; `records` collects them for the list below.
  */
-function workingTex(cell: Cell, ctx: RenderContext, substitute: boolean, records: MathNode[]): string {
-  const lhs = cell.name ? symbolTex(cell.name) : '';
+function workingRows(cell: Cell, ctx: RenderContext, substitute: boolean, records: MathNode[]): WorkingRow[] {
   const formula = exprTex(cell.node, ctx.scope, false, records);
-  const rows = [`${lhs} &= ${formula}`];
+  const rows: WorkingRow[] = [cell.name ? { lhs: symbolTex(cell.name), tex: `= ${formula}` } : { tex: formula }];
   // A bare name or field (`H = a.H_min to kN`) says nothing new when substituted: the output column shows it.
   if (substitute && readsNames(cell.node, ctx.scope) && !isBareReference(cell.node)) {
     const filled = exprTex(cell.node, ctx.scope, true, records);
-    if (filled !== formula) rows.push(`&= ${filled}`);
+    if (filled !== formula) rows.push({ tex: `= ${filled}` });
   }
-  return rows.length === 1 ? `${lhs} = ${formula}` : `\\begin{aligned}${rows.join('\\\\')}\\end{aligned}`;
+  return rows;
 }
 
 function resultHtml(cell: Cell, value: unknown, ctx: RenderContext): string {
@@ -76,7 +76,7 @@ export function renderCalcOutput(cell: Cell, state: CellState, ctx: RenderContex
     return `<div class="vb-work vb-work--kernel">${work}${troubleHtml(state, ctx)}</div><div class="vb-out">${out}</div>`;
   }
   const records: MathNode[] = [];
-  const work = `<div class="vb-math">${typeset(workingTex(cell, ctx, ok, records), true)}</div>${recordsHtml(records, ctx)}`;
+  const work = `<div class="vb-math">${workingHtml(workingRows(cell, ctx, ok, records))}</div>${recordsHtml(records, ctx)}`;
   const out = ok ? resultHtml(cell, state.value, ctx) : '<div class="vb-result vb-none">—</div>';
   return `<div class="vb-work">${work}${troubleHtml(state, ctx)}</div><div class="vb-out">${out}</div>`;
 }
@@ -84,6 +84,6 @@ export function renderCalcOutput(cell: Cell, state: CellState, ctx: RenderContex
 /** One ```calc cell as a step of the calculation. */
 export function renderCalc(cell: Cell, ctx: RenderContext): string {
   return `<div class="vb-step" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
-    + `<div class="vb-body">${cell.description ? `<p class="vb-desc">${escapeHtml(cell.description)}</p>` : ''}`
+    + `<div class="vb-body">${cell.description ? `<p class="vb-desc">${descriptionHtml(cell.description)}</p>` : ''}`
     + `<div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderCalcOutput(cell, stateOf(ctx, cell.id), ctx)}</div></div></div>`;
 }

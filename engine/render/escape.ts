@@ -50,3 +50,11 @@ export function anchorId(cellId: string): string {
   // Letters of any script stay (γ and λ must not share an anchor); HTML ids may hold them.
   return `cell-${cellId.replace(/[^\p{L}\p{N}_-]/gu, '-')}`;
 }
+
+/**
+ * A cell's description as HTML: escaped, with text between backticks set as code, as in the prose.
+ * @example descriptionHtml('the `a_1` length') // 'the <code>a_1</code> length'
+ */
+export function descriptionHtml(text: string): string {
+  return escapeHtml(text).replace(/`([^`]+)`/g, '<code>$1</code>');
+}

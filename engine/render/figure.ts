@@ -4,11 +4,12 @@
  */
 import type { Cell, CellState } from '../types.js';
 import { isFigure } from '../../cells/figures/registry.js';
-import { anchorId, escapeHtml } from './escape.js';
+import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { typeset } from './katex.js';
 import { exprTex } from './tex.js';
+import { figureInUsUnits } from './figure-units.js';
 
 /**
  * The inner HTML of a figure's output region.
@@ -17,7 +18,8 @@ import { exprTex } from './tex.js';
 export function renderFigureOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
   switch (state.status) {
     case 'ok':
-      if (isFigure(state.value)) return `<div class="vb-svg">${state.value}</div>`;
+      // In the document's units: a calc in ft, kip and psf gets its figures' quantities in those.
+      if (isFigure(state.value)) return `<div class="vb-svg">${ctx.usUnits ? figureInUsUnits(state.value, ctx.sigfigs) : state.value}</div>`;
       return `<div class="vb-diag vb-diag--error" role="note"><span class="vb-diag-word">NOT A FIGURE</span> this value was not drawn by a figure function, so it is shown as text:</div>`
         + `<pre class="vb-text">${escapeHtml(String(state.value))}</pre>`;
     case 'error': return diagnosticHtml(state.diagnostic);
@@ -29,7 +31,7 @@ export function renderFigureOutput(cell: Cell, state: CellState, ctx: RenderCont
 /** One ```figure line: the drawing, captioned with its description and the call. */
 export function renderFigure(cell: Cell, ctx: RenderContext, number: number): string {
   const call = typeset(exprTex(cell.node, ctx.scope, false));
-  const caption = `<figcaption><span class="vb-fignum">Figure ${number}.</span> ${escapeHtml(cell.description)} <span class="vb-figcall">${call}</span></figcaption>`;
+  const caption = `<figcaption><span class="vb-fignum">Figure ${number}.</span> ${descriptionHtml(cell.description)} <span class="vb-figcall">${call}</span></figcaption>`;
   return `<figure class="vb-figure" id="${anchorId(cell.id)}"><div class="vb-ref"><a href="#${anchorId(cell.id)}">${cell.span.start.line}</a></div>`
     + `<div class="vb-figbody"><div class="vb-cellout" data-cell="${escapeHtml(cell.id)}">${renderFigureOutput(cell, stateOf(ctx, cell.id), ctx)}</div>${caption}</div></figure>`;
 }

@@ -3,7 +3,7 @@
  * allowed range, with a mark where a value was changed for this print.
  */
 import type { Cell, CellState } from '../types.js';
-import { anchorId, escapeHtml } from './escape.js';
+import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { symbolTex } from './names.js';
 import { valueHtml } from './quantity.js';
@@ -56,7 +56,7 @@ export function renderInputs(cells: Cell[], ctx: RenderContext): string {
     return `<tr class="vb-input${cell.overridden ? ' vb-input--set' : ''}" id="${anchorId(cell.id)}">`
       + `<td class="vb-ref">${cell.span.start.line}</td><td class="vb-sym">${symbol}</td>`
       + `<td class="vb-q" data-cell="${escapeHtml(cell.id)}">${renderInputOutput(cell, stateOf(ctx, cell.id), ctx)}</td>`
-      + `<td class="vb-desc">${escapeHtml(cell.description)}</td><td class="vb-range">${range}</td></tr>`;
+      + `<td class="vb-desc">${descriptionHtml(cell.description)}</td><td class="vb-range">${range}</td></tr>`;
   }).join('');
   return `<table class="vb-inputs"><thead><tr><th class="vb-ref" title="source line">line</th><th>symbol</th><th>value</th><th>description</th><th>allowed range</th></tr></thead><tbody>${rows}</tbody></table>`;
 }

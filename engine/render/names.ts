@@ -1,6 +1,7 @@
 /**
  * How a document's names are typeset: `N_phi` → N_φ, `gamma_M` → γ_M,
- * `sigma_max` → σ_max, `L2` → L_2, `span` → span in italic as one word.
+ * `sigma_max` → σ_max, `L2` → L_2, `H_min` → H_min (single letters italic, with
+ * subscripts); `span`, `VG`, `load_factor` → upright words, as written.
  */
 
 const GREEK = new Set([
@@ -52,7 +53,8 @@ function baseTex(base: string): { tex: string; digits: string | null } {
   const greek = greekTex(stem);
   if (greek) return { tex: greek, digits };
   if (stem.length <= 1) return { tex: stem, digits };
-  return { tex: `\\mathit{${stem}}`, digits };
+  // A name of several letters is a word, set upright (italic letters side by side read as a product).
+  return { tex: `\\mathrm{${stem}}`, digits };
 }
 
 /**
@@ -69,6 +71,8 @@ export function symbolTex(name: string): string {
   // A name starting with '_' or with empty parts ("a__b") is shown plainly, escaped.
   if (!first || rest.some((p) => p === '')) return `\\mathit{${name.replace(/_/g, '\\_')}}`;
   const { tex, digits } = baseTex(first);
+  // A word with parts (`load_factor`, `end_shear`) is one name: upright, as written, not a word with a subscript.
+  if (tex.startsWith('\\mathrm') && rest.length) return `\\mathrm{${name.replace(/_/g, '\\_')}}`;
   const parts = [...(digits ? [digits] : []), ...rest.map(subscriptPart)];
   return parts.length ? `{${tex}}_{${parts.join(',')}}` : tex;
 }

@@ -90,7 +90,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-cautions .vb-h { font-size: 8.5pt; color: var(--vb-muted); border-bottom-width: 0.5pt; border-bottom-color: var(--vb-rule); margin-top: 4mm; }
 .vb-cautions ol { margin: 0; padding-left: 5mm; }
 .vb-cautions strong { color: var(--vb-ink); }
-.vb-archive { margin-top: 8mm; padding-top: 1.5mm; border-top: 0.5pt solid var(--vb-rule); font-size: 7.5pt; color: var(--vb-muted); overflow-wrap: anywhere; break-inside: avoid; }
+.vb-archive { break-before: avoid; margin-top: 8mm; padding-top: 1.5mm; border-top: 0.5pt solid var(--vb-rule); font-size: 7.5pt; color: var(--vb-muted); overflow-wrap: anywhere; break-inside: avoid; }
 .vb-hash { font-size: 7pt; }
 .vb-dirty { color: var(--vb-fail); }
 
@@ -102,6 +102,11 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-prose h3 { font-size: 11pt; margin: 5mm 0 1.5mm; }
 .vb-prose h4, .vb-prose h5, .vb-prose h6 { font-size: 10pt; margin: 4mm 0 1mm; }
 .vb-prose p { margin: 1.5mm 0 2mm; }
+/* No page starts or ends with a lone line of a paragraph or list item, or a lone table row. */
+.vb-prose p, .vb-prose li, .vb-cautions li { orphans: 3; widows: 3; }
+.vb-prose li:last-child, .vb-cautions li:last-child { break-before: avoid; }
+.vb-summary tr:last-child, .vb-inputs tr:last-child, .vb-fields tr:last-child, .vb-prose tr:last-child { break-before: avoid; }
+.vb-summary tbody tr:first-child, .vb-inputs tbody tr:first-child, .vb-prose tbody tr:first-child { break-after: avoid; }
 .vb-prose table { border-collapse: collapse; font-family: var(--vb-sans); font-size: 9pt; }
 .vb-prose th, .vb-prose td { border: 0.5pt solid var(--vb-rule); padding: 0.6mm 2mm; }
 .vb-prose img { max-width: 100%; }
@@ -125,11 +130,19 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-step .vb-ref { padding-top: 0.8mm; }
 .vb-desc { margin: 0 0 0.5mm; font-size: 9pt; color: var(--vb-muted); }
 .vb-cellout { display: grid; grid-template-columns: minmax(0, 1fr) 50mm; column-gap: 3mm; align-items: center; }
-.vb-work { min-width: 0; overflow-x: auto; }
-.vb-math .katex-display { margin: 0.6mm 0; text-align: left; }
-.vb-math .katex-display > .katex { text-align: left; }
-.vb-out { border-left: 0.8pt solid var(--vb-rule); padding-left: 2.5mm; align-self: stretch; display: flex; flex-direction: column; justify-content: center; }
+.vb-work { min-width: 0; overflow-wrap: anywhere; }
+/* Working rows: inline maths in display style, so a long row breaks at its operators; the name in the
+   first column, every row's relation at the start of the second, continuation lines indented. */
+.vb-rows { display: grid; grid-template-columns: minmax(0, 1fr); row-gap: 0.8mm; margin: 0.6mm 0; align-items: first baseline; }
+.vb-rows--named { grid-template-columns: max-content minmax(0, 1fr); column-gap: 0.3em; }
+.vb-lhs { text-align: right; }
+.vb-rhs { min-width: 0; padding-left: 2.2em; text-indent: -2.2em; }
+.vb-rhs .katex { text-indent: 0; }
+.vb-rhs .katex .base { margin: 0.2em 0; }
+.vb-out { min-width: 0; border-left: 0.8pt solid var(--vb-rule); padding-left: 2.5mm; align-self: stretch; display: flex; flex-direction: column; justify-content: center; overflow-wrap: anywhere; }
 .vb-result { font-weight: bold; }
+.vb-fields { table-layout: fixed; }
+.vb-fields .vb-num { white-space: normal; overflow-wrap: anywhere; }
 .vb-result .katex { font-size: 1.08em; }
 .vb-call { margin: 0; font-size: 9pt; }
 .vb-call code { font-weight: bold; color: var(--vb-accent); }
@@ -158,7 +171,8 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-figure { display: grid; grid-template-columns: 9mm 1fr; margin: 3mm 0; break-inside: avoid; }
 .vb-figbody { min-width: 0; }
 .vb-figbody .vb-cellout { display: block; }
-.vb-svg svg { display: block; width: 100%; height: auto; max-height: 150mm; }
+/* A figure prints at its own size, or scaled only to the column's width: its text stays at least 8 pt. */
+.vb-svg svg { display: block; width: 100%; height: auto; max-width: 100%; }
 .vb-figure figcaption { font-size: 8.5pt; color: var(--vb-muted); margin-top: 1mm; }
 .vb-fignum { font-weight: bold; color: var(--vb-ink); }
 .vb-figcall { margin-left: 2mm; font-size: 0.9em; }

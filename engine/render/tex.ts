@@ -56,7 +56,22 @@ const NAMED_FUNCTIONS = new Set(['sin', 'cos', 'tan', 'cot', 'sec', 'csc', 'sinh
 const ARC_FUNCTIONS: Record<string, string> = { asin: '\\arcsin', acos: '\\arccos', atan: '\\arctan', log: '\\ln', log10: '\\log_{10}' };
 const CONSTANTS: Record<string, string> = { pi: '\\pi', e: 'e', Infinity: '\\infty', tau: '\\tau' };
 
-const wrap = (p: Piece): string => `\\left(${p.tex}\\right)`;
+/** Content that is taller than a line and needs brackets that grow with it. */
+const TALL = /\\frac|\\sqrt|\\begin|\\left|\\sum|\\int/;
+/** TeX longer than this may have to break across lines on the sheet. */
+const LONG = 80;
+/**
+ * Brackets around a piece. KaTeX cannot break a line inside `\left … \right`, so those grow with short tall
+ * content only; long tall content gets fixed tall brackets and anything else plain ones, and the sheet may
+ * then break a long sum inside them at its operators.
+ */
+const brackets = (tex: string, open = '(', close = ')'): string => {
+  if (!TALL.test(tex)) return `${open}${tex}${close}`;
+  return tex.length > LONG ? `\\biggl${open}${tex}\\biggr${close}` : `\\left${open}${tex}\\right${close}`;
+};
+const wrap = (p: Piece): string => brackets(p.tex);
+/** Between arguments and list items: a comma after which a long line may break. */
+const LIST_SEP = ',\\allowbreak\\,';
 const atom = (tex: string, extra: Partial<Piece> = {}): Piece => ({ tex, prec: Prec.Atom, ...extra });
 
 /** The unit text of a pure unit expression (`kN/m^3`), or null when it contains anything else. */
@@ -127,7 +142,7 @@ function fnName(n: AnyNode): string | null {
 function functionTex(n: AnyNode, w: Walk): Piece {
   const name = fnName(n);
   const args = (n.args ?? []).map((a) => walk(bare(a), w).tex);
-  const list = args.join(',\\,');
+  const list = args.join(LIST_SEP);
   switch (name) {
     case 'sqrt': return atom(`\\sqrt{${list}}`);
     case 'cbrt': return atom(`\\sqrt[3]{${list}}`);
@@ -138,10 +153,10 @@ function functionTex(n: AnyNode, w: Walk): Piece {
     case 'exp': if (args.length === 1 && !w.exponent) return atom(`e^{${walk(bare(n.args![0]!), { ...w, exponent: true }).tex}}`); break;
     case 'pow': if (args.length === 2) return atom(`{${powBase(walk(n.args![0]!, w))}}^{${walk(bare(n.args![1]!), { ...w, exponent: true }).tex}}`); break;
   }
-  if (name && NAMED_FUNCTIONS.has(name)) return atom(`\\${name}\\left(${list}\\right)`);
-  if (name && name in ARC_FUNCTIONS) return atom(`${ARC_FUNCTIONS[name]}\\left(${list}\\right)`);
+  if (name && NAMED_FUNCTIONS.has(name)) return atom(`\\${name}${brackets(list)}`);
+  if (name && name in ARC_FUNCTIONS) return atom(`${ARC_FUNCTIONS[name]}${brackets(list)}`);
   const head = name ? `\\operatorname{${texText(name)}}` : walk(n.fn as AnyNode, w).tex;
-  return atom(`${head}\\left(${list}\\right)`);
+  return atom(`${head}${brackets(list)}`);
 }
 
 function powBase(p: Piece): string {
@@ -262,7 +277,10 @@ function walk(n: AnyNode, w: Walk): Piece {
       const entries = Object.entries(n.properties ?? {}).map(([k, v]) => `\\text{${texText(k)}}{:}\\ ${walk(bare(v), w).tex}`);
       return atom(`\\left\\{${entries.join(',\\ ')}\\right\\}`);
     }
-    case 'ArrayNode': return atom(`\\left[${(n.items ?? []).map((i) => walk(bare(i), w).tex).join(',\\ ')}\\right]`);
+    case 'ArrayNode': {
+      const items = (n.items ?? []).map((i) => walk(bare(i), w).tex).join(`${LIST_SEP}\\ `);
+      return atom(brackets(items, '[', ']'));
+    }
     case 'ConditionalNode':
       return atom(`\\begin{cases}${walk(bare(n.trueExpr!), w).tex} & \\text{if } ${walk(bare(n.condition!), w).tex}\\\\ ${walk(bare(n.falseExpr!), w).tex} & \\text{otherwise}\\end{cases}`);
     case 'RangeNode': {

@@ -86,6 +86,33 @@ function short(text: string, max = 70): string {
   return text.length > max ? `${text.slice(0, max - 1)}…` : text;
 }
 
+/** Characters the running footer holds on its (at most two) lines beside "sheet n of N". */
+const FOOTER_ROOM = 190;
+
+/** A name without its remarks in brackets: "J. Marlowe (fictional)" → "J. Marlowe"; the title block keeps them. */
+function bare(text: string): string {
+  return text.replace(/\s*\([^)]*\)/g, '').replace(/\s+/g, ' ').trim();
+}
+
+/**
+ * The running footer: project, job and who prepared and checked the calc, in full when they fit on two lines.
+ * Otherwise it is shortened sensibly, never cutting a name: remarks in brackets go first, then the project
+ * (both are in the title block), then each name is kept to its first part before a comma.
+ * @example footerText(readTitle({job: 'J1', prepared: 'A. Author (fictional)'})) // "job J1 · prepared A. Author (fictional)"
+ */
+export function footerText(info: TitleInfo): string {
+  const join = (project: string, prepared: string, checked: string) => [project, info.job && `job ${info.job}`,
+    prepared && `prepared ${prepared}`, checked && `checked ${checked}`].filter(Boolean).join('  ·  ');
+  const firstPart = (name: string) => bare(name).split(/,|;| with /)[0]!.trim();
+  const tries = [
+    join(info.project, info.prepared, info.checked),
+    join(bare(info.project), bare(info.prepared), bare(info.checked)),
+    join('', bare(info.prepared), bare(info.checked)),
+    join('', firstPart(info.prepared), firstPart(info.checked)),
+  ];
+  return tries.find((t) => t.length <= FOOTER_ROOM) ?? tries[tries.length - 1]!;
+}
+
 /**
  * The @page rules: paper, margins and the running header and footer.
  * Every document string passes through cssString, so none can end the rule.
@@ -93,8 +120,7 @@ function short(text: string, max = 70): string {
  */
 export function pageStyle(info: TitleInfo, file: string): string {
   const ref = [info.calcRef && `calc ${info.calcRef}`, info.revision && `rev ${info.revision}`, info.date].filter(Boolean).join('  ·  ');
-  const who = [info.project, info.job && `job ${info.job}`, info.prepared && `prepared ${info.prepared}`, info.checked && `checked ${info.checked}`]
-    .filter(Boolean).join('  ·  ');
+  const who = footerText(info);
   const box = 'font-family: "Liberation Sans", "DejaVu Sans", Arial, sans-serif; font-size: 7.5pt; color: #3a4652;';
   // Two boxes per edge (no centre box), so each may take the width its text needs.
   const rule = (edge: 'top' | 'bottom') => (edge === 'top'
@@ -103,7 +129,7 @@ export function pageStyle(info: TitleInfo, file: string): string {
   return `@page { size: A4; margin: 20mm 15mm 18mm 18mm;`
     + ` @top-left { content: ${cssString(short(info.title || file, 80))}; ${box} ${rule('top')} }`
     + ` @top-right { content: ${cssString(short(ref || file, 50))}; ${box} ${rule('top')} font-weight: bold; white-space: nowrap; }`
-    + ` @bottom-left { content: ${cssString(short(who, 120))}; ${box} ${rule('bottom')} }`
+    + ` @bottom-left { content: ${cssString(who)}; ${box} ${rule('bottom')} }`
     + ` @bottom-right { content: "sheet " counter(page) " of " counter(pages); ${box} ${rule('bottom')} font-weight: bold; white-space: nowrap; }`
     + ` }`;
 }

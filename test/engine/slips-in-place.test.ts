@@ -91,7 +91,7 @@ describe('messages in the document\'s units', () => {
 
   it('a kernel quotes the value as the document wrote it, not in SI', async () => {
     expect(await messageOf('w = buttress({height: 6 m, width: 1.5 m, depth: 1 m, unit_weight: 20 kN/m^3, T: -10 kN, z_T: 6 m})'))
-      .toEqual(['buttress: T must be positive, got −10 kN']);
+      .toEqual(['buttress: T must be zero or more, got −10 kN']);
     expect(await messageOf('r = arch_ring({shape: "circular", radius: 3 m, half_angle: 0 deg, thickness: 0.3 m, unit_weight: 18 kN/m^3})'))
       .toEqual(['arch_ring: half_angle must be positive, got 0 deg']);
   });

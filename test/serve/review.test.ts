@@ -3,9 +3,10 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { compile, startSession } from '../../engine/index.js';
 import { math } from '../../cells/math.js';
-import { compareToDocument, changeBadge, inputChanges, renderReviewPanel } from '../../site/review.js';
-import { withDocumentUnit, isSameKind } from '../../site/editor.js';
-import { FIXTURES } from './helpers.js';
+import { compareToDocument, changeBadge, checkState, flipTone, inputChanges, renderReviewPanel } from '../../site/review.js';
+import { withDocumentUnit } from '../../site/editor.js';
+import { readInputValue, sameValue, valueOfText } from '../../site/input-value.js';
+import { FIXTURES, REPO } from './helpers.js';
 
 const TEXT = readFileSync(join(FIXTURES, 'barrel.md'), 'utf8');
 
@@ -37,7 +38,7 @@ describe('compareToDocument', () => {
     expect(changes.get('c_third')).toMatchObject({ kind: 'check', before: true, after: false, flipped: true });
     const tip = changes.get('c_tip')!;
     expect(tip).toMatchObject({ kind: 'check', flipped: false, before: true, after: true });
-    expect(changeBadge(changes.get('c_third')!)).toContain('NOW FAILS');
+    expect(changeBadge(changes.get('c_third')!)).toContain('✗ HOLDS → FAILS');
     expect(changeBadge(tip)).toMatch(/utilization 0\.52 → 0\.75/); // rounded up, as the sheet prints them
   });
 
@@ -50,6 +51,47 @@ describe('compareToDocument', () => {
   it('compareToDocument sees no change for the same value written another way', async () => {
     const { changes } = await reviewAfter({ L: '4800 mm' });
     expect([...changes.values()].filter((c) => c !== null)).toEqual([]);
+  });
+});
+
+describe('a check that can no longer be evaluated', () => {
+  // Reproduces issue 16: in the cross-vault template, b_bay = 4 m puts the thrust above the buttress
+  // top, so the four buttress checks cannot be evaluated; they were shown as green "now holds".
+  it('compareToDocument, changeBadge and renderReviewPanel report "holds → not evaluated" as a warning, never green', async () => {
+    const text = readFileSync(join(REPO, 'templates', 'cross-vault.md'), 'utf8');
+    const doc = compile(text, { file: 'cross-vault.md' });
+    const session = startSession(doc);
+    const baseline = new Map(await session.settle());
+    expect(session.setInput('b_bay', '4 m')).toBeNull();
+    const now = await session.settle();
+    session.dispose();
+    const flips = doc.graph.cells.flatMap((c) => {
+      const ch = compareToDocument(c, baseline.get(c.id), now.get(c.id), 4);
+      return ch?.kind === 'check' && ch.flipped ? [ch] : [];
+    });
+    const lost = flips.filter((f) => f.after === null);
+    expect(lost.map((f) => f.id).sort()).toEqual(['c_bearing', 'c_overturn', 'c_slide', 'c_third']);
+    for (const f of lost) {
+      expect(f.before).toBe(true);
+      const badge = changeBadge(f);
+      expect(badge).toContain('lv-flip-warn');
+      expect(badge).toContain('⚠ HOLDS → NOT EVALUATED');
+      expect(badge).not.toMatch(/lv-flip-pass|✓/);
+    }
+    const panel = renderReviewPanel({
+      file: 'cross-vault.md', inputs: inputChanges(doc, new Map([['b_bay', '4 m']])),
+      flips: flips.map((f) => ({ id: f.id, label: f.id, before: f.before, after: f.after })),
+      changedResults: flips.length, dropped: [], message: null, writing: false,
+    });
+    expect(panel).toContain('5 checks changed state');
+    expect(panel).toMatch(/<li class="lv-fliprow-warn"><a[^>]*>c_third<\/a> ⚠ holds → not evaluated<\/li>/);
+    expect(panel).toMatch(/<li class="lv-fliprow-fail"><a[^>]*>c_pocket<\/a> ✗ holds → fails<\/li>/);
+    expect(panel).not.toContain('lv-fliprow-pass');
+  });
+
+  it('flipTone and checkState use exactly three states', () => {
+    expect([true, false, null].map((p) => checkState(p))).toEqual(['holds', 'fails', 'not evaluated']);
+    expect([true, false, null].map((p) => flipTone(p))).toEqual(['pass', 'fail', 'warn']);
   });
 });
 
@@ -101,9 +143,9 @@ describe('review panel', () => {
       { name: 'L', from: '4.8 m', to: '6 m', line: 21 },
       { name: 't', from: '0.23 m', to: '0.3 m', line: 23 },
     ]);
-    const html = renderReviewPanel({ file: 'barrel.md', inputs, flips: [{ id: 'c_third', label: 'middle third', after: false }], changedResults: 9, dropped: ['old'], message: null, writing: false });
+    const html = renderReviewPanel({ file: 'barrel.md', inputs, flips: [{ id: 'c_third', label: 'middle third', before: true, after: false }], changedResults: 9, dropped: ['old'], message: null, writing: false });
     expect(html).toContain('<td class="lv-from">4.8 m</td>');
-    expect(html).toContain('middle third</a> now FAILS');
+    expect(html).toContain('middle third</a> ✗ holds → fails');
     expect(html).toContain('no longer applied: old');
     expect(html).toContain('data-action="write"');
     expect(renderReviewPanel({ file: 'x', inputs: [], flips: [], changedResults: 0, dropped: [], message: null, writing: false })).toBe('');
@@ -121,11 +163,22 @@ describe('withDocumentUnit', () => {
     expect(withDocumentUnit('7', 12)).toBe('7');
   });
 
-  it('isSameKind accepts values of the document\'s dimension only', () => {
-    expect(isSameKind('7 ft', math.unit(6.4, 'm'))).toBe(true);
-    expect(isSameKind('7 kN', math.unit(6.4, 'm'))).toBe(false);
-    expect(isSameKind('7 k', math.unit(6.4, 'm'))).toBe(false);
-    expect(isSameKind('7 +', math.unit(6.4, 'm'))).toBe(false);
-    expect(isSameKind('3', 2)).toBe(true);
+  it('readInputValue refuses a value of another dimension with the input\'s name and both dimensions', () => {
+    const t = math.unit(0.215, 'm');
+    expect(readInputValue('t', '3 kN', t)).toEqual({ ok: false, text: '3 kN', message: 't is length (m); "3 kN" is force (kN). Not applied.' });
+    expect(readInputValue('t', '0.25 ft', t)).toMatchObject({ ok: true, text: '0.25 ft' });
+    expect(readInputValue('t', '0.25', t)).toMatchObject({ ok: true, text: '0.25 m' });
+    expect(readInputValue('t', '7 k', t).ok).toBe(false);
+    expect(readInputValue('t', '7 +', t)).toMatchObject({ ok: false, message: expect.stringMatching(/^cannot read "7 \+"/) });
+    expect(readInputValue('t', '  ', t)).toMatchObject({ ok: false, message: expect.stringMatching(/t needs a value/) });
+    expect(readInputValue('n', '3', 2)).toMatchObject({ ok: true, value: 3 });
+    expect(readInputValue('n', '3 m', 2).ok).toBe(false);
+  });
+
+  it('sameValue sees 5.40 m, 5.4 m and 5400 mm as one value, and 5.41 m as another', () => {
+    expect(sameValue(valueOfText('5.40 m'), math.unit('5.4 m'))).toBe(true);
+    expect(sameValue(valueOfText('5400 mm'), math.unit('5.4 m'))).toBe(true);
+    expect(sameValue(valueOfText('5.41 m'), math.unit('5.4 m'))).toBe(false);
+    expect(sameValue(valueOfText('5.4 kN'), math.unit('5.4 m'))).toBe(false);
   });
 });

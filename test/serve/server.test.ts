@@ -181,5 +181,15 @@ describe('startServer', () => {
     expect(bad.status).toBe(400);
     expect(JSON.parse(bad.body).message).toMatch(/"H" is a calc value/);
     expect(readFileSync(file, 'utf8')).toBe(after);
+    // A value without the input's dimension, or a bare number, is refused too (the page refuses them first).
+    for (const [values, why] of [[{ t: '3 kN' }, /t is length \(m\); "3 kN" is force \(kN\)\. Nothing was written/], [{ t: '0.215' }, /"0.215" has no unit; write it as "0.215 m"/]] as const) {
+      const r2 = await rawRequest(server.port, '/__write', {
+        method: 'POST', headers: { 'Content-Type': 'application/json' },
+        body: JSON.stringify({ version: versionOf(after), values }),
+      });
+      expect(r2.status).toBe(422);
+      expect(JSON.parse(r2.body).message).toMatch(why);
+      expect(readFileSync(file, 'utf8')).toBe(after);
+    }
   });
 });

@@ -46,9 +46,9 @@ describe('live page with cases', () => {
       expect(await page.locator('#lv-case option').allTextContents()).toEqual(['as written', 'STR — strength', 'axle[1] — the load rolled across', 'axle[2] — the load rolled across', 'axle[3] — the load rolled across', 'axle[4] — the load rolled across', 'axle[5] — the load rolled across']);
       // The envelope: STR gives 1.35 · 15 kN m = 20.25 kN m > 20 kN m.
       await page.waitForFunction(() => document.querySelector('[data-part="check-summary"]')?.textContent?.includes('governing: STR'));
-      expect(await summary(page)).toContain('NOT SATISFIED');
+      expect(await summary(page)).toContain('FAILS');
       await page.selectOption('#lv-case', 'STR');
-      await page.waitForFunction(() => document.querySelector('[data-cell="c_M"]')?.textContent?.includes('NOT SATISFIED'));
+      await page.waitForFunction(() => document.querySelector('[data-cell="c_M"]')?.textContent?.includes('FAILS'));
       expect(await page.locator('#lv-review').textContent()).toContain('gamma_G');
       expect(errors).toEqual([]);
     } finally { await close(); }
@@ -60,9 +60,9 @@ describe('live page with cases', () => {
       await page.waitForFunction(() => document.querySelector('[data-part="check-summary"]')?.textContent?.includes('governing: STR'));
       await editInput(page, 'P', '8 kN');
       // STR: 1.35 · 8 · 3 · 3 / 6 = 16.2 kN m ≤ 20 kN m.
-      await page.waitForFunction(() => !document.querySelector('[data-part="check-summary"]')?.textContent?.includes('NOT SATISFIED'));
+      await page.waitForFunction(() => !document.querySelector('[data-part="check-summary"]')?.textContent?.includes('FAILS'));
       expect(await summary(page)).toContain('governing: STR');
-      expect(await cellText(page, 'c_M')).toContain('SATISFIED');
+      expect(await cellText(page, 'c_M')).toContain('HOLDS');
     } finally { await close(); }
   });
 
@@ -72,7 +72,7 @@ describe('live page with cases', () => {
     const { page, close } = await open('d.md', undefined, text);
     try {
       await page.selectOption('#lv-case', 'STR');
-      await page.waitForFunction(() => document.querySelector('[data-cell="c_M"]')?.textContent?.includes('NOT SATISFIED'));
+      await page.waitForFunction(() => document.querySelector('[data-cell="c_M"]')?.textContent?.includes('FAILS'));
       const panel = (await page.locator('#lv-review').textContent()) ?? '';
       expect(panel).toContain('bending');
       expect(panel).not.toContain('left reaction');

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { readTitle, pageStyle, renderTitleBlock, metaText } from '../../../engine/render/titleblock.js';
+import { readTitle, pageStyle, renderTitleBlock, metaText, footerText } from '../../../engine/render/titleblock.js';
 
 describe('readTitle(meta)', () => {
   it('readTitle accepts the usual spellings of the title-block keys', () => {
@@ -30,6 +30,20 @@ describe('readTitle(meta)', () => {
     expect(css).toContain('@top-right { content: "calc VB-7  ·  rev B  ·  2026-01-02"');
     expect(css).toContain('content: "sheet " counter(page) " of " counter(pages)');
     expect(css).toContain('@bottom-left { content: "P  ·  job J1  ·  prepared A  ·  checked C"');
+  });
+
+  it('footerText keeps every name whole: in full when it fits, else without remarks in brackets and the project', () => {
+    const short = readTitle({ project: 'Hartwell Hill College (fictional)', job: 'HHC-118', prepared: 'J. Marlowe (fictional)', checked: 'K. Osei (fictional)' });
+    expect(footerText(short)).toBe('Hartwell Hill College (fictional)  ·  job HHC-118  ·  prepared J. Marlowe (fictional)  ·  checked K. Osei (fictional)');
+    const long = readTitle({
+      project: 'Hartwell Hill College, cloister north walk, bays 1 to 9 inclusive, with the undercroft below (fictional)', job: 'T-016',
+      prepared: 'J. Marlowe (fictional), with A. N. Other-Longname (fictional) and the Hartwell Hill works office',
+      checked: 'K. Osei-Brightwater (fictional), independent checker for the college estates department',
+    });
+    const text = footerText(long);
+    expect(text).toBe('job T-016  ·  prepared J. Marlowe, with A. N. Other-Longname and the Hartwell Hill works office  ·  checked K. Osei-Brightwater, independent checker for the college estates department');
+    expect(text).not.toContain('…');
+    expect(pageStyle(long, 'f.md')).toContain('checked K. Osei-Brightwater, independent checker for the college estates department');
   });
 
   it('pageStyle cannot be escaped by a front-matter value', () => {
