@@ -13,7 +13,7 @@ export const COMMANDS: Record<string, { run: Command; usage: string }> = {
   new: { run: (a, o) => import('./commands/new.js').then((m) => m.newCommand(a, o)), usage: 'new [TEMPLATE FILE]                          start a calc from a template (lists templates without one; never overwrites)' },
   diff: { run: (a, o) => import('./commands/diff.js').then((m) => m.diffCommand(a, o)), usage: 'diff OLD NEW | diff FILE --rev REV [--json]  what changed: inputs, results (%), checks flipped (exit 1 when a check newly fails)' },
   render: { run: (a, o) => import('./commands/render.js').then((m) => m.renderCommand(a, o)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...] [--case NAME] [--drivers]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium; --drivers adds the appendix "what drives each check"' },
-  explain: { run: (a, o) => import('./commands/explain.js').then((m) => m.explainCommand(a, o)), usage: 'explain FILE [CHECK ...] [--set NAME=EXPR ...] [--case NAME] [--json]  what drives each check: its inputs ranked by the swing at ±10 %, with elasticities' },
+  explain: { run: (a, o) => import('./commands/explain.js').then((m) => m.explainCommand(a, o)), usage: 'explain FILE [CHECK ...] [--set NAME=EXPR ...] [--case NAME] [--json] [--jobs N]  what drives each check: its inputs ranked by the swing at ±10 %, with elasticities' },
   serve: { run: async (a, o) => (await import('./commands/serve.js')).serveCommand(a, o), usage: 'serve FILE [--port N] [--case NAME]             the live sheet in a browser: edit inputs, review changes, write them back' },
 };
 

@@ -74,6 +74,8 @@ export interface Explanation {
   diagnostics: Diagnostic[];
   /** Cost of the moves: settles, cell evaluations, and the inputs each settle changed. */
   stats: { settles: number; evaluations: number; changes: string[][] };
+  /** With `part`: per target (checks, then values, in order), every input in document order with its ranking size; `own` when this part gives it. */
+  moved?: Array<Array<{ input: string; size: number; own: boolean }>>;
 }
 
 export interface ExplainOptions extends CompileOptions {
@@ -81,6 +83,8 @@ export interface ExplainOptions extends CompileOptions {
   targets?: string[];
   /** Explain one case as if its inputs were written in (`--case NAME`). */
   case?: string;
+  /** Move only every `of`-th input, starting at `index` (one thread's share; merge the parts with mergeExplanations). */
+  part?: { index: number; of: number };
 }
 
 const clean = (x: number | null): number | null => (x === null || !Number.isFinite(x) ? null : Number(x.toPrecision(12)));
@@ -205,21 +209,31 @@ export async function explainDocument(source: string, options: ExplainOptions = 
 
   const log: PerturbLog = { changes: [] };
   const before = totalEvaluations(session);
-  const order = doc.graph.cells.filter((c) => c.kind === 'given' && groups.some((g) => g.group.steps.has(c.id))).map((c) => c.id);
+  const every = doc.graph.cells.filter((c) => c.kind === 'given' && groups.some((g) => g.group.steps.has(c.id))).map((c) => c.id);
+  const part = options.part;
+  const order = part ? every.filter((_, k) => k % part.of === part.index) : every;
+  const mine = new Set(order);
   const moved = await perturbInputs(session, order, groups.map((g) => g.group), (t, input) => depends.get(t)!.includes(input), log,
     (gi, input, message) => refused[gi]!.set(input, `its moved value was refused (${message}): not varied`));
   const checks: CheckDrivers[] = [];
   const values: ValueDrivers[] = [];
   const byId = new Map<string, CheckDrivers | ValueDrivers>();
+  const sizes = new Map<string, Array<{ input: string; size: number; own: boolean }>>();
   groups.forEach(({ case: c, group }, gi) => {
     for (const t of group.targets) {
       const cell = doc.graph.byId.get(t.id)!;
       const unit = t.isCheck ? null : cell.displayUnit;
       const r = group.base.get(t.id)!;
-      const ranked = rank(depends.get(t.id)!.map((id) => {
+      const drivers = depends.get(t.id)!.map((id) => {
         const why = refused[gi]!.get(id);
         return driverOf(id, texts[gi]!.get(id)!, why !== undefined ? { reason: why } : group.steps.get(id)!, moved[gi]!.get(id)?.get(t.id), t.isCheck, r.pass, sigfigs, unit);
+      });
+      // A part reports the inputs it moved; the first part also those that cannot be moved.
+      sizes.set(t.id, drivers.map((d, k) => {
+        const input = depends.get(t.id)![k]!;
+        return { input, size: d.size, own: mine.has(input) || ((!every.includes(input) || refused[gi]!.has(input)) && part?.index === 0) };
       }));
+      const ranked = rank(drivers);
       const caseName = shown ?? c?.name ?? null;
       const name = cell.name ?? cell.id;
       const line = cell.span.start.line;
@@ -238,7 +252,36 @@ export async function explainDocument(source: string, options: ExplainOptions = 
   const stats = { settles: log.changes.length, evaluations: totalEvaluations(session) - before, changes: log.changes };
   session.dispose();
   const diagnostics = [...summary.diagnostics.map(({ cell: _cell, ...d }) => d as Diagnostic), ...extra];
-  return { file: doc.file, checks, values, diagnostics, stats };
+  const shares = part ? [...targets.filter((t) => t.isCheck), ...targets.filter((t) => !t.isCheck)].map((t) => sizes.get(t.id)!) : undefined;
+  return { file: doc.file, checks, values, diagnostics, stats, ...(shares ? { moved: shares } : {}) };
+}
+
+/**
+ * One explanation from the parts of several threads (each moved its share of the inputs): every input
+ * from the part that moved it, ranked again; costs summed.
+ * @example mergeExplanations(await Promise.all([0, 1].map((index) => explainDocument(text, {part: {index, of: 2}}))))
+ */
+export function mergeExplanations(parts: readonly Explanation[]): Explanation {
+  const [first] = parts;
+  if (!first || parts.some((p) => !p.moved)) throw new TypeError('mergeExplanations: expected the parts of explainDocument with options.part');
+  const entries = [...first.checks, ...first.values].map((target, k) => {
+    const chosen = new Map<string, { entry: InputDriver; size: number }>();
+    parts.forEach((p) => {
+      const own = [...p.checks, ...p.values][k]!;
+      for (const { input, size, own: mine } of p.moved![k]!) if (mine) chosen.set(input, { entry: own.inputs.find((i) => i.name === input)!, size });
+    });
+    // Document order first, so that ties keep it as on one thread.
+    const order = first.moved![k]!.map((x) => x.input).filter((input) => chosen.has(input));
+    return { ...target, inputs: rank(order.map((name) => chosen.get(name)!)) };
+  });
+  const n = first.checks.length;
+  return {
+    file: first.file, checks: entries.slice(0, n) as CheckDrivers[], values: entries.slice(n) as ValueDrivers[], diagnostics: first.diagnostics,
+    stats: {
+      settles: parts.reduce((s, p) => s + p.stats.settles, 0), evaluations: parts.reduce((s, p) => s + p.stats.evaluations, 0),
+      changes: parts.flatMap((p) => p.stats.changes),
+    },
+  };
 }
 
 export { inputsOf } from './depends.js';

@@ -8,6 +8,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { main } from '../../bin/cli.js';
 import { fence } from '../helpers/settle.js';
+import { explainOnThreads } from '../../bin/explain/threads.js';
+import { explainDocument } from '../../engine/drivers/index.js';
 
 let dir = '';
 const write = (name: string, text: string) => { const p = join(dir, name); writeFileSync(p, text); return p; };
@@ -73,5 +75,15 @@ describe('vaultbook explain', () => {
     expect((await run('explain', join(dir, 'missing.md'))).code).toBe(2);
     expect((await run('explain', write('arch5.md', ARCH), '--set', 'gsf=3'))).toMatchObject({ code: 2 });
     expect((await run('explain'))).toMatchObject({ code: 2, err: expect.stringContaining('explain needs a FILE') });
+  });
+
+  it('explainOnThreads on a worker thread and the main one gives exactly what one thread gives', async () => {
+    const text = ARCH.replace('w_q = 5 kN/m  # read by nothing', 'w_q = 5 kN/m  # read by c_w').replace('c_gsf = gsf >= 2  # geometric factor of safety', 'c_gsf = gsf >= 2  # geometric factor of safety\nc_w = w_q * L <= 25 kN');
+    const one = await explainDocument(text, { file: 'arch.md', targets: ['c_gsf', 'c_w', 'gsf'] });
+    const two = await explainOnThreads(text, { file: 'arch.md', targets: ['c_gsf', 'c_w', 'gsf'] }, 2);
+    expect(two.threads).toBe(2);
+    expect(two.checks).toEqual(one.checks);
+    expect(two.values).toEqual(one.values);
+    expect(two.checks[0]!.inputs.length).toBe(4);
   });
 });
