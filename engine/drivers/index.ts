@@ -140,21 +140,27 @@ function driverOf(name: string, text: string, steps: InputSteps | { reason: stri
  */
 export async function explainDocument(source: string, options: ExplainOptions = {}): Promise<Explanation> {
   let doc = compile(source, options);
-  let session = startSession(doc);
   const extra: Diagnostic[] = [];
   let shown: string | null = null;
-  if (options.case !== undefined) {
-    const found = await findCase(doc, session, options.case);
-    if ('case' in found) {
-      session.dispose();
-      doc = compile(source, { ...options, overrides: { ...found.case.overrides, ...options.overrides } });
-      session = startSession(doc);
-      shown = found.case.name;
-      extra.push(...found.diagnostics);
-    } else extra.push(found.error);
+  // The whole document is evaluated once for its diagnostics (and to find a case); a thread that
+  // moves a later share of the inputs leaves that to the first.
+  let found: Diagnostic[] = [];
+  if (!options.part || options.part.index === 0 || options.case !== undefined) {
+    let whole = startSession(doc);
+    if (options.case !== undefined) {
+      const c = await findCase(doc, whole, options.case);
+      if ('case' in c) {
+        whole.dispose();
+        doc = compile(source, { ...options, overrides: { ...c.case.overrides, ...options.overrides } });
+        whole = startSession(doc);
+        shown = c.case.name;
+        extra.push(...c.diagnostics);
+      } else extra.push(c.error);
+    }
+    const asWritten = new Map(await whole.settle());
+    found = summarise(doc, asWritten, new Map(whole.warnings)).diagnostics.map(({ cell: _cell, ...d }) => d as Diagnostic);
+    whole.dispose();
   }
-  const asWritten = new Map(await session.settle());
-  const summary = summarise(doc, asWritten, new Map(session.warnings));
   const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : 4;
 
   // What to explain: the targets asked for, else every check.
@@ -168,10 +174,9 @@ export async function explainDocument(source: string, options: ExplainOptions = 
   }
 
   // Only what the targets need is evaluated from here on (and what the cases' expressions read).
-  session.dispose();
   const full = doc;
   doc = prunedDocument(full, targets.map((t) => t.id));
-  session = startSession(doc);
+  const session = startSession(doc);
   const written = new Map(await session.settle());
 
   // With cases, each check is explained in its governing case.
@@ -251,7 +256,7 @@ export async function explainDocument(source: string, options: ExplainOptions = 
   }
   const stats = { settles: log.changes.length, evaluations: totalEvaluations(session) - before, changes: log.changes };
   session.dispose();
-  const diagnostics = [...summary.diagnostics.map(({ cell: _cell, ...d }) => d as Diagnostic), ...extra];
+  const diagnostics = [...found, ...extra];
   const shares = part ? [...targets.filter((t) => t.isCheck), ...targets.filter((t) => !t.isCheck)].map((t) => sizes.get(t.id)!) : undefined;
   return { file: doc.file, checks, values, diagnostics, stats, ...(shares ? { moved: shares } : {}) };
 }
