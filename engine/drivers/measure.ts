@@ -9,7 +9,7 @@
  */
 import { SMALL_STEP } from './steps.js';
 
-/** Relative difference of the two one-sided changes above which the dependence is called kinked. */
+/** Difference of the one-sided elasticities (relative to the larger, and at least to 1) above which the dependence is called kinked. */
 export const KINK_TOLERANCE = 0.01;
 
 /** A measure (utilization, or a value in SI) at the value as written and at the four perturbed values. */
@@ -40,7 +40,9 @@ export function elasticityOf(s: Samples, absolute: boolean): Elasticity {
   if (u0 !== null && dn !== null && up !== null) {
     const plus = up - u0;
     const minus = u0 - dn;
-    const size = Math.max(Math.abs(plus), Math.abs(minus));
+    // Compared on the scale of an elasticity of 1, so that a small but smooth dependence (e ≈ 0.07,
+    // curving a little) is not called kinked: in elasticities, |e₊ − e₋| > tol · max(1, |e₊|, |e₋|).
+    const size = Math.max(Math.abs(plus), Math.abs(minus), Math.abs(u0) * SMALL_STEP);
     kinked = size > 1e-9 * Math.max(1, Math.abs(u0)) && Math.abs(plus - minus) > KINK_TOLERANCE * size;
   }
   if (absolute || !oneSign(u0, dn, up)) return { elasticity: null, elasticity_minus: null, elasticity_plus: null, kinked };

@@ -59,9 +59,13 @@ export function stepsFor(cell: Cell, value: unknown): InputSteps | { reason: str
   const x = value as number | Unit;
   const absolute = isZero(x);
   const scale = absolute ? scaleOf(cell, x) : null;
-  const at = (r: number): string | null => exactText(absolute
-    ? math.add(x as never, math.multiply(scale as never, r) as never)
-    : math.multiply(x as never, 1 + r));
+  const at = (r: number): string | null => {
+    try {
+      return exactText(absolute ? math.add(x as never, math.multiply(scale as never, r) as never) : math.multiply(x as never, 1 + r));
+    } catch {
+      return null; // a range in units that do not add to the value's
+    }
+  };
   const texts = [at(-SMALL_STEP), at(SMALL_STEP), at(-SWING_STEP), at(SWING_STEP)];
   if (texts.some((t) => t === null)) return { reason: `its value ${formatValue(x)} cannot be written back exactly: not varied` };
   const [sm, sp, wm, wp] = texts as string[];

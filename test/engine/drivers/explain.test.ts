@@ -83,6 +83,14 @@ describe('explainDocument', () => {
     expect(byName(apart.checks[0]!).a!.kinked).toBe(false);
   });
 
+  it('explainDocument does not mark a smooth dependence kinked, however it curves (50 + q^20 at q = 1)', async () => {
+    const text = [fence('given', 'q = 1'), fence('calc', 's = 50 + q^20'), fence('check', 'c_s = s <= 100')].join('\n');
+    const q = byName((await explainDocument(text, { file: 'curve.md' })).checks[0]!).q!;
+    expect(q.kinked).toBe(false);
+    // d ln s / d ln q = 20 q^20 / (50 + q^20) = 20/51 at q = 1
+    expectClose(q.elasticity!, 20 / 51, 1e-3); // a central difference of ±0.1 %: error of order h² times the curvature
+  });
+
   it('explainDocument gives a plain comparison its verdict at ±10 %, and moves an input at zero by a stated absolute step', async () => {
     const e = await explainDocument(ARCH, { file: 'arch.md', targets: ['c_L'] });
     const c = e.checks[0]!;
