@@ -20,7 +20,7 @@ function inputRow(i: InputDriver, isCheck: boolean): string[] {
   const at = isCheck
     ? (i.u_minus === null && i.u_plus === null ? [verdict(i.pass_minus), verdict(i.pass_plus)] : [num(i.u_minus), num(i.u_plus)])
     : [i.value_minus ?? '–', i.value_plus ?? '–'];
-  return [i.name, i.text, i.note ? '' : i.step, num(i.elasticity), ...at, i.note ?? kink];
+  return [i.name, i.text, i.step, num(i.elasticity), ...at, [kink, i.note].filter(Boolean).join('; ')];
 }
 
 /** The explanation as text for a terminal. */

@@ -44,7 +44,7 @@ export interface InputDriver {
   value_plus?: string | null;
   /** The swing's step: `±10 %`, or an absolute step for an input at zero (`±0.1 m`). */
   step: string;
-  /** Why the input was not varied (not a number). */
+  /** Why the input was not varied (not a number), or why the check was not computed on one side. */
   note?: string;
 }
 
@@ -127,6 +127,10 @@ function driverOf(name: string, text: string, steps: InputSteps | { reason: stri
     ...(isCheck ? { pass_minus: p.verdicts[0], pass_plus: p.verdicts[1] } : { value_minus: text_(p.values[0]), value_plus: text_(p.values[1]) }),
     step: steps.swingText,
   };
+  const [below, above] = p.failures;
+  if (below !== null || above !== null) {
+    entry.note = below === above ? `not computed either side: ${below}` : [below && `not computed below the value: ${below}`, above && `not computed above the value: ${above}`].filter(Boolean).join('; ');
+  }
   // Without a measure, the size is how many sides flip the verdict.
   const size = p.samples.at !== null ? swingOf(p.samples) : p.verdicts.filter((v) => v !== null && v !== pass).length;
   return { entry, size };

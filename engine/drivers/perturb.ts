@@ -26,12 +26,24 @@ export interface Reading {
   pass: boolean | null;
   /** The value itself (named values only, for its text). */
   value?: unknown;
+  /** Why it was not computed: the error of the cell that failed. */
+  failure?: string;
+}
+
+/** The message of the error that stops a cell (its own, or that of the cell blocking it). */
+function failureOf(states: Map<string, CellState>, id: string): string {
+  let s = states.get(id);
+  for (let hops = 0; s?.status === 'blocked' && hops < 1000; hops++) {
+    id = s.by;
+    s = states.get(id);
+  }
+  return s?.status === 'error' ? `${id}: ${s.diagnostic.message}` : 'not computed';
 }
 
 /** What a target shows in one state of the session. */
 export function readTarget(states: Map<string, CellState>, t: Target): Reading {
   const s = states.get(t.id);
-  if (s?.status !== 'ok') return { measure: null, pass: null };
+  if (s?.status !== 'ok') return { measure: null, pass: null, failure: failureOf(states, t.id) };
   if (t.isCheck) {
     const r = s.value as CheckResult;
     return { measure: r.utilization, pass: r.pass };
@@ -49,6 +61,8 @@ export interface Perturbation {
   verdicts: [boolean | null, boolean | null];
   /** Values at −10 % and +10 % (named values only). */
   values: [unknown, unknown];
+  /** Why the target was not computed below and above the value (null where it was). */
+  failures: [string | null, string | null];
 }
 
 /** Targets read in one case (`overrides` empty for the document as written). */
@@ -126,6 +140,7 @@ export async function perturbInputs(session: Session, inputs: readonly string[],
         perTarget.set(t.id, {
           samples: { at: g.base.get(t.id)?.measure ?? null, small: [dn!.measure, up!.measure], swing: [wdn!.measure, wup!.measure] },
           verdicts: [wdn!.pass, wup!.pass],
+          failures: [dn!.failure ?? wdn!.failure ?? null, up!.failure ?? wup!.failure ?? null],
           values: [wdn!.value, wup!.value],
         });
       });

@@ -42,7 +42,8 @@ function renderOne(c: CheckDrivers, shown: number): string {
     const mark = i.kinked ? ` <span title="one-sided elasticities ${num(i.elasticity_minus)} below, ${num(i.elasticity_plus)} above">(kinked: ${num(i.elasticity_minus)} / ${num(i.elasticity_plus)})</span>` : '';
     const step = i.step && i.step !== '±10 %' ? ` <span class="vb-none">moved ${escapeHtml(i.step)}</span>` : '';
     return `<tr><td><code>${escapeHtml(i.name)}</code></td><td class="vb-num">${escapeHtml(i.text)}${step}</td>`
-      + `<td class="vb-num">${i.note ? escapeHtml(i.note) : num(i.elasticity)}${mark}</td>${at}</tr>`;
+      + `<td class="vb-num">${i.step === '' ? escapeHtml(i.note ?? '') : num(i.elasticity)}${mark}</td>${at}</tr>`
+      + (i.step !== '' && i.note ? `<tr><td></td><td colspan="5" class="vb-none">${escapeHtml(i.note)}</td></tr>` : '');
   }).join('');
   const more = c.inputs.length > shown ? `<tr><td colspan="6" class="vb-none">and ${c.inputs.length - shown} more input${c.inputs.length - shown === 1 ? '' : 's'} of smaller swing</td></tr>` : '';
   const where = c.case === null ? '' : `, in its governing case ${escapeHtml(c.case)}`;
