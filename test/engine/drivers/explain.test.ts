@@ -91,6 +91,15 @@ describe('explainDocument', () => {
     expectClose(q.elasticity!, 20 / 51, 1e-3); // a central difference of ±0.1 %: error of order h² times the curvature
   });
 
+  it('explainDocument says why a check is not computed on one side of an input', async () => {
+    const text = [fence('given', 'x = 1'), fence('calc', 'r = 1 / (x - 0.9)'), fence('check', 'c_r = r <= 20')].join('\n');
+    const x = byName((await explainDocument(text, { file: 'edge.md' })).checks[0]!).x!;
+    // At x − 10 % = 0.9 the quotient divides by zero.
+    expect(x.u_minus).toBeNull();
+    expect(x.u_plus).not.toBeNull();
+    expect(x.note).toMatch(/^not computed below the value: r: /);
+  });
+
   it('explainDocument gives a plain comparison its verdict at ±10 %, and moves an input at zero by a stated absolute step', async () => {
     const e = await explainDocument(ARCH, { file: 'arch.md', targets: ['c_L'] });
     const c = e.checks[0]!;
