@@ -3,7 +3,7 @@
  * finite difference this test computes itself through `check --set`.
  */
 import { describe, it, expect, beforeAll } from 'vitest';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { main } from '../../bin/cli.js';
@@ -75,6 +75,16 @@ describe('vaultbook explain', () => {
     expect((await run('explain', join(dir, 'missing.md'))).code).toBe(2);
     expect((await run('explain', write('arch5.md', ARCH), '--set', 'gsf=3'))).toMatchObject({ code: 2 });
     expect((await run('explain'))).toMatchObject({ code: 2, err: expect.stringContaining('explain needs a FILE') });
+  });
+
+  it('render --drivers adds the appendix to the sheet; render without it does not', async () => {
+    const file = write('arch6.md', ARCH);
+    expect((await run('render', file, '--drivers', '-o', join(dir, 'with.html'))).code).toBe(0);
+    expect((await run('render', file, '-o', join(dir, 'without.html'))).code).toBe(0);
+    const html = readFileSync(join(dir, 'with.html'), 'utf8');
+    expect(html).toContain('What drives each check');
+    expect(html).toMatch(/<code>t<\/code>/);
+    expect(readFileSync(join(dir, 'without.html'), 'utf8')).not.toContain('What drives each check');
   });
 
   it('explainOnThreads on a worker thread and the main one gives exactly what one thread gives', async () => {
