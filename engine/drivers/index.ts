@@ -247,11 +247,7 @@ export async function explainDocument(source: string, options: ExplainOptions = 
       const name = cell.name ?? cell.id;
       const line = cell.span.start.line;
       if (t.isCheck) byId.set(t.id, { name, source: cell.source, line, utilization: clean(r.measure), pass: r.pass, case: caseName, inputs: ranked });
-      else {
-        const s = written.get(t.id);
-        const value = c ? undefined : s?.status === 'ok' ? s.value : undefined;
-        byId.set(t.id, { name, line, text: value === undefined ? (r.value === undefined ? 'not computed' : toJsonValue(r.value, { sigfigs }, unit).text) : toJsonValue(value, { sigfigs }, unit).text, case: caseName, inputs: ranked });
-      }
+      else byId.set(t.id, { name, line, text: r.value === undefined ? 'not computed' : toJsonValue(r.value, { sigfigs }, unit).text, case: caseName, inputs: ranked });
     }
   });
   for (const t of targets) {
