@@ -92,6 +92,7 @@ export async function buildBundle() {
     entryPoints: {
       cli: join(root, 'bin', 'cli.ts'),
       'archive-worker': join(root, 'bin', 'archive', 'worker.ts'),
+      'explain-worker': join(root, 'bin', 'explain', 'worker.ts'),
     },
     define: { __VAULTBOOK_BUNDLE__: JSON.stringify(outdir) },
     // CommonJS, so that loadBundle can hand V8 a code cache (Node 20 has none for ES modules).

@@ -8,7 +8,8 @@ export type RuleId =
   | 'graph/cycle' | 'graph/unknown-name' | 'graph/unknown-field' | 'graph/duplicate' | 'graph/shadow-unit' | 'graph/shadow-function'
   | 'units/mismatch' | 'kernel/domain' | 'kernel/argument' | 'value/non-finite' | 'value/range'
   | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read'
-  | 'cases/syntax' | 'cases/unknown-input' | 'cases/dimension' | 'cases/empty-family' | 'cases/duplicate' | 'cases/limit' | 'cases/unknown-case';
+  | 'cases/syntax' | 'cases/unknown-input' | 'cases/dimension' | 'cases/empty-family' | 'cases/duplicate' | 'cases/limit' | 'cases/unknown-case'
+  | 'explain/unknown-name';
 
 export interface Diagnostic {
   message: string;

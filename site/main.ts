@@ -9,6 +9,7 @@ import { changeBadge, compareToDocument, flipTone, inputChanges, renderReviewPan
 import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
 import { SHEET_CSS } from './sheet.js';
 import { LiveCases } from './cases.js';
+import { LiveDrivers } from './drivers.js';
 
 const sheetEl = document.getElementById('lv-sheet')!;
 const panelEl = document.getElementById('lv-review')!;
@@ -109,6 +110,8 @@ function afterLoad(): void {
 
 const cases = new LiveCases(sheet, document.getElementById('lv-case') as HTMLSelectElement, () => renderPanel());
 document.addEventListener('vaultbook:settled', () => cases.refresh());
+// Clicking a check shows what drives it and marks its dependency path.
+new LiveDrivers(sheet, () => loaded.text);
 
 sheet.onPatch((e: PatchEvent) => {
   for (const id of e.changed) showChange(id);

@@ -17,6 +17,7 @@ import { basename, dirname, join } from 'node:path';
 import { promisify } from 'node:util';
 import { evaluateDocument, type CompiledDocument, type CellState, type Diagnostic, type Summary } from '../../engine/index.js';
 import { renderSheet, type ArchiveInfo } from '../../engine/render/index.js';
+import { explainDocument } from '../../engine/drivers/index.js';
 import { parse, readOverrides, SET_OPTION, CASE_OPTION, UsageError } from '../args.js';
 import { ChromiumMissingError, printPdf } from '../pdf.js';
 
@@ -67,16 +68,18 @@ export function defaultHtmlPath(file: string): string {
 }
 
 /** The sheet for a document text: compile, evaluate, render (standalone). */
-export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>, caseName?: string): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic>; summary: Summary }> {
+export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>, caseName?: string, withDrivers = false): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic>; summary: Summary }> {
   const { doc, states, warnings, summary, cases } = await evaluateDocument(source, { file, overrides, ...(caseName !== undefined ? { case: caseName } : {}) });
   // The git look-up runs while the document evaluates; it is needed only for the footer.
   const archive = await archiveLookup;
-  const html = renderSheet({ doc, states, warnings, cases, options: { standalone: true, katexCss: loadKatexCss(), ...(archive ? { archive } : {}) } });
+  // The appendix "what drives each check" (--drivers) moves every input of every check: it costs more than the sheet.
+  const drivers = withDrivers ? (await explainDocument(source, { file, overrides, ...(caseName !== undefined ? { case: caseName } : {}) })).checks : undefined;
+  const html = renderSheet({ doc, states, warnings, cases, ...(drivers ? { drivers } : {}), options: { standalone: true, katexCss: loadKatexCss(), ...(archive ? { archive } : {}) } });
   return { html, doc, states, warnings, summary };
 }
 
 export async function renderCommand(args: string[], out: (s: string) => void): Promise<number> {
-  const { values, positionals } = parse(args, { ...SET_OPTION, ...CASE_OPTION, output: { type: 'string', short: 'o' }, pdf: { type: 'string' } });
+  const { values, positionals } = parse(args, { ...SET_OPTION, ...CASE_OPTION, output: { type: 'string', short: 'o' }, pdf: { type: 'string' }, drivers: { type: 'boolean' } });
   if (positionals.length !== 1) throw new UsageError('render takes exactly one FILE');
   const file = positionals[0]!;
   const overrides = readOverrides(values.set as string[] | undefined);
@@ -88,7 +91,7 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
     process.stderr.write(`vaultbook render: cannot read ${file}: ${reason}\n`);
     return 2;
   }
-  const { html, summary } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes), values.case as string | undefined);
+  const { html, summary } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes), values.case as string | undefined, Boolean(values.drivers));
   const htmlPath = values.output as string | undefined ?? (values.pdf ? null : defaultHtmlPath(file));
   // With the sheet on stdout, messages go to stderr so the HTML stays clean.
   const say = htmlPath === '-' ? (s: string) => { process.stderr.write(`${s}\n`); } : out;

@@ -23,6 +23,8 @@ import { renderCautions, renderArchive } from './notes.js';
 import { sha256Hex } from './sha256.js';
 import { SHEET_CSS } from './sheet-css.js';
 import { renderCasesBlock } from './cases.js';
+import { renderDriversAppendix } from './drivers.js';
+import type { CheckDrivers } from '../drivers/index.js';
 
 export interface SheetInput {
   doc: CompiledDocument;
@@ -31,6 +33,8 @@ export interface SheetInput {
   options?: SheetOptions;
   /** The cases' verdicts (Evaluation.cases): the summary shows the governing case, the cases block the envelope. */
   cases?: CaseRun;
+  /** What drives each check (engine/drivers, `render --drivers`): an appendix after the body. */
+  drivers?: readonly CheckDrivers[];
 }
 
 /**
@@ -98,7 +102,7 @@ export function renderArticle(input: SheetInput): string {
     + `<div data-part="status">${renderStatus(doc, states, ctx.warnings)}</div>\n`
     + `<section class="vb-part" data-part="check-summary">${renderCheckSummary(doc, states, ctx)}</section>\n`
     + `<section class="vb-part" data-part="diagnostics">${renderDiagnostics(doc, states, ctx.warnings)}</section>\n`
-    + `${renderCautions(ctx.sigfigs)}\n<main class="vb-main">\n${body}\n</main>\n${renderArchive(archive, doc.file)}\n</article>`;
+    + `${renderCautions(ctx.sigfigs)}\n<main class="vb-main">\n${body}\n</main>\n${input.drivers ? `${renderDriversAppendix(input.drivers)}\n` : ''}${renderArchive(archive, doc.file)}\n</article>`;
 }
 
 /** What a standalone sheet may load: nothing from anywhere, no scripts; inline styles, data: fonts and images only. */
