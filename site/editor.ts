@@ -8,7 +8,7 @@
  * opened with. A bare number keeps the document's unit: `7` for a span
  * written `6.4 m` means `7 m`.
  */
-import { parseExpression } from '../cells/math.js';
+import { evaluateUntrusted } from '../engine/sandbox/index.js';
 
 export interface EditorHost {
   /** The value text in use now. */
@@ -47,12 +47,10 @@ export function withDocumentUnit(text: string, documentValue: unknown): string {
  * "7 kN" does not flash errors through the sheet).
  */
 export function isSameKind(text: string, documentValue: unknown): boolean {
-  let value: unknown;
-  try {
-    value = parseExpression(text).compile().evaluate(new Map());
-  } catch {
-    return false;
-  }
+  // Through the same sandbox as every cell; a refused or failing text is not "the same kind".
+  const reading = evaluateUntrusted(text);
+  if (!reading.ok) return false;
+  const value = reading.value;
   if (isUnit(documentValue)) return isUnit(value) && documentValue.equalBase(value);
   if (typeof documentValue === 'number') return typeof value === 'number' && Number.isFinite(value);
   return typeof value === typeof documentValue;

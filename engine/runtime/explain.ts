@@ -3,6 +3,7 @@
  */
 import type { MathNode, Unit } from 'mathjs';
 import { math, SandboxError } from '../../cells/math.js';
+import { evaluateNode, LimitError } from '../sandbox/index.js';
 import { UnitMismatchError, describeDimension } from '../../cells/units.js';
 import { CellArgumentError } from '../../cells/define.js';
 import type { Cell } from '../types.js';
@@ -38,14 +39,14 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
   node.forEach((c) => kids.push(c as AnyNode));
   for (const k of kids) {
     try {
-      k.compile().evaluate(scope);
+      evaluateNode(k, scope);
     } catch {
       return findUnitClash(k, scope);
     }
   }
   if (node.type === 'OperatorNode' && typeof node.fn === 'string' && VERBS[node.fn] && node.args?.length === 2) {
-    const a = node.args[0]!.compile().evaluate(scope);
-    const b = node.fn === 'to' ? math.unit(node.args[1]!.toString()) : node.args[1]!.compile().evaluate(scope);
+    const a = evaluateNode(node.args[0]!, scope);
+    const b = node.fn === 'to' ? math.unit(node.args[1]!.toString()) : evaluateNode(node.args[1]!, scope);
     return `${VERBS[node.fn](unitLabel(a), unitLabel(b))} in "${node.toString()}"`;
   }
   return null;
@@ -53,6 +54,7 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
 
 function classify(err: unknown): { ruleId: RuleId; message: string; actual?: string; expected?: string } {
   const message = err instanceof Error ? err.message : String(err);
+  if (err instanceof LimitError) return { ruleId: 'sandbox/limit', message };
   if (err instanceof UnitMismatchError) return { ruleId: 'units/mismatch', message, actual: err.actual, expected: err.expected };
   if (err instanceof CellArgumentError) return { ruleId: 'kernel/argument', message };
   if (err instanceof SandboxError || /No access to (property|method)/.test(message)) {
