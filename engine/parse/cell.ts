@@ -2,7 +2,7 @@
  * parseCells: CalcBlock → Cell[], one per statement, with document positions.
  */
 import type { MathNode } from 'mathjs';
-import { parseUntrusted, checkExpression, LimitError } from '../sandbox/index.js';
+import { parseUntrusted, checkExpression, LimitError, LIMITS } from '../sandbox/index.js';
 import type { CalcBlock, Cell, Position, Span, ValueRange } from '../types.js';
 import type { Diagnostic, RuleId, StageContext } from '../diagnostic.js';
 import { compactUnit } from '../values/format.js';
@@ -84,6 +84,9 @@ function displayUnitOf(node: MathNode): string | null {
   return null;
 }
 
+/** Statements parsed so far in each document (keyed by its stage context). */
+const statementsSeen = new WeakMap<StageContext, number>();
+
 /**
  * Parses every statement of one calc block.
  * @param block the block from splitBlocks
@@ -94,6 +97,16 @@ export function parseCells(block: CalcBlock, index: number, ctx: StageContext): 
   const failed: FailedStatement[] = [];
   for (const stmt of splitStatements(block.body)) {
     const span = statementSpan(block, stmt);
+    // The document's statement budget: past it, statements are not even parsed.
+    const count = (statementsSeen.get(ctx) ?? 0) + 1;
+    statementsSeen.set(ctx, count);
+    if (count > LIMITS.cells) {
+      if (count === LIMITS.cells + 1) {
+        ctx.diagnostics.push(makeDiagnostic(ctx, span,
+          `a calc document may have at most ${LIMITS.cells.toLocaleString('en-US')} statements; this one and the ones after it are not evaluated`, 'sandbox/limit', null));
+      }
+      continue;
+    }
     const nameMatch = NAME_PREFIX.exec(stmt.code);
     const name = nameMatch ? nameMatch[1]! : null;
     const id = name ?? `${block.cellKind}@L${span.start.line}`;

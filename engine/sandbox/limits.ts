@@ -5,6 +5,8 @@
 export const LIMITS = {
   /** Characters in a whole document; a longer one is refused before it is parsed. */
   documentChars: 1_000_000,
+  /** Statements (cells) in a whole document; the ones past it are not evaluated. */
+  cells: 1_000,
   /** Bracket nesting inside one statement: mathjs's parser recurses once per level. */
   bracketDepth: 100,
   /** Depth of an expression's tree (a chain `a * b * c …` is one level per factor). */
