@@ -43,6 +43,8 @@ function refusalOf(node: AnyNode): string | null {
       }
       return null;
     case 'ObjectNode':
+      // `{__proto__: …}` does not make a field: mathjs's parser sets the prototype of its own table.
+      if (node.properties && Object.getPrototypeOf(node.properties) !== Object.prototype) return 'a record cannot have a field called "__proto__"';
       for (const key of Object.keys(node.properties ?? {})) {
         if (isHiddenProperty(key)) return `a record cannot have a field called "${key}"`;
       }
