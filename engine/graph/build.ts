@@ -79,6 +79,8 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
     }
   }
 
+  let known: string[] | undefined;
+  const suggestions = new Map<string, string | null>();
   for (const cell of kept) {
     if (cell.name && lib.functions.has(cell.name)) {
       fail(diag(ctx, cell.span, cell.id, 'graph/shadow-function', `"${cell.name}" is the name of a vault function; choose another name`));
@@ -121,8 +123,10 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
         continue;
       }
       if (use.role === 'value' && isUnitName(use.name)) continue; // a unit standing alone, e.g. `x / m`
-      const known = [...defined, ...lib.functions];
-      const guess = suggestName(use.name, known);
+      // One search per unknown name and document: a name misspelt on every line costs one.
+      known ??= [...defined, ...lib.functions];
+      if (!suggestions.has(use.name)) suggestions.set(use.name, suggestName(use.name, known));
+      const guess = suggestions.get(use.name)!;
       const what = use.role === 'call' ? 'function' : 'name';
       fail(diag(ctx, cell.span, cell.id, 'graph/unknown-name',
         `unknown ${what} "${use.name}"${guess ? `; did you mean "${guess}"?` : ''}`));

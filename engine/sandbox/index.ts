@@ -6,7 +6,8 @@
  * frozen. See README "Security model".
  */
 import type { MathNode } from 'mathjs';
-import { parseExpression, SandboxError } from '../../cells/math.js';
+import { math, parseExpression, SandboxError } from '../../cells/math.js';
+import { oddQuantity } from './size.js';
 import { LIMITS } from './limits.js';
 import { checkExpression, type GateOptions } from './gate.js';
 import { compileNode, type Scope } from './namespace.js';
@@ -69,6 +70,8 @@ export function evaluateNode(node: MathNode, scope: Map<string, unknown> = new M
   if (refusal) throw refusal.ruleId === 'sandbox/limit' ? new LimitError(refusal.message) : new SandboxError(refusal.message);
   const value = withinCellBudget(() => compileNode(node)(scope as Scope, {}, null));
   checkValueSize(value, 'this line');
+  const odd = oddQuantity(value);
+  if (odd) throw new TypeError(`this gives a quantity with a ${math.typeOf((odd as { value: unknown }).value).toLowerCase()} value (${String(odd)}); a calc works with real quantities`);
   return freezeValue(value);
 }
 

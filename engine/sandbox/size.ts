@@ -55,3 +55,25 @@ export function numberOf(v: unknown): number {
   }
   return NaN;
 }
+
+/**
+ * The first quantity in a value (itself, or inside a list or record) whose number is not a
+ * plain real one, e.g. `sqrt(-4 m^2)` gives a complex quantity; null when there is none.
+ */
+export function oddQuantity(value: unknown): unknown {
+  const stack: unknown[] = [value];
+  let seen = 0;
+  while (stack.length > 0 && seen++ < 1_000_000) {
+    const cur = stack.pop();
+    if (cur === null || typeof cur !== 'object') continue;
+    if (math.isUnit(cur)) {
+      const v = (cur as { value: unknown }).value;
+      if (v !== null && typeof v !== 'number') return cur;
+    } else if (Array.isArray(cur)) {
+      for (const x of cur) stack.push(x);
+    } else if (Object.getPrototypeOf(cur) === Object.prototype) {
+      for (const x of Object.values(cur)) stack.push(x);
+    }
+  }
+  return null;
+}
