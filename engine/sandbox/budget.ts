@@ -40,9 +40,10 @@ interface Round {
 const rounds = new WeakMap<object, Round>();
 
 /**
- * Charges a document's evaluation round for one cell's work.
+ * Runs one cell's work, charged to its document's evaluation round; throws a LimitError
+ * instead when the round had already used its budget before this cell started.
  * @param key one object per document session (its stage context)
- * @returns a LimitError when the round had already used its budget before this cell, else null
+ * @example chargeDocument(ctx, () => evaluateNode(cell.node, scope))
  */
 export function chargeDocument<T>(key: object, run: () => T): T {
   const round = rounds.get(key) ?? { spent: 0 };

@@ -93,6 +93,12 @@ describe('generated hostile documents: long chains never overflow the stack', ()
     });
   }
 
+  it('a quantity with a complex value (sqrt of a negative area) is a located error, and the summary is written', async () => {
+    const { summary } = await judged(fence('calc', 'A = -4 m^2', 'x = sqrt(A)', 'y = [1 m, sqrt(A)]'), 'complex.md');
+    expect(summary.diagnostics.map((d) => [d.cellId, d.line])).toEqual([['x', 3], ['y', 4]]);
+    expect(summary.values.x!.value).toBeNull();
+  });
+
   it(`a document over ${LIMITS.documentChars.toLocaleString('en-US')} characters is refused at 1:1 and nothing is evaluated`, async () => {
     const text = fence('calc', 'x = 1') + 'a'.repeat(LIMITS.documentChars);
     const { summary } = await judged(text, 'big.md');
