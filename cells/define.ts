@@ -136,6 +136,9 @@ export const KERNEL_ARGS = Symbol('vaultbook.kernelArgs');
 
 const KEYWORDS = new Set(['text', 'boolean', 'count', 'any']);
 
+/** The largest 'count' a document may pass (voussoirs, bays …): a kernel's work grows with it (README "Security model"). */
+export const MAX_COUNT = 100_000;
+
 /** Is this value an object returned by a cell function? */
 export function isKernelResult(value: unknown): value is Record<string | symbol, unknown> {
   return typeof value === 'object' && value !== null && KERNEL_SOURCE in value;
@@ -163,6 +166,7 @@ function toKernel(value: unknown, type: FieldType, what: string): unknown {
       case 'count': {
         const n = toSI(value, '1', what);
         if (!Number.isInteger(n) || n < 0) throw new CellArgumentError(`${what} must be a whole number ≥ 0, got ${n}`);
+        if (n > MAX_COUNT) throw new CellArgumentError(`${what} must be at most ${MAX_COUNT.toLocaleString('en-US')}, got ${n}`);
         return n;
       }
       default:

@@ -70,4 +70,21 @@ export class SandboxError extends Error {
 
 instance.import(disabled, { override: true });
 
+// The configuration every mathjs function reads (tolerances, number type) is fixed once
+// set up: `config({relTol: 0.5})` is undone and refused, from any caller, instead of
+// changing how every later comparison in the process is made. Documents cannot reach
+// `config` at all (engine/sandbox compiles them against a namespace without it); this is
+// the second wall. mathjs keeps the object itself private, so the change is reverted.
+let reverting = false;
+(instance as unknown as { on(event: 'config', f: (current: unknown, previous: object) => void): void }).on('config', (_current, previous) => {
+  if (reverting) return;
+  reverting = true;
+  try {
+    instance.config(previous as Parameters<typeof instance.config>[0]);
+  } finally {
+    reverting = false;
+  }
+  throw new SandboxError('the mathjs configuration is fixed');
+});
+
 export const math: MathJsInstance = instance;

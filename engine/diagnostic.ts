@@ -9,7 +9,8 @@ export type RuleId =
   | 'units/mismatch' | 'kernel/domain' | 'kernel/argument' | 'value/non-finite' | 'value/range'
   | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read'
   | 'cases/syntax' | 'cases/unknown-input' | 'cases/dimension' | 'cases/empty-family' | 'cases/duplicate' | 'cases/limit' | 'cases/unknown-case'
-  | 'explain/unknown-name';
+  | 'explain/unknown-name'
+  | 'sandbox/limit';
 
 export interface Diagnostic {
   message: string;

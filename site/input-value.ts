@@ -5,6 +5,7 @@
  * Pure: no DOM, no I/O, so the page and the server (bin/serve/dimension.ts) share it.
  */
 import type { Unit } from 'mathjs';
+import { evaluateUntrusted } from '../engine/sandbox/index.js';
 import { math, parseExpression } from '../cells/math.js';
 import { describeDimension } from '../cells/units.js';
 
@@ -32,11 +33,9 @@ export function withDocumentUnit(text: string, documentValue: unknown): string {
 
 /** Evaluates a value text that stands alone (an input's value refers to no other cell). */
 function evaluateText(text: string): { ok: true; value: unknown } | { ok: false; message: string } {
-  try {
-    return { ok: true, value: parseExpression(text).compile().evaluate(new Map()) };
-  } catch (e) {
-    return { ok: false, message: (e as Error).message };
-  }
+  // Through the same sandbox as every cell (engine/sandbox).
+  const r = evaluateUntrusted(text);
+  return r.ok ? { ok: true, value: r.value } : { ok: false, message: r.message };
 }
 
 /** Does `value` have the kind of the document's value: same dimension, or a plain number for a plain number? */

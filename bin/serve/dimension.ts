@@ -3,13 +3,17 @@
  * on its own and have the dimension of the document's value for that input
  * (the page refuses such values first; this refuses them from any other client).
  */
+import type { MathNode } from 'mathjs';
 import { compile } from '../../engine/index.js';
+import { checkExpression, evaluateNode } from '../../engine/sandbox/index.js';
 import { readInputValue } from '../../site/input-value.js';
 
 /** The document's own value of a given input, evaluated on its own; undefined when it does not evaluate so. */
-function documentValueOf(node: { compile(): { evaluate(scope: Map<string, unknown>): unknown } }): unknown {
+function documentValueOf(node: MathNode): unknown {
+  // Through the same sandbox as every cell (engine/sandbox).
+  if (checkExpression(node, { isDocumentName: () => false })) return undefined;
   try {
-    return node.compile().evaluate(new Map());
+    return evaluateNode(node, new Map());
   } catch {
     return undefined;
   }

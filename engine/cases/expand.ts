@@ -7,6 +7,7 @@
  * the wrong dimension, an empty family, more cases than MAX_CASES) are reported on the line.
  */
 import type { Unit } from 'mathjs';
+import { evaluateNode } from '../sandbox/index.js';
 import { math, parseExpression } from '../../cells/math.js';
 import type { CaseLine, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic, RuleId } from '../diagnostic.js';
@@ -114,7 +115,7 @@ function evaluateLine(line: CaseLine, doc: CompiledDocument, base: Map<string, C
   for (const v of line.values) {
     let value: unknown;
     try {
-      value = v.node.compile().evaluate(scope);
+      value = evaluateNode(v.node, scope);
     } catch (e) {
       const missing = doc.graph.cells.find((c) => c.name && !scope.has(c.name) && v.source.includes(c.name) && base.get(c.id)?.status !== 'ok');
       say('eval/error', missing ? `${v.input} is not computed because ${missing.name} failed` : `cannot evaluate ${v.input}: ${(e as Error).message}`, v.column);
@@ -169,7 +170,7 @@ export function exactText(value: unknown): string | null {
   candidates.push(`${si.toNumber()} ${si.formatUnits()}`);
   for (const text of candidates) {
     try {
-      const back = parseExpression(text).compile().evaluate() as Unit;
+      const back = evaluateNode(parseExpression(text)) as Unit;
       if (math.isUnit(back) && back.value === u.value && back.equalBase(u)) return text;
     } catch { /* try the next form */ }
   }

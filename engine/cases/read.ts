@@ -15,7 +15,8 @@ import { splitStatements, locateInStatement, type RawStatement } from '../parse/
 import { collectSymbols } from '../graph/symbols.js';
 import { suggestName } from '../graph/suggest.js';
 import { isUnitName, type Library } from '../graph/build.js';
-import { refusedName } from './sandbox.js';
+import { refusalOf } from './sandbox.js';
+import { evaluateUntrusted } from '../sandbox/index.js';
 
 const CASE_PREFIX = /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/;
 /** The limitation marker at the end of a check's comment: `[in EQU]`, `[in EQU, axle]`. */
@@ -107,8 +108,8 @@ function readLine(stmt: RawStatement, span: Span, name: string, headLength: numb
 
 /** A name a case value may not use: refused by the sandbox, or unknown (with "did you mean"). */
 function unknownNameIn(node: MathNode, graph: CellGraph, lib: Library): { ruleId: RuleId; message: string } | null {
-  const refused = refusedName(node);
-  if (refused) return { ruleId: 'sandbox/refused', message: `"${refused}" is not available in a calc document` };
+  const refusal = refusalOf(node, (n) => graph.byId.has(n));
+  if (refusal) return refusal;
   for (const use of collectSymbols(node)) {
     if (use.role === 'unit') {
       if (!isUnitName(use.name)) return { ruleId: 'graph/unknown-name', message: `unknown unit "${use.name}"` };
@@ -126,7 +127,8 @@ function unknownNameIn(node: MathNode, graph: CellGraph, lib: Library): { ruleId
 
 function isMathFunction(name: string): boolean {
   try {
-    return typeof parseExpression(name).compile().evaluate() === 'function';
+    const r = evaluateUntrusted(name);
+    return r.ok && typeof r.value === 'function';
   } catch {
     return false;
   }

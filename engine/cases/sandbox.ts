@@ -1,18 +1,15 @@
 /**
- * The one place where a case value meets the sandbox's refusals. Cells are refused the same
- * names in engine/graph/build.ts; when those move into a sandbox module of their own, only this
- * function is re-pointed.
+ * The one place where a case value meets the sandbox (engine/sandbox): the same refusals as every
+ * cell, range bound, override and live edit.
  */
 import type { MathNode } from 'mathjs';
-import { DISABLED_FUNCTIONS, WITHHELD_NAMES } from '../../cells/math.js';
-import { collectSymbols } from '../graph/symbols.js';
-
-const REFUSED = new Set<string>([...DISABLED_FUNCTIONS, ...WITHHELD_NAMES]);
+import { checkExpression, type Refusal } from '../sandbox/index.js';
 
 /**
- * The first name in an expression that a calc document may not use, or null.
- * @example refusedName(parseExpression('evaluate("1")')) // 'evaluate'
+ * Why a case value may not be evaluated (a refused name or construct, or a size limit), or null.
+ * @param isDocumentName names the document defines (they shadow refused library names)
+ * @example refusalOf(parseExpression('evaluate("1")'), () => false) // {ruleId: 'sandbox/refused', …}
  */
-export function refusedName(node: MathNode): string | null {
-  return collectSymbols(node).find((u) => REFUSED.has(u.name))?.name ?? null;
+export function refusalOf(node: MathNode, isDocumentName: (name: string) => boolean): Refusal | null {
+  return checkExpression(node, { isDocumentName });
 }

@@ -7,6 +7,7 @@
  * else of one of its own units, and the step is stated.
  */
 import type { Unit } from 'mathjs';
+import { evaluateNode } from '../sandbox/index.js';
 import { math, parseExpression } from '../../cells/math.js';
 import type { Cell } from '../types.js';
 import { exactText } from '../cases/index.js';
@@ -36,12 +37,12 @@ const isQuantity = (v: unknown): v is Unit => math.isUnit(v) && typeof (v as Uni
 function scaleOf(cell: Cell, value: number | Unit): number | Unit {
   if (cell.range) {
     try {
-      const width = math.subtract(cell.range.hiNode.compile().evaluate() as never, cell.range.loNode.compile().evaluate() as never) as unknown;
+      const width = math.subtract(evaluateNode(cell.range.hiNode) as never, evaluateNode(cell.range.loNode) as never) as unknown;
       const n = isQuantity(width) ? (width as Unit).value! : width;
       if ((typeof n === 'number' && Number.isFinite(n) && n > 0) && (typeof value === 'number') === (typeof width === 'number')) return width as number | Unit;
     } catch { /* a range of other units: fall back to one unit */ }
   }
-  return typeof value === 'number' ? 1 : (parseExpression(`1 ${value.formatUnits()}`).compile().evaluate() as Unit);
+  return typeof value === 'number' ? 1 : (evaluateNode(parseExpression(`1 ${value.formatUnits()}`)) as Unit);
 }
 
 function isZero(value: number | Unit): boolean {

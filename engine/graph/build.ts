@@ -5,7 +5,8 @@
  * report by name: duplicate definitions, unknown names, names that shadow a
  * unit the document uses, functions the sandbox withholds, and cycles.
  */
-import { math, DISABLED_FUNCTIONS, WITHHELD_NAMES } from '../../cells/math.js';
+import { math } from '../../cells/math.js';
+import { NOT_FOR_DOCUMENTS, isDocumentFunction } from '../sandbox/index.js';
 import type { Cell, CellGraph, Span } from '../types.js';
 import type { Diagnostic, RuleId, StageContext } from '../diagnostic.js';
 import type { FailedStatement } from '../parse/cell.js';
@@ -17,7 +18,7 @@ export interface Library {
   functions: ReadonlySet<string>;
 }
 
-const REFUSED = new Set<string>([...DISABLED_FUNCTIONS, ...WITHHELD_NAMES]);
+const REFUSED = NOT_FOR_DOCUMENTS;
 
 /** Is this a unit mathjs knows (with or without prefix)? */
 export function isUnitName(name: string): boolean {
@@ -29,7 +30,7 @@ export function isUnitName(name: string): boolean {
 }
 
 function isLibraryName(name: string, lib: Library): boolean {
-  return lib.functions.has(name) || (name in math && !REFUSED.has(name));
+  return lib.functions.has(name) || isDocumentFunction(name);
 }
 
 function diag(ctx: StageContext, span: Span, cellId: string, ruleId: RuleId, message: string, note?: string): Diagnostic {
@@ -82,6 +83,8 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
     }
   }
 
+  let known: string[] | undefined;
+  const suggestions = new Map<string, string | null>();
   for (const cell of kept) {
     if (cell.name && lib.functions.has(cell.name)) {
       fail(diag(ctx, cell.span, cell.id, 'graph/shadow-function', `"${cell.name}" is the name of a vault function; choose another name, e.g. "${cell.name}_1" or a descriptive one`));
@@ -125,8 +128,10 @@ export function buildGraph(cells: Cell[], failedStatements: FailedStatement[], l
         continue;
       }
       if (use.role === 'value' && isUnitName(use.name)) continue; // a unit standing alone, e.g. `x / m`
-      const known = [...defined, ...lib.functions];
-      const guess = suggestName(use.name, known);
+      // One search per unknown name and document: a name misspelt on every line costs one.
+      known ??= [...defined, ...lib.functions];
+      if (!suggestions.has(use.name)) suggestions.set(use.name, suggestName(use.name, known));
+      const guess = suggestions.get(use.name)!;
       const what = use.role === 'call' ? 'function' : 'name';
       fail(diag(ctx, cell.span, cell.id, 'graph/unknown-name',
         `unknown ${what} "${use.name}"${guess ? `; did you mean "${guess}"?` : ''}`));

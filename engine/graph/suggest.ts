@@ -18,8 +18,10 @@ export function suggestName(name: string, known: Iterable<string>): string | nul
   let best: string | null = null;
   let bestD = Infinity;
   const limit = name.length <= 3 ? 1 : name.length <= 6 ? 2 : 3;
+  const lower = name.toLowerCase();
   for (const k of known) {
-    const d = distance(name.toLowerCase(), k.toLowerCase());
+    if (Math.abs(k.length - name.length) > limit) continue; // the distance is at least the difference in length
+    const d = distance(lower, k.toLowerCase());
     if (d < bestD && d <= limit && k !== name) { best = k; bestD = d; }
   }
   return best;

@@ -16,32 +16,60 @@ function isNumberLiteral(n: AnyNode): boolean {
   return n.type === 'ConstantNode' && typeof n.value === 'number';
 }
 
-/** Symbols forming the unit part of a unit expression: kN, kN/m, m^2, kN m. */
-function unitSymbols(n: AnyNode, out: string[]): boolean {
-  if (n.type === 'SymbolNode') { out.push(n.name!); return true; }
-  if (n.type === 'ParenthesisNode') return unitSymbols((n as unknown as { content: AnyNode }).content, out);
-  if (n.type === 'OperatorNode' && n.args) {
-    if (n.fn === 'pow') return unitSymbols(n.args[0] as AnyNode, out) && isNumberLiteral(n.args[1] as AnyNode) || isNumberLiteral(n.args[1] as AnyNode);
-    if (n.fn === 'multiply' || n.fn === 'divide') return n.args.every((a) => unitSymbols(a as AnyNode, out) || isNumberLiteral(a as AnyNode));
+/**
+ * Symbols forming the unit part of a unit expression: kN, kN/m, m^2, kN m.
+ * @returns the symbols, or null when the node is not a unit expression
+ */
+function unitSymbols(n: AnyNode): string[] | null {
+  const out: string[] = [];
+  // A list, not recursion: `1 m m m … m` is a chain as long as the line.
+  const stack: AnyNode[] = [n];
+  while (stack.length > 0) {
+    const cur = stack.pop()!;
+    if (cur.type === 'SymbolNode') { out.push(cur.name!); continue; }
+    if (cur.type === 'ParenthesisNode') { stack.push((cur as unknown as { content: AnyNode }).content); continue; }
+    if (cur.type === 'OperatorNode' && cur.args) {
+      const [a, b] = cur.args as AnyNode[];
+      if (cur.fn === 'pow' && b && isNumberLiteral(b)) { if (!isNumberLiteral(a!)) stack.push(a!); continue; }
+      if (cur.fn === 'multiply' || cur.fn === 'divide') {
+        // Pushed in reverse so that the symbols come out in the order written.
+        for (const arg of [...cur.args].reverse() as AnyNode[]) if (!isNumberLiteral(arg)) stack.push(arg);
+        continue;
+      }
+    }
+    return null;
   }
-  return false;
+  return out;
 }
 
 /**
  * A number written with its unit, `6.4 m` or `18 kN/m^3`: returns the unit symbols,
- * or null when the node is not such a literal.
+ * or null when the node is not such a literal. Each node is looked at once per call
+ * (`memo`), so a long chain costs its length, not its length squared or worse.
  */
-function quantityLiteralUnits(n: AnyNode): string[] | null {
+function quantityLiteralUnits(n: AnyNode, memo: Map<AnyNode, string[] | null>): string[] | null {
+  if (memo.has(n)) return memo.get(n)!;
+  // The left operand of a chain is itself a literal or not: settle the innermost first.
+  const spine: AnyNode[] = [];
+  for (let cur: AnyNode | undefined = n; cur && !memo.has(cur); cur = leftOperand(cur)) spine.push(cur);
+  for (let i = spine.length - 1; i >= 0; i--) memo.set(spine[i]!, literalUnitsOf(spine[i]!, memo));
+  return memo.get(n)!;
+}
+
+function leftOperand(n: AnyNode): AnyNode | undefined {
+  if (n.type !== 'OperatorNode' || !n.args || n.args.length !== 2) return undefined;
+  return (n.fn === 'multiply' || n.fn === 'divide') ? n.args[0] as AnyNode : undefined;
+}
+
+function literalUnitsOf(n: AnyNode, memo: Map<AnyNode, string[] | null>): string[] | null {
   if (n.type !== 'OperatorNode' || !n.args || n.args.length !== 2) return null;
   const [a, b] = n.args as AnyNode[];
-  if (n.fn === 'multiply' && n.implicit && isNumberLiteral(a!)) {
-    const out: string[] = [];
-    return unitSymbols(b!, out) ? out : null;
-  }
-  if ((n.fn === 'divide' || n.fn === 'multiply') && (isNumberLiteral(a!) || quantityLiteralUnits(a!))) {
-    const left = quantityLiteralUnits(a!) ?? [];
-    const out: string[] = [];
-    if (quantityLiteralUnits(a!) && unitSymbols(b!, out)) return [...left, ...out];
+  if (n.fn === 'multiply' && n.implicit && isNumberLiteral(a!)) return unitSymbols(b!);
+  if (n.fn === 'divide' || n.fn === 'multiply') {
+    const left = memo.get(a!) ?? null;
+    if (!left) return null;
+    const right = unitSymbols(b!);
+    return right ? [...left, ...right] : null;
   }
   return null;
 }
@@ -49,16 +77,17 @@ function quantityLiteralUnits(n: AnyNode): string[] | null {
 /** Every name an expression uses, with its role. */
 export function collectSymbols(root: MathNode): SymbolUse[] {
   const uses: SymbolUse[] = [];
+  const memo = new Map<AnyNode, string[] | null>();
   const visit = (node: AnyNode): void => {
-    const units = quantityLiteralUnits(node);
+    const units = quantityLiteralUnits(node, memo);
     if (units) {
       for (const name of units) uses.push({ name, role: 'unit' });
       return;
     }
     if (node.type === 'OperatorNode' && node.fn === 'to' && node.args) {
       visit(node.args[0] as AnyNode);
-      const out: string[] = [];
-      if (unitSymbols(node.args[1] as AnyNode, out)) {
+      const out = unitSymbols(node.args[1] as AnyNode);
+      if (out) {
         for (const name of out) uses.push({ name, role: 'unit' });
         return;
       }

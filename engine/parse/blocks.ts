@@ -8,6 +8,44 @@ import { Lexer } from 'marked';
 import { CELL_KINDS, type Block, type CellKind } from '../types.js';
 import type { StageContext } from '../diagnostic.js';
 import { LineIndex } from './position.js';
+import { LIMITS } from '../sandbox/limits.js';
+
+/** Characters one prose paragraph may hold before it is shown as plain text (README "Security model"). */
+export const MAX_PARAGRAPH_CHARS = 10_000;
+/** Emphasis delimiters (`*`, `_`, `~`) one paragraph may hold before they are shown as themselves. */
+export const MAX_DELIMITERS_PER_PARAGRAPH = 1_000;
+
+export type ProsePart = { markdown: string } | { plain: string };
+
+/**
+ * Prose cut into what marked's inline pass can take in linear time. marked's inline lexer
+ * is quadratic in a paragraph's length (it re-slices the rest after every token) and in its
+ * number of emphasis delimiters (it pairs them): a paragraph longer than MAX_PARAGRAPH_CHARS
+ * becomes plain text, and in one with more than MAX_DELIMITERS_PER_PARAGRAPH delimiters each
+ * is escaped. No real paragraph of a calc comes near either.
+ * @example proseParts('A *short* note.') // [{markdown: 'A *short* note.'}]
+ */
+export function proseParts(markdown: string): ProsePart[] {
+  if (markdown.length <= MAX_DELIMITERS_PER_PARAGRAPH) return [{ markdown }];
+  const parts: ProsePart[] = [];
+  let pending = '';
+  for (const paragraph of markdown.split(/(\n[ \t]*\n)/)) {
+    if (paragraph.length > MAX_PARAGRAPH_CHARS) {
+      if (pending) parts.push({ markdown: pending });
+      pending = '';
+      parts.push({ plain: paragraph });
+      continue;
+    }
+    let count = 0;
+    for (let i = 0; i < paragraph.length; i++) {
+      const c = paragraph.charCodeAt(i);
+      if (c === 42 || c === 95 || c === 126) count++; // * _ ~
+    }
+    pending += count > MAX_DELIMITERS_PER_PARAGRAPH ? paragraph.replace(/(?<!\\)([*_~])/g, '\\$1') : paragraph;
+  }
+  if (pending) parts.push({ markdown: pending });
+  return parts;
+}
 
 /** Is this fence info string one of ours? */
 export function isCalcFence(info: string | undefined): info is CellKind {
@@ -20,8 +58,17 @@ export function isCalcFence(info: string | undefined): info is CellKind {
  * @param start offset where the body starts (after front matter)
  */
 export function splitBlocks(source: string, start: number, ctx: StageContext): Block[] {
+  if (source.length > LIMITS.documentChars) {
+    ctx.diagnostics.push({
+      message: `the document has ${source.length.toLocaleString('en-US')} characters; a calc document may have at most ${LIMITS.documentChars.toLocaleString('en-US')} (split it into several calcs)`,
+      file: ctx.file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null, ruleId: 'sandbox/limit', severity: 'error',
+    });
+    return [];
+  }
   const lines = new LineIndex(source);
-  const tokens = new Lexer({ gfm: true }).lex(source.slice(start));
+  // Block tokens only: the split needs no inline tokens, and marked's inline pass is
+  // quadratic on long runs of emphasis delimiters (`*a*a*a…`).
+  const tokens = new Lexer({ gfm: true }).blockTokens(source.slice(start), []);
   const blocks: Block[] = [];
   let offset = start;
   let prose: { from: number; to: number } | null = null;

@@ -2,7 +2,7 @@
  * parseCells: CalcBlock → Cell[], one per statement, with document positions.
  */
 import type { MathNode } from 'mathjs';
-import { parseExpression } from '../../cells/math.js';
+import { parseUntrusted, checkExpression, LimitError, LIMITS } from '../sandbox/index.js';
 import type { CalcBlock, Cell, Position, Span, ValueRange } from '../types.js';
 import type { Diagnostic, RuleId, StageContext } from '../diagnostic.js';
 import { compactUnit } from '../values/format.js';
@@ -50,16 +50,30 @@ function syntaxErrorSpan(block: CalcBlock, stmt: RawStatement, message: string, 
   return { start: p, end: { ...p, column: p.column + 1 } };
 }
 
-function parseRange(comment: string): { description: string; range: ValueRange | null; problem: string | null } {
+interface RangeReading {
+  description: string;
+  range: ValueRange | null;
+  problem: { message: string; ruleId: RuleId; severity: 'error' | 'warning' } | null;
+}
+
+/** The `[lo, hi]` at the end of a given's comment; its bounds pass the same sandbox as a cell (they can use no name). */
+function parseRange(comment: string): RangeReading {
   const m = RANGE_SUFFIX.exec(comment);
   if (!m) return { description: comment, range: null, problem: null };
   const description = comment.slice(0, m.index).trim();
+  const what = `the allowed range [${m[1]}, ${m[2]}]`;
   try {
-    const loNode = parseExpression(m[1]!.trim());
-    const hiNode = parseExpression(m[2]!.trim());
+    const loNode = parseUntrusted(m[1]!.trim());
+    const hiNode = parseUntrusted(m[2]!.trim());
+    const refusal = checkExpression(loNode, { isDocumentName: () => false }) ?? checkExpression(hiNode, { isDocumentName: () => false });
+    if (refusal) return { description, range: null, problem: { message: `${what}: ${refusal.message}`, ruleId: refusal.ruleId, severity: 'error' } };
     return { description, range: { lo: m[1]!.trim(), hi: m[2]!.trim(), loNode, hiNode }, problem: null };
   } catch (e) {
-    return { description, range: null, problem: `the allowed range [${m[1]}, ${m[2]}] is not understood: ${(e as Error).message}` };
+    const limit = e instanceof LimitError;
+    return {
+      description, range: null,
+      problem: { message: `${what} is not understood: ${(e as Error).message}`, ruleId: limit ? 'sandbox/limit' : 'value/range', severity: limit ? 'error' : 'warning' },
+    };
   }
 }
 
@@ -69,6 +83,9 @@ function displayUnitOf(node: MathNode): string | null {
   if (n.type === 'OperatorNode' && n.fn === 'to' && n.args?.[1]) return compactUnit(n.args[1].toString());
   return null;
 }
+
+/** Statements parsed so far in each document (keyed by its stage context). */
+const statementsSeen = new WeakMap<StageContext, number>();
 
 /**
  * Parses every statement of one calc block.
@@ -80,6 +97,16 @@ export function parseCells(block: CalcBlock, index: number, ctx: StageContext): 
   const failed: FailedStatement[] = [];
   for (const stmt of splitStatements(block.body)) {
     const span = statementSpan(block, stmt);
+    // The document's statement budget: past it, statements are not even parsed.
+    const count = (statementsSeen.get(ctx) ?? 0) + 1;
+    statementsSeen.set(ctx, count);
+    if (count > LIMITS.cells) {
+      if (count === LIMITS.cells + 1) {
+        ctx.diagnostics.push(makeDiagnostic(ctx, span,
+          `a calc document may have at most ${LIMITS.cells.toLocaleString('en-US')} statements; this one and the ones after it are not evaluated`, 'sandbox/limit', null));
+      }
+      continue;
+    }
     const nameMatch = NAME_PREFIX.exec(stmt.code);
     const name = nameMatch ? nameMatch[1]! : null;
     const id = name ?? `${block.cellKind}@L${span.start.line}`;
@@ -99,9 +126,10 @@ export function parseCells(block: CalcBlock, index: number, ctx: StageContext): 
     }
     let node: MathNode;
     try {
-      node = parseExpression(stmt.code);
+      node = parseUntrusted(stmt.code);
     } catch (e) {
       const message = (e as Error).message;
+      if (e instanceof LimitError) { fail(message, 'sandbox/limit'); continue; }
       fail(`cannot read this line: ${message.replace(/\s*\(char \d+\)/, '')}`, 'parse/syntax', syntaxErrorSpan(block, stmt, message, span));
       continue;
     }
@@ -111,12 +139,14 @@ export function parseCells(block: CalcBlock, index: number, ctx: StageContext): 
     if (t === 'AssignmentNode' && !name) { fail('only a plain name can be defined here, e.g. "H = …"', 'parse/cell'); continue; }
     let value = node;
     if (t === 'AssignmentNode') value = (node as MathNode & { value: MathNode }).value;
+    const refusal = checkExpression(value);
+    if (refusal) { fail(refusal.message, refusal.ruleId); continue; }
     if (!name && (block.cellKind === 'given' || block.cellKind === 'calc')) {
       fail(`a ${block.cellKind} line must define a name: "name = expression"`, 'parse/cell');
       continue;
     }
     const { description, range, problem } = block.cellKind === 'given' ? parseRange(stmt.comment) : { description: stmt.comment, range: null, problem: null };
-    if (problem) ctx.diagnostics.push(makeDiagnostic(ctx, span, problem, 'value/range', id, 'warning'));
+    if (problem) ctx.diagnostics.push(makeDiagnostic(ctx, span, problem.message, problem.ruleId, id, problem.severity));
     const source = name ? stmt.code.slice(nameMatch![0].length).trim() : stmt.code.trim();
     cells.push({
       id, name, kind: block.cellKind, text: stmt.code.trim(), source, node: value, description, range,

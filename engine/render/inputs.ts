@@ -9,11 +9,12 @@ import { symbolTex } from './names.js';
 import { valueHtml } from './quantity.js';
 import { stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
+import { evaluateNode } from '../sandbox/index.js';
 
 /** A range bound shown with its unit, or as written when it cannot be evaluated. */
 function boundHtml(node: Cell['node'], text: string, sigfigs: number): string {
   try {
-    return valueHtml(node.compile().evaluate(new Map()), { sigfigs });
+    return valueHtml(evaluateNode(node), { sigfigs });
   } catch {
     return escapeHtml(text);
   }

@@ -7,6 +7,8 @@
  * borrow its freedoms.
  */
 import { Marked, type Tokens } from 'marked';
+import { proseParts } from '../parse/blocks.js';
+import { escapeHtml } from './escape.js';
 import sanitizeHtml from 'sanitize-html';
 import { typeset } from './katex.js';
 
@@ -98,10 +100,14 @@ let shared: Marked | null = null;
  * @example renderProse('The span $L$ is <b>6 m</b><script>x()</script>.') // '<p>The span <span class="katex">…</span> is <b>6 m</b>.</p>'
  */
 export function renderProse(markdown: string): string {
+  const parts = proseParts(markdown);
+  if (parts.length !== 1 || !('markdown' in parts[0]!)) {
+    return parts.map((p) => ('markdown' in p ? renderProse(p.markdown) : `<p class="vb-plain">${escapeHtml(p.plain)}</p>`)).join('\n');
+  }
   shared ??= renderer();
   maths = [];
   // Placeholders never come from the author: drop any such characters first.
-  const clean = markdown.replace(/[\uE000\uE001]/g, '');
+  const clean = parts[0].markdown.replace(/[\uE000\uE001]/g, '');
   const html = shared.parse(clean, { async: false }) as string;
   const safe = sanitizeHtml(html, POLICY);
   // Put the maths back only in text, never inside a tag or an attribute.

@@ -12,6 +12,7 @@ import { readOverride } from '../parse/override.js';
 import { CellFailure } from './failure.js';
 import { evaluateCell, checkRange } from './evaluate.js';
 import { observeCell } from './observe.js';
+import { resetDocumentBudget } from '../sandbox/index.js';
 
 export interface Session {
   readonly graph: CellGraph;
@@ -104,6 +105,7 @@ export function bindGraph(graph: CellGraph, ctx: StageContext): Session {
     given.source = source;
     given.overridden = true;
     given.originalSource = originals.get(name)!.source;
+    resetDocumentBudget(ctx);
     defineCell(given);
     return null;
   };
@@ -117,6 +119,7 @@ export function bindGraph(graph: CellGraph, ctx: StageContext): Session {
     cell.overridden = false;
     cell.originalSource = null;
     originals.delete(name);
+    resetDocumentBudget(ctx);
     defineCell(cell);
   };
 

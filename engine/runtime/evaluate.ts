@@ -1,8 +1,9 @@
 /**
  * evaluateCell: one cell's expression, with its inputs, to a value.
  */
-import type { EvalFunction, MathNode, Unit } from 'mathjs';
+import type { MathNode, Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
+import { evaluateNode, chargeDocument } from '../sandbox/index.js';
 import type { Cell, CheckResult } from '../types.js';
 import type { Diagnostic, StageContext } from '../diagnostic.js';
 import { CellFailure, NotComputed } from './failure.js';
@@ -12,21 +13,6 @@ import { isNotAvailable } from '../../cells/not-available.js';
 import { formatValue } from '../values/format.js';
 
 type AnyNode = MathNode & { fn?: string; args?: MathNode[] };
-
-/**
- * Compiled expressions, kept per parse node: a live edit re-evaluates every dependent, and
- * compiling is the larger part of evaluating a short expression. An edited input gets a new
- * node, so nothing stale is ever reused.
- */
-const compiled = new WeakMap<MathNode, EvalFunction>();
-function compiledOf(node: MathNode): EvalFunction {
-  let c = compiled.get(node);
-  if (!c) {
-    c = node.compile();
-    compiled.set(node, c);
-  }
-  return c;
-}
 
 const OPS: Record<string, CheckResult['op']> = { smallerEq: '<=', largerEq: '>=', smaller: '<', larger: '>' };
 
@@ -39,7 +25,7 @@ function readsInfinity(node: MathNode, scope: Map<string, unknown>): boolean {
     if (any.type === 'SymbolNode' && (any.name === 'Infinity' || (scope.has(any.name!) && isNonFinite(scope.get(any.name!))))) found = true;
     else if (any.type === 'AccessorNode') {
       try {
-        found = isNonFinite(compiledOf(n).evaluate(scope));
+        found = isNonFinite(evaluateNode(n, scope));
       } catch {
         // An accessor that cannot be evaluated on its own reads nothing infinite.
       }
@@ -83,8 +69,8 @@ function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
   const node = cell.node as AnyNode;
   const op = node.type === 'OperatorNode' && node.fn ? OPS[node.fn] : undefined;
   if (op && node.args?.length === 2) {
-    const demand = compiledOf(node.args[0]!).evaluate(scope);
-    const capacity = compiledOf(node.args[1]!).evaluate(scope);
+    const demand = evaluateNode(node.args[0]!, scope);
+    const capacity = evaluateNode(node.args[1]!, scope);
     // The same mathjs function the operator calls, on the sides already evaluated.
     const compare = math[node.fn as 'smallerEq'] as (a: unknown, b: unknown) => boolean;
     const pass = compare(demand, capacity);
@@ -95,7 +81,7 @@ function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
     if (utilization !== null && utilization < 0) utilization = null;
     return { isCheck: true, source: cell.source, op, demand, capacity, utilization, pass };
   }
-  const value = compiledOf(node).evaluate(scope);
+  const value = evaluateNode(node, scope);
   if (typeof value !== 'boolean') {
     throw new TypeError(`a check must be a comparison or true/false, but this line gives ${formatValue(value)}`);
   }
@@ -130,15 +116,16 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
   cell.uses.forEach((name, i) => scope.set(name, inputs[i]));
   let value: unknown;
   try {
-    checkReads(cell, (node) => compiledOf(node).evaluate(scope), ctx.file);
-    value = cell.kind === 'check' ? evaluateCheck(cell, scope) : compiledOf(cell.node).evaluate(scope);
+    checkReads(cell, (node) => evaluateNode(node, scope), ctx.file);
+    // Through the sandbox (engine/sandbox), charged to this document's evaluation round.
+    value = chargeDocument(ctx, () => (cell.kind === 'check' ? evaluateCheck(cell, scope) : evaluateNode(cell.node, scope)));
   } catch (err) {
     if (err instanceof CellFailure || err instanceof NotComputed) throw err;
-    checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
+    checkCalledReads(cell, (node) => evaluateNode(node, scope));
     throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
   }
   if (isNotAvailable(value)) {
-    checkCalledReads(cell, (node) => compiledOf(node).evaluate(scope));
+    checkCalledReads(cell, (node) => evaluateNode(node, scope));
     throw new NotComputed(cell.id, cell.uses[0] ?? cell.id, `not computed: ${value.toString().replace(/^not available/, 'a value it reads is not available')}`);
   }
   const problem = valueProblem(cell, value, scope);
@@ -156,8 +143,8 @@ export function checkRange(cell: Cell, value: unknown, ctx: StageContext): Diagn
   if (!cell.range) return null;
   let lo: unknown, hi: unknown;
   try {
-    lo = compiledOf(cell.range.loNode).evaluate(new Map());
-    hi = compiledOf(cell.range.hiNode).evaluate(new Map());
+    lo = evaluateNode(cell.range.loNode);
+    hi = evaluateNode(cell.range.hiNode);
   } catch (e) {
     return rangeDiag(cell, ctx, `the allowed range [${cell.range.lo}, ${cell.range.hi}] cannot be evaluated: ${(e as Error).message}`);
   }

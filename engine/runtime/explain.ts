@@ -9,6 +9,7 @@ import { displayUnitOf } from '../values/format.js';
 import { suggestName } from '../graph/suggest.js';
 import { quoteInUserUnits } from './quote.js';
 import { plainWords } from './plain-words.js';
+import { evaluateNode, LimitError } from '../sandbox/index.js';
 import type { Cell } from '../types.js';
 import type { Diagnostic, RuleId, StageContext } from '../diagnostic.js';
 
@@ -41,7 +42,7 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
   node.forEach((c) => kids.push(c as AnyNode));
   for (const k of kids) {
     try {
-      k.compile().evaluate(scope);
+      evaluateNode(k, scope);
     } catch {
       return findUnitClash(k, scope);
     }
@@ -49,12 +50,12 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
   if (node.type === 'FunctionNode' && node.args?.length) {
     // A function comparing its arguments (interp, clamp, min, max): name the first two kinds that differ.
     const first = (v: unknown): unknown => (Array.isArray(v) ? first(v[0]) : math.isMatrix(v) ? first((v as { toArray(): unknown[] }).toArray()) : v);
-    const labels = [...new Set(node.args.map((a) => unitLabel(first(a.compile().evaluate(scope)))))];
+    const labels = [...new Set(node.args.map((a) => unitLabel(first(evaluateNode(a, scope)))))];
     if (labels.length >= 2) return `cannot compare ${labels[0]} with ${labels[1]} in "${node.toString()}"`;
   }
   if (node.type === 'OperatorNode' && typeof node.fn === 'string' && VERBS[node.fn] && node.args?.length === 2) {
-    const a = node.args[0]!.compile().evaluate(scope);
-    const b = node.fn === 'to' ? math.unit(node.args[1]!.toString()) : node.args[1]!.compile().evaluate(scope);
+    const a = evaluateNode(node.args[0]!, scope);
+    const b = node.fn === 'to' ? math.unit(node.args[1]!.toString()) : evaluateNode(node.args[1]!, scope);
     const hint = math.isUnit(a) && math.isUnit(b) ? massForceHint(a, b as Unit) || massForceHint(b, a as Unit) : '';
     return `${VERBS[node.fn](unitLabel(a), unitLabel(b))} in "${node.toString()}"${hint}`;
   }
@@ -70,6 +71,7 @@ function withOptionGuess(message: string): string {
 
 function classify(err: unknown, sigfigs?: number): { ruleId: RuleId; message: string; actual?: string; expected?: string } {
   const message = err instanceof Error ? err.message : String(err);
+  if (err instanceof LimitError) return { ruleId: 'sandbox/limit', message };
   if (err instanceof UnitMismatchError) return { ruleId: 'units/mismatch', message, actual: err.actual, expected: err.expected };
   if (err instanceof CellArgumentError) return { ruleId: 'kernel/argument', message: withOptionGuess(message) };
   if (err instanceof KernelDomainError) return { ruleId: 'kernel/domain', message: quoteInUserUnits(message, err.given, sigfigs) };

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { evaluateDocument, compile } from '../../engine/index.js';
+import { mutatedDocument, seedDocuments, unlocated } from '../helpers/mutate.js';
 
 const SEED = ['---', 'title: Fictional fuzz seed', 'revision: A', '---', '# Ring', '',
   '```given', 'L = 6.4 m  # span [3 m, 12 m]', 't = 0.23 m  # ring', 'gamma = 18 kN/m^3', 'w = 10 kN/m', '```', '',
@@ -49,6 +50,18 @@ describe('engine on random and mutated documents (fast-check)', () => {
   it('never throws on shuffled subsets of a real calc', async () => {
     await fc.assert(fc.asyncProperty(lineShuffle, assertWellBehaved), { numRuns: 100, seed: 11 });
   });
+
+  // The same generator as `npm run bench`'s 10,000-document fuzz (test/bench/fuzz.bench.ts), on its first 100:
+  // templates and issue 18's hostile fixtures, mutated with hostile tokens.
+  it('never throws and locates every diagnostic, on 100 mutated templates and hostile fixtures', async () => {
+    const seeds = seedDocuments();
+    for (let n = 0; n < 100; n++) {
+      const text = mutatedDocument(seeds, n);
+      const { summary } = await evaluateDocument(text, { file: `fuzz-${n}.md` });
+      expect(unlocated(text, summary.diagnostics), `document ${n}`).toEqual([]);
+      expect(() => JSON.stringify(summary)).not.toThrow();
+    }
+  }, 120_000);
 
   it('compile never throws on arbitrary unicode text', () => {
     fc.assert(fc.property(fc.string({ unit: 'binary', maxLength: 300 }), (s) => { compile(s); }), { numRuns: 300, seed: 3 });

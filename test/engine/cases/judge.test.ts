@@ -107,9 +107,9 @@ describe('evaluateDocument with cases', () => {
     const text = BEAM.replace('M = gamma_G', 'M = sqrt(x_P - 1 m) * 1 kN m^0.5 + gamma_G').replace('c_M = M <= 20 kN m', 'c_M = M <= 40 kN m');
     const { summary } = await evaluateDocument(text, { file: 'beam.md' });
     const errors = summary.diagnostics.filter((d) => d.severity === 'error');
-    // Only axle[1] (x_P = 0.6 m) puts a negative number under the root: M becomes complex and the
-    // check c_M (line 16) cannot compare it.
-    expect(errors.map((d) => [d.message.slice(0, 17), d.line, d.cellId])).toEqual([['in case axle[1]: ', 16, 'c_M']]);
+    // Only axle[1] (x_P = 0.6 m) puts a negative number under the root: M (line 10) would be complex,
+    // which is refused on M's own line; c_M then has no verdict.
+    expect(errors.map((d) => [d.message.slice(0, 17), d.line, d.cellId])).toEqual([['in case axle[1]: ', 10, 'M']]);
     expect(summary.checks[0]!.pass).toBe(null);
   });
 });
