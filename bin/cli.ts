@@ -3,17 +3,17 @@
  */
 import { UsageError } from './args.js';
 
-type Command = (args: string[], out: (s: string) => void) => Promise<number>;
+type Command = (args: string[], out: (s: string) => void, err: (s: string) => void) => Promise<number>;
 
 export const COMMANDS: Record<string, { run: Command; usage: string }> = {
   // Every command is loaded when it runs, so `--help` or a mistyped command answers without
   // loading the engine (mathjs alone takes about 0.1 s to set up).
   eval: { run: (a, o) => import('./commands/eval.js').then((m) => m.evalCommand(a, o)), usage: 'eval FILE [--set NAME=EXPR ...] [--json]      evaluate a calc and list its values' },
   check: { run: (a, o) => import('./commands/check.js').then((m) => m.checkCommand(a, o)), usage: 'check FILE|GLOB... [--set NAME=EXPR ...] [--json] [--jobs N]  evaluate and judge every check (exit 0 all hold, 1 a check fails, 2 errors)' },
-  new: { run: (a, o) => import('./commands/new.js').then((m) => m.newCommand(a, o)), usage: 'new [TEMPLATE FILE]                          start a calc from a template (lists templates without one; never overwrites)' },
-  diff: { run: (a, o) => import('./commands/diff.js').then((m) => m.diffCommand(a, o)), usage: 'diff OLD NEW | diff FILE --rev REV [--json]  what changed: inputs, results (%), checks flipped (exit 1 when a check newly fails)' },
-  render: { run: (a, o) => import('./commands/render.js').then((m) => m.renderCommand(a, o)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium' },
-  serve: { run: async (a, o) => (await import('./commands/serve.js')).serveCommand(a, o), usage: 'serve FILE [--port N]                         the live sheet in a browser: edit inputs, review changes, write them back' },
+  new: { run: (a, o, e) => import('./commands/new.js').then((m) => m.newCommand(a, o, e)), usage: 'new [TEMPLATE FILE]                          start a calc from a template (lists templates without one; never overwrites)' },
+  diff: { run: (a, o, e) => import('./commands/diff.js').then((m) => m.diffCommand(a, o, e)), usage: 'diff OLD NEW | diff FILE --rev REV [--json]  what changed: inputs, results (%), checks flipped (exit 1 when a check newly fails)' },
+  render: { run: (a, o, e) => import('./commands/render.js').then((m) => m.renderCommand(a, o, e)), usage: 'render FILE [-o OUT.html|-] [--pdf OUT.pdf] [--set NAME=EXPR ...]  the printable sheet: self-contained HTML (default <name>.html beside FILE), PDF by Chromium' },
+  serve: { run: async (a, o, e) => (await import('./commands/serve.js')).serveCommand(a, o, e), usage: 'serve FILE [--port N]                         the live sheet in a browser: edit inputs, review changes, write them back' },
 };
 
 export function usage(): string {
@@ -35,7 +35,7 @@ export async function main(argv: string[], out: (s: string) => void = (s) => pro
     return 2;
   }
   try {
-    return await command.run(rest, out);
+    return await command.run(rest, out, err);
   } catch (e) {
     if (e instanceof UsageError) {
       err(`vaultbook ${name}: ${e.message}\n  vaultbook ${command.usage}`);

@@ -7,7 +7,8 @@ export type RuleId =
   | 'parse/syntax' | 'parse/front-matter' | 'parse/cell'
   | 'graph/cycle' | 'graph/unknown-name' | 'graph/duplicate' | 'graph/shadow-unit' | 'graph/shadow-function'
   | 'units/mismatch' | 'kernel/domain' | 'kernel/argument' | 'value/non-finite' | 'value/range'
-  | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read';
+  | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read'
+  | 'io/not-text' | 'doc/no-cells';
 
 export interface Diagnostic {
   message: string;

@@ -4,23 +4,24 @@
  *
  * Output: `-o OUT.html` (or `-o -` for stdout); without -o the HTML goes next to
  * FILE as <name>.html, unless only --pdf was asked for, in which case only
- * the PDF is written. Exit 0 when every check holds, 1 when a check is not
- * satisfied, 2 when the document has errors (the sheet is still written and
- * says so), cannot be read, or the PDF cannot be printed.
+ * the PDF is written. Exit 0 when the sheet is written, whatever its checks say
+ * (a failing check is content of the sheet); 2 when the document has errors (the
+ * sheet is still written and says so on its first page), cannot be read, has no
+ * cells (no sheet is written), or the PDF cannot be printed.
  */
-import { createHash } from 'node:crypto';
-import { execFile } from 'node:child_process';
-import { readFile, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { basename, dirname, join } from 'node:path';
-import { promisify } from 'node:util';
-import { compile, startSession, type CompiledDocument, type CellState, type Diagnostic } from '../../engine/index.js';
+import { compile, formatDiagnostic, startSession, type CompiledDocument, type CellState, type Diagnostic } from '../../engine/index.js';
 import { renderSheet, collectDiagnostics, verdictOf, type ArchiveInfo } from '../../engine/render/index.js';
 import { parse, readOverrides, SET_OPTION, UsageError } from '../args.js';
+import { DocumentError, readDocument } from '../document.js';
+import { archiveInfo } from '../git.js';
+import { noCellsDiagnostic } from '../load.js';
 import { ChromiumMissingError, printPdf } from '../pdf.js';
 
-const run = promisify(execFile);
+export { archiveInfo };
 
 let katexCss: string | null = null;
 
@@ -41,25 +42,6 @@ export function loadKatexCss(): string {
   return katexCss;
 }
 
-/**
- * The archive identification of a file: SHA-256 of its bytes, and the git commit and
- * whether the file differs from it, when it is inside a repository (failing soft).
- */
-export async function archiveInfo(file: string, bytes: Buffer): Promise<ArchiveInfo> {
-  const hash = createHash('sha256').update(bytes).digest('hex');
-  const cwd = dirname(file);
-  try {
-    const opts = { cwd, timeout: 5000 };
-    const [{ stdout: head }, { stdout: status }] = await Promise.all([
-      run('git', ['rev-parse', 'HEAD'], opts),
-      run('git', ['status', '--porcelain', '--', basename(file)], opts),
-    ]);
-    return { hash, commit: head.trim(), dirty: status.trim() !== '' };
-  } catch {
-    return { hash };
-  }
-}
-
 /** The HTML path: -o, else FILE with .html in place of its extension. */
 export function defaultHtmlPath(file: string): string {
   const name = basename(file).replace(/\.(md|markdown|txt)$/i, '');
@@ -69,6 +51,11 @@ export function defaultHtmlPath(file: string): string {
 /** The sheet for a document text: compile, evaluate, render (standalone). */
 export async function renderDocument(source: string, file: string, overrides: Record<string, string>, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic> }> {
   const doc = compile(source, { file, overrides });
+  return renderCompiled(doc, archiveLookup);
+}
+
+/** The sheet for a compiled document. */
+async function renderCompiled(doc: CompiledDocument, archiveLookup?: ArchiveInfo | Promise<ArchiveInfo>): Promise<{ html: string; doc: CompiledDocument; states: Map<string, CellState>; warnings: Map<string, Diagnostic> }> {
   const session = startSession(doc);
   const states = await session.settle();
   const warnings = new Map(session.warnings);
@@ -79,23 +66,29 @@ export async function renderDocument(source: string, file: string, overrides: Re
   return { html, doc, states, warnings };
 }
 
-export async function renderCommand(args: string[], out: (s: string) => void): Promise<number> {
+export async function renderCommand(args: string[], out: (s: string) => void, err: (s: string) => void = (s) => process.stderr.write(`${s}\n`)): Promise<number> {
   const { values, positionals } = parse(args, { ...SET_OPTION, output: { type: 'string', short: 'o' }, pdf: { type: 'string' } });
   if (positionals.length !== 1) throw new UsageError('render takes exactly one FILE');
   const file = positionals[0]!;
   const overrides = readOverrides(values.set as string[] | undefined);
-  let bytes: Buffer;
+  let read: { bytes: Buffer; text: string };
   try {
-    bytes = await readFile(file);
+    read = await readDocument(file);
   } catch (e) {
-    const reason = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
-    process.stderr.write(`vaultbook render: cannot read ${file}: ${reason}\n`);
+    if (!(e instanceof DocumentError)) throw e;
+    err(formatDiagnostic(e.toDiagnostic()));
     return 2;
   }
-  const { html, doc, states, warnings } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes));
+  const compiled = compile(read.text, { file, overrides });
+  const empty = noCellsDiagnostic(compiled);
+  if (empty) {
+    err(`${formatDiagnostic(empty)}\n  no sheet was written`);
+    return 2;
+  }
+  const { html, doc, states, warnings } = await renderCompiled(compiled, archiveInfo(file, read.bytes));
   const htmlPath = values.output as string | undefined ?? (values.pdf ? null : defaultHtmlPath(file));
   // With the sheet on stdout, messages go to stderr so the HTML stays clean.
-  const say = htmlPath === '-' ? (s: string) => { process.stderr.write(`${s}\n`); } : out;
+  const say = htmlPath === '-' ? err : out;
   if (htmlPath === '-') process.stdout.write(html);
   else if (htmlPath) {
     await writeFile(htmlPath, html);
@@ -107,10 +100,10 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
       say(`wrote ${values.pdf}`);
     } catch (e) {
       if (e instanceof ChromiumMissingError) {
-        process.stderr.write(`vaultbook render: ${e.message}\n`);
+        err(`vaultbook render: ${e.message}`);
         return 2;
       }
-      process.stderr.write(`vaultbook render: printing the PDF failed: ${(e as Error).message}\n`);
+      err(`vaultbook render: printing the PDF failed: ${(e as Error).message}`);
       return 2;
     }
   }
@@ -119,6 +112,6 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
   const failing = verdicts.filter((v) => v === 'fail').length;
   say(`${verdicts.length} checks: ${verdicts.length - failing - verdicts.filter((v) => v === 'none').length} satisfied, ${failing} not satisfied`
     + `${errors ? `; ${errors} error${errors === 1 ? '' : 's'}: the sheet says so on its first page` : ''}`);
-  if (errors) return 2;
-  return failing ? 1 : 0;
+  // A failing check is content of the sheet, not a failure to render it.
+  return errors ? 2 : 0;
 }
