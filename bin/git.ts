@@ -124,13 +124,20 @@ export async function archiveInfo(file: string, bytes: Buffer): Promise<ArchiveI
 
 /**
  * Archive look-ups for one file, bounded: at most one git process in flight, shared by every
- * caller that asks meanwhile (a page loaded by 300 requests at once starts one git, not 600).
+ * caller that asks meanwhile, and its answer reused for `freshMs` after it arrives (a page loaded
+ * by 300 requests at once starts one or two git processes, not 600). Whether the bytes are dirty is
+ * decided per call from the bytes themselves, so an edit shows at once; a new commit within freshMs.
  * @example const archive = sharedArchive('calc.md'); await archive(bytes)
  */
-export function sharedArchive(file: string, lookup: (file: string) => Promise<HeadLookup | null> = lookupHead): (bytes: Buffer) => Promise<ArchiveInfo> {
+export function sharedArchive(file: string, lookup: (file: string) => Promise<HeadLookup | null> = lookupHead, freshMs = 1000, now: () => number = Date.now): (bytes: Buffer) => Promise<ArchiveInfo> {
   let inFlight: Promise<HeadLookup | null> | null = null;
+  let last: { head: HeadLookup | null; at: number } | null = null;
   return async (bytes) => {
-    inFlight ??= lookup(file).finally(() => { inFlight = null; });
+    if (last && now() - last.at < freshMs) return archiveOf(bytes, last.head);
+    inFlight ??= lookup(file).then((head) => {
+      last = { head, at: now() };
+      return head;
+    }).finally(() => { inFlight = null; });
     return archiveOf(bytes, await inFlight);
   };
 }

@@ -32,10 +32,31 @@ export class ChromiumMissingError extends Error {
   }
 }
 
+/** A PDF that could not be printed, with the reason in the user's words (no escape codes, no call log). */
+export class PdfError extends Error {
+  override name = 'PdfError';
+}
+
+/**
+ * How long printing a sheet may take: a minute, and 20 s more for every MB of HTML (a 5 MB calc
+ * makes a sheet of tens of MB and hundreds of pages).
+ * @param htmlBytes size of the standalone sheet
+ */
+export function pdfTimeLimitMs(htmlBytes: number): number {
+  return Math.round(60_000 + 20_000 * (htmlBytes / (1024 * 1024)));
+}
+
+/** A browser library's error as one plain sentence: no terminal colours, no call log, no API names. */
+export function plainReason(e: unknown): string {
+  const text = (e instanceof Error ? e.message : String(e)).replace(/\x1b\[[0-9;]*[A-Za-z]/g, '');
+  const first = text.split(/\n\s*(?:Call log:|=+ )/)[0]!.split('\n')[0]!.trim();
+  return first.replace(/^(?:[a-z]+\.)+[a-zA-Z]+: /, '').replace(/^Error: /, '') || 'the browser stopped';
+}
+
 export interface Printer {
   context: BrowserContext;
   /** Opens the HTML in a fresh page; every request other than data: and about: is refused. */
-  open(html: string): Promise<Page>;
+  open(html: string, timeoutMs?: number): Promise<Page>;
   close(): Promise<void>;
 }
 
@@ -56,9 +77,10 @@ export async function launchPrinter(executablePath = chromiumPath()): Promise<Pr
   });
   return {
     context,
-    async open(html: string) {
+    async open(html: string, timeoutMs = pdfTimeLimitMs(Buffer.byteLength(html))) {
       const page = await context.newPage();
-      await page.setContent(html, { waitUntil: 'load' });
+      page.setDefaultTimeout(timeoutMs);
+      await page.setContent(html, { waitUntil: 'load', timeout: timeoutMs });
       await page.evaluate(() => document.fonts.ready.then(() => undefined));
       return page;
     },
@@ -78,14 +100,31 @@ export async function launchPrinter(executablePath = chromiumPath()): Promise<Pr
  */
 export async function printPdf(html: string, outFile: string | null, printer?: Printer): Promise<Buffer> {
   const own = printer ?? await launchPrinter();
-  try {
-    const page = await own.open(html);
+  const bytes = Buffer.byteLength(html);
+  const limit = pdfTimeLimitMs(bytes);
+  let timer: NodeJS.Timeout | undefined;
+  const overtime = new Promise<never>((_, fail) => {
+    timer = setTimeout(() => fail(new PdfError(`printing took longer than ${Math.round(limit / 1000)} s, the limit for a sheet of ${(bytes / (1024 * 1024)).toFixed(1)} MB`)), limit);
+  });
+  const print = async () => {
+    const page = await own.open(html, limit);
     await page.emulateMedia({ media: 'print' });
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true, displayHeaderFooter: false, tagged: true });
     await page.close();
+    return pdf;
+  };
+  try {
+    const pdf = await Promise.race([print(), overtime]);
     if (outFile) await writeFile(outFile, pdf);
     return pdf;
+  } catch (e) {
+    if (e instanceof PdfError) throw e;
+    throw new PdfError(/timeout/i.test(String((e as Error).message)) && !/Target (page|closed)/.test(String((e as Error).message))
+      ? `printing took longer than ${Math.round(limit / 1000)} s, the limit for a sheet of ${(bytes / (1024 * 1024)).toFixed(1)} MB`
+      : plainReason(e));
   } finally {
-    if (!printer) await own.close();
+    clearTimeout(timer);
+    // Closing the browser also ends a print still running after the time limit.
+    if (!printer) await own.close().catch(() => undefined);
   }
 }

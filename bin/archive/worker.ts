@@ -1,11 +1,12 @@
 /**
- * One worker of the archive pool: reads and evaluates the files it is sent,
- * posting a FileReport for each. Never throws back at the pool: a file that
- * breaks the engine becomes an error report for that file.
+ * One worker of the archive pool, a child process: reads and evaluates the files it is sent, one
+ * at a time, saying which file it starts and sending a FileReport for each. Never throws back at
+ * the pool: a file that breaks the engine becomes an error report for that file. A file that ends
+ * the process itself (a V8 fatal error, the memory or time limit) is reported by the pool, which
+ * knows which file was running. The worker ends when the pool closes its channel.
  */
-import { parentPort } from 'node:worker_threads';
 import { loadAndEvaluate } from '../load.js';
-import { reportOf, failedReport } from './report.js';
+import { reportOf, failedReport, type FileReport } from './report.js';
 
 export interface Job {
   id: number;
@@ -14,15 +15,40 @@ export interface Job {
   full: boolean;
 }
 
-if (!parentPort) throw new Error('bin/archive/worker.ts must run in a worker thread');
-const port = parentPort;
+/** What a worker sends: once ready, then for each file when it starts it and its report. */
+export type WorkerMessage = { ready: true } | { started: number } | { id: number; report: FileReport };
 
-port.on('message', async (job: Job) => {
-  try {
-    const loaded = await loadAndEvaluate(job.file, job.overrides);
-    port.postMessage({ id: job.id, report: reportOf(loaded.summary, { full: job.full, unreadable: loaded.unreadable }) });
-  } catch (e) {
-    port.postMessage({ id: job.id, report: failedReport(job.file, `internal error while evaluating: ${(e as Error).message}`, job.full) });
+const send = process.send?.bind(process);
+if (!send) throw new Error('bin/archive/worker.ts must run as a child process with an IPC channel (child_process.fork)');
+const post = (msg: WorkerMessage) => new Promise<void>((ok) => send(msg, undefined, undefined, () => ok()));
+
+const queue: Job[] = [];
+let busy = false;
+
+async function drain(): Promise<void> {
+  busy = true;
+  for (let job = queue.shift(); job; job = queue.shift()) {
+    await post({ started: job.id });
+    let report: FileReport;
+    try {
+      const loaded = await loadAndEvaluate(job.file, job.overrides);
+      report = reportOf(loaded.summary, { full: job.full, unreadable: loaded.unreadable });
+    } catch (e) {
+      report = failedReport(job.file, `internal error while evaluating: ${(e as Error).message}`, job.full, 'eval/error');
+    }
+    try {
+      await post({ id: job.id, report });
+    } catch (e) {
+      // A summary the channel cannot carry (a value it cannot serialise) is that file's error.
+      await post({ id: job.id, report: failedReport(job.file, `internal error while reporting: ${(e as Error).message}`, job.full, 'eval/error') });
+    }
   }
+  busy = false;
+}
+
+process.on('message', (job: Job) => {
+  queue.push(job);
+  if (!busy) void drain();
 });
-port.postMessage({ ready: true });
+process.on('disconnect', () => process.exit(0));
+void post({ ready: true });

@@ -10,6 +10,7 @@ import { parse, readOverrides, SET_OPTION, JSON_OPTION, UsageError } from '../ar
 import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
+import { summariesJson } from '../archive/report.js';
 
 export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string }): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
@@ -38,8 +39,9 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
   const results: Loaded[] = [];
   for (const file of expanded.files) results.push(await loadAndEvaluate(file, overrides));
   if (values.json) {
-    out(JSON.stringify(results.length === 1 ? results[0]!.summary : results.map((r) => r.summary), null, 2));
-    return exitCodeFor(results);
+    const { text, failures } = summariesJson(results.map((r) => r.summary), results.length !== 1);
+    out(text);
+    return failures > 0 ? 2 : exitCodeFor(results);
   }
   for (const r of results) {
     const s = r.summary;

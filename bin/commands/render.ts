@@ -19,7 +19,7 @@ import { parse, readOverrides, SET_OPTION, UsageError } from '../args.js';
 import { DocumentError, readDocument } from '../document.js';
 import { archiveInfo } from '../git.js';
 import { noCellsDiagnostic } from '../load.js';
-import { ChromiumMissingError, printPdf } from '../pdf.js';
+import { ChromiumMissingError, PdfError, plainReason, printPdf } from '../pdf.js';
 
 export { archiveInfo };
 
@@ -103,7 +103,9 @@ export async function renderCommand(args: string[], out: (s: string) => void, er
         err(`vaultbook render: ${e.message}`);
         return 2;
       }
-      err(`vaultbook render: printing the PDF failed: ${(e as Error).message}`);
+      // Plain words only (PdfError); the HTML sheet, when asked for, is already written.
+      err(`vaultbook render: the PDF was not written: ${e instanceof PdfError ? e.message : plainReason(e)}`
+        + `${htmlPath && htmlPath !== '-' ? `; the HTML sheet ${htmlPath} was written and prints from any browser` : ''}`);
       return 2;
     }
   }
