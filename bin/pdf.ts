@@ -95,16 +95,18 @@ export async function launchPrinter(executablePath = chromiumPath()): Promise<Pr
  * Prints a standalone sheet to a PDF file (A4 and margins from the sheet's @page rules).
  * @param html the standalone sheet
  * @param outFile where to write the PDF
- * @returns the PDF's bytes
+ * @param timeLimitMs how long it may take (default pdfTimeLimitMs of the sheet's size)
+ * @returns the PDF's bytes; throws PdfError in plain words when it cannot be printed in time
  * @example await printPdf(html, 'calc.pdf')
  */
-export async function printPdf(html: string, outFile: string | null, printer?: Printer): Promise<Buffer> {
+export async function printPdf(html: string, outFile: string | null, printer?: Printer, timeLimitMs?: number): Promise<Buffer> {
   const own = printer ?? await launchPrinter();
   const bytes = Buffer.byteLength(html);
-  const limit = pdfTimeLimitMs(bytes);
+  const limit = timeLimitMs ?? pdfTimeLimitMs(bytes);
+  const tooLong = () => `printing took longer than ${limit < 10_000 ? (limit / 1000).toFixed(1) : Math.round(limit / 1000)} s, the limit for a sheet of ${(bytes / (1024 * 1024)).toFixed(1)} MB`;
   let timer: NodeJS.Timeout | undefined;
   const overtime = new Promise<never>((_, fail) => {
-    timer = setTimeout(() => fail(new PdfError(`printing took longer than ${Math.round(limit / 1000)} s, the limit for a sheet of ${(bytes / (1024 * 1024)).toFixed(1)} MB`)), limit);
+    timer = setTimeout(() => fail(new PdfError(tooLong())), limit);
   });
   const print = async () => {
     const page = await own.open(html, limit);
@@ -114,14 +116,15 @@ export async function printPdf(html: string, outFile: string | null, printer?: P
     return pdf;
   };
   try {
-    const pdf = await Promise.race([print(), overtime]);
+    const printing = print();
+    // Past the time limit the print is abandoned (the browser closes below); its end is not news.
+    printing.catch(() => undefined);
+    const pdf = await Promise.race([printing, overtime]);
     if (outFile) await writeFile(outFile, pdf);
     return pdf;
   } catch (e) {
     if (e instanceof PdfError) throw e;
-    throw new PdfError(/timeout/i.test(String((e as Error).message)) && !/Target (page|closed)/.test(String((e as Error).message))
-      ? `printing took longer than ${Math.round(limit / 1000)} s, the limit for a sheet of ${(bytes / (1024 * 1024)).toFixed(1)} MB`
-      : plainReason(e));
+    throw new PdfError(/timeout/i.test(String((e as Error).message)) ? tooLong() : plainReason(e));
   } finally {
     clearTimeout(timer);
     // Closing the browser also ends a print still running after the time limit.

@@ -207,8 +207,11 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
         finishIfDone();
       };
       worker.on('error', (e) => end(e.message));
-      // 'close' comes after the error output is read to its end.
-      worker.on('close', (code, signal) => end(complaint(stderr) ?? (signal ? `signal ${signal}` : `exit code ${code}`)));
+      // 'close' comes once the error output is read to its end, unless a process the worker started
+      // (a TypeScript loader's helper) still holds it open: then the exit, and a moment for the rest.
+      const gone = (code: number | null, signal: NodeJS.Signals | null) => end(complaint(stderr) ?? (signal ? `signal ${signal}` : `exit code ${code}`));
+      worker.on('close', gone);
+      worker.on('exit', (code, signal) => { setTimeout(() => gone(code, signal), 200).unref(); });
     };
 
     // The main thread works through the queue; between files it lets worker messages in.

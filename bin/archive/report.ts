@@ -1,6 +1,6 @@
 /**
  * FileReport: what one evaluated file contributes to an archive check. Small
- * enough to post from a worker thread for each of thousands of files.
+ * enough to send from a worker process for each of thousands of files.
  */
 import type { Diagnostic, Summary } from '../../engine/index.js';
 import type { CheckEntry } from '../../engine/summary.js';

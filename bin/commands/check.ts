@@ -3,7 +3,7 @@
  * Exit 0 when all hold, 1 when any fails, 2 on any error or unreadable file.
  *
  * One file prints each verdict; several files (a firm's archive) are evaluated
- * on worker threads and summed up in one table.
+ * in worker processes, each file on its own, and summed up in one table.
  */
 import { formatDiagnostic, formatNumber } from '../../engine/index.js';
 import { parse, readOverrides, SET_OPTION, JSON_OPTION, UsageError } from '../args.js';
@@ -27,11 +27,11 @@ export function exitCodeFor(results: Loaded[]): number {
 
 export async function checkCommand(args: string[], out: (s: string) => void): Promise<number> {
   const { values, positionals } = parse(args, { ...SET_OPTION, ...JSON_OPTION, jobs: { type: 'string', short: 'j' } });
-  // --jobs counts every thread that evaluates files, the main thread included.
+  // --jobs counts the worker processes that evaluate files at once.
   if (positionals.length === 0) throw new UsageError('check needs at least one FILE');
   const overrides = readOverrides(values.set as string[] | undefined);
   const jobs = values.jobs === undefined ? undefined : Number(values.jobs);
-  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) throw new UsageError(`--jobs expects a whole number of worker threads, got "${values.jobs}"`);
+  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) throw new UsageError(`--jobs expects a whole number of worker processes, got "${values.jobs}"`);
   const expanded = await expandPatterns(positionals);
   if (expanded.files.length !== 1 || expanded.unmatched.length > 0) {
     return archiveCheck(expanded, { overrides, json: Boolean(values.json), jobs, out });

@@ -144,7 +144,7 @@ describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
     expect(table.join('\n')).toMatch(/also-dies-here\.md\s+0\s+0\s+1\s+—\s+ERRORS/);
   });
 
-  it('check FOLDER prints one table row per file and the totals (exit 2 with a planted error)', async () => {
+  it('check FOLDER prints one table row per file and the totals (exit 2 with a planted error)', { timeout: 120_000 }, async () => {
     const r = await run(`${dir}/archive/block-00`);
     const n = Math.min(100, COUNT);
     const rows = r.out.split('\n').filter((l) => /pier-\d{4}\.md\s+\d/.test(l));
@@ -159,7 +159,7 @@ describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
     expect(r.code).toBe(2);
   });
 
-  it('check GLOB missing.md --json prints every summary; a missing file or an empty pattern is an error (exit 2)', async () => {
+  it('check GLOB missing.md --json prints every summary; a missing file or an empty pattern is an error (exit 2)', { timeout: 120_000 }, async () => {
     const missing = join(dir, 'missing.md');
     const r = await run(`${dir}/archive/block-00/pier-001?.md`, missing, `${dir}/nowhere/*.md`, '--json');
     const summaries = JSON.parse(r.out) as Summary[];
@@ -172,7 +172,7 @@ describe(`vaultbook check over an archive of ${COUNT} generated calcs`, () => {
     expect(r.code).toBe(2);
   });
 
-  it('check over files that all hold exits 0; one failing check makes it 1', async () => {
+  it('check over files that all hold exits 0; one failing check makes it 1', { timeout: 120_000 }, async () => {
     const ok = await run(join(dir, 'archive/block-00/pier-0000.md'), join(dir, 'archive/block-00/pier-0001.md'));
     expect(ok.code).toBe(0);
     expect(ok.out).toMatch(/^2 files: 4 checks, 4 hold, 0 fail/m);
