@@ -37,10 +37,10 @@ export class DocumentError extends Error {
 const OPEN_FLAGS = constants.O_RDONLY | constants.O_NONBLOCK | constants.O_NOCTTY;
 
 function megabytes(n: number): string {
-  return `${(n / (1024 * 1024)).toFixed(n < 10 * 1024 * 1024 ? 1 : 0)} MB`;
+  return `${(n / (1024 * 1024)).toFixed(1)} MB`;
 }
 
-const LIMIT_TEXT = `the ${megabytes(MAX_DOCUMENT_BYTES)} limit for a calc document`;
+const LIMIT_TEXT = `the ${MAX_DOCUMENT_BYTES / (1024 * 1024)} MB limit for a calc document`;
 
 /** Why a file of this kind is not read, or null for a regular file within the limit. */
 function refusal(info: Stats): string | null {

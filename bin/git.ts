@@ -94,7 +94,7 @@ export async function lookupHead(file: string): Promise<HeadLookup | null> {
   const cwd = dirname(file);
   let out: string;
   try {
-    out = (await runGit(['rev-parse', '--show-object-format', 'HEAD', '--end-of-options', `HEAD:./${basename(file)}`], cwd)).toString('utf8');
+    out = (await runGit(['rev-parse', '--show-object-format', 'HEAD', `HEAD:./${basename(file)}`], cwd)).toString('utf8');
   } catch {
     // Not a repository, no commit yet, or the file is not committed at HEAD: ask for HEAD alone.
     const head = await runGit(['rev-parse', '--show-object-format', 'HEAD'], cwd).catch(() => null);

@@ -50,7 +50,7 @@ export function pdfTimeLimitMs(htmlBytes: number): number {
 export function plainReason(e: unknown): string {
   const text = (e instanceof Error ? e.message : String(e)).replace(/\x1b\[[0-9;]*[A-Za-z]/g, '');
   const first = text.split(/\n\s*(?:Call log:|=+ )/)[0]!.split('\n')[0]!.trim();
-  return first.replace(/^(?:[a-z]+\.)+[a-zA-Z]+: /, '').replace(/^Error: /, '') || 'the browser stopped';
+  return first.replace(/^(?:[a-zA-Z]+\.)+[a-zA-Z]+: /, '').replace(/^Error: /, '') || 'the browser stopped';
 }
 
 export interface Printer {
