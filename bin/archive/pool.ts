@@ -156,6 +156,11 @@ export function evaluateArchive(files: string[], options: ArchiveOptions = {}): 
       if (!exitHookInstalled) {
         exitHookInstalled = true;
         process.on('exit', killAllWorkers);
+        // Ctrl-C reaches the workers too (one process group); a SIGTERM or SIGHUP sent to this process alone
+        // would leave them running, so they are stopped first (only when nobody else handles the signal).
+        for (const signal of ['SIGTERM', 'SIGHUP'] as const) {
+          if (process.listenerCount(signal) === 0) process.once(signal, () => { killAllWorkers(); process.exit(128 + (signal === 'SIGTERM' ? 15 : 1)); });
+        }
       }
       started++;
       let ready = false;
