@@ -30,7 +30,16 @@ export async function serveCommand(args: string[], out: (s: string) => void, err
     err(formatDiagnostic(e.toDiagnostic()));
     return 2;
   }
-  const server = await startServer({ file, port, strictPort: port !== undefined && port !== 0 });
+  let server;
+  try {
+    server = await startServer({ file, port, strictPort: port !== undefined && port !== 0 });
+  } catch (e) {
+    if (e instanceof DocumentError) { err(formatDiagnostic(e.toDiagnostic())); return 2; }
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code !== 'EADDRINUSE' && !/already in use/i.test((e as Error).message)) throw e;
+    err(`vaultbook serve: port ${port} on 127.0.0.1 is taken by another program; choose another with --port, or --port 0 for any free one`);
+    return 2;
+  }
   out(`vaultbook serve: ${file} at ${server.url}  (127.0.0.1 only; Ctrl-C stops)`);
   await untilStopped();
   await server.close();
