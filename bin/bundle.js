@@ -87,7 +87,7 @@ export async function buildBundle() {
   // esbuild is loaded only when a build is needed, not on every start.
   const { build } = await import('esbuild');
   await build({
-    // The command line and its worker threads, each a file of its own (bin/worker-url.ts finds
+    // The command line and its workers, each a file of its own (bin/worker-url.ts finds
     // them in the folder named by __VAULTBOOK_BUNDLE__).
     entryPoints: {
       cli: join(root, 'bin', 'cli.ts'),

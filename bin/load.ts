@@ -1,8 +1,8 @@
 /**
  * Reads and evaluates a calc file for a command; unreadable files become diagnostics, not crashes.
  */
-import { readFile } from 'node:fs/promises';
-import { evaluateDocument, type Summary } from '../engine/index.js';
+import { evaluateDocument, type CompiledDocument, type Diagnostic, type Summary } from '../engine/index.js';
+import { DocumentError, readDocument } from './document.js';
 import { casePool } from './archive/cases.js';
 
 export interface Loaded {
@@ -19,20 +19,35 @@ export interface LoadOptions {
   caseJobs?: number;
 }
 
+/** A summary holding one diagnostic and nothing else. */
+export function summaryOfProblem(file: string, diagnostic: Diagnostic): Summary {
+  return { file, meta: {}, values: {}, checks: [], diagnostics: [diagnostic] };
+}
+
+/**
+ * The error for a document with nothing to evaluate (no statement in any cell), or null.
+ * An empty file or one of prose alone would otherwise pass `check` and render a blank signed sheet.
+ */
+export function noCellsDiagnostic(doc: CompiledDocument): Diagnostic | null {
+  if (doc.graph.cells.length > 0 || doc.graph.unparsed.length > 0) return null;
+  return {
+    message: 'no cells found: the document has no ```given, ```calc, ```check or ```figure cell with a statement, so there is nothing to evaluate or check',
+    file: doc.file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null, ruleId: 'doc/no-cells', severity: 'error',
+  };
+}
+
 export async function loadAndEvaluate(file: string, overrides: Record<string, string>, options: LoadOptions = {}): Promise<Loaded> {
   let text: string;
   try {
-    text = await readFile(file, 'utf8');
+    ({ text } = await readDocument(file));
   } catch (e) {
-    const reason = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
-    const diagnostic = {
-      message: `cannot read ${file}: ${reason}`, file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null,
-      ruleId: 'io/read' as const, severity: 'error' as const, cell: null,
-    };
-    return { file, unreadable: reason, summary: { file, meta: {}, values: {}, checks: [], diagnostics: [diagnostic] } };
+    if (!(e instanceof DocumentError)) throw e;
+    return { file, unreadable: e.reason, summary: summaryOfProblem(file, e.toDiagnostic()) };
   }
   const caseRunner = options.caseJobs && options.caseJobs > 1 ? casePool(text, file, overrides, { jobs: options.caseJobs }) : undefined;
-  const { summary } = await evaluateDocument(text, { file, overrides, ...(options.case !== undefined ? { case: options.case } : {}), ...(caseRunner ? { caseRunner } : {}) });
+  const { doc, summary } = await evaluateDocument(text, { file, overrides, ...(options.case !== undefined ? { case: options.case } : {}), ...(caseRunner ? { caseRunner } : {}) });
+  const empty = noCellsDiagnostic(doc);
+  if (empty) summary.diagnostics.unshift(empty);
   return { file, summary };
 }
 

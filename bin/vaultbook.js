@@ -12,6 +12,19 @@ import { setFlagsFromString } from 'node:v8';
 // (Repeated cold renders of the largest template: CPU 1.5 → 1.07 s, wall 1.02 → 0.89 s.)
 setFlagsFromString('--interrupt-budget=1081344');
 
+// A reader that stops early (`vaultbook eval calc.md | head -2`) closes the pipe: the rest of the
+// output is dropped quietly and the command ends with its own exit code, without a stack trace.
+for (const stream of [process.stdout, process.stderr]) {
+  stream.on('error', (e) => {
+    if (e.code !== 'EPIPE') throw e;
+    stream.write = (_chunk, encoding, callback) => {
+      const done = typeof encoding === 'function' ? encoding : callback;
+      if (typeof done === 'function') queueMicrotask(done);
+      return true;
+    };
+  });
+}
+
 const argv = process.argv.slice(2);
 let main;
 let saveCodeCache = () => {};

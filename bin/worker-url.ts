@@ -1,5 +1,5 @@
 /**
- * workerUrl: where a worker thread's code is. Run from the sources (tsx, vitest), a worker starts
+ * workerUrl: where a worker's code is (a thread's or a child process's). Run from the sources (tsx, vitest), a worker starts
  * from a small .js entry beside its TypeScript that registers tsx first; run from the command
  * bundle, bin/bundle.js builds each worker as its own file and names the bundle's folder in
  * __VAULTBOOK_BUNDLE__.

@@ -10,7 +10,8 @@ export type RuleId =
   | 'value/type' | 'eval/error' | 'sandbox/refused' | 'set/unknown-input' | 'set/syntax' | 'io/read'
   | 'cases/syntax' | 'cases/unknown-input' | 'cases/dimension' | 'cases/empty-family' | 'cases/duplicate' | 'cases/limit' | 'cases/unknown-case'
   | 'explain/unknown-name'
-  | 'sandbox/limit';
+  | 'sandbox/limit'
+  | 'io/not-text' | 'doc/no-cells';
 
 export interface Diagnostic {
   message: string;

@@ -5,9 +5,9 @@
 import { formatDiagnostic, formatUtilization } from '../../engine/index.js';
 import { table } from '../table.js';
 import type { Expansion } from './glob.js';
-import { evaluateArchive } from './pool.js';
+import { evaluateArchive, type ArchiveOptions } from './pool.js';
 import { progressBar, type ProgressStream } from './progress.js';
-import { failedReport, type FileReport } from './report.js';
+import { failedReport, summariesJson, type FileReport } from './report.js';
 
 export interface ArchiveCheckOptions {
   overrides: Record<string, string>;
@@ -16,6 +16,8 @@ export interface ArchiveCheckOptions {
   out: (s: string) => void;
   /** Where the progress bar goes (default process.stderr; drawn only on a terminal). */
   progress?: ProgressStream;
+  /** The worker pool's limits and code (tests set these). */
+  pool?: Pick<ArchiveOptions, 'workerEntry' | 'fileTimeoutMs' | 'workerMemoryMb'>;
 }
 
 /** 0 when every check holds, 1 when any fails, 2 when any file has an error or could not be read. */
@@ -42,7 +44,7 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
   const tally = { fails: 0, errors: 0 };
   const started = Date.now();
   const { reports, workerFailure } = await evaluateArchive(expanded.files, {
-    overrides: options.overrides, jobs: options.jobs, full: options.json,
+    ...options.pool, overrides: options.overrides, jobs: options.jobs, full: options.json,
     onReport: (r, done, total) => {
       if (r.fails > 0) tally.fails++;
       if (r.errors > 0) tally.errors++;
@@ -50,11 +52,12 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
     },
   });
   bar.finish();
-  if (workerFailure !== undefined) process.stderr.write(`vaultbook check: note: worker threads could not start (${workerFailure}); the files were checked on the main thread alone\n`);
+  if (workerFailure !== undefined) process.stderr.write(`vaultbook check: note: worker processes could not start (${workerFailure}); the files were checked in this process alone, so one file that crashes it ends the run\n`);
   for (const pattern of expanded.unmatched) reports.push(failedReport(pattern, `no file matches ${pattern}`, options.json));
   if (options.json) {
-    out(JSON.stringify(reports.map((r) => r.summary), null, 2));
-    return archiveExitCode(reports);
+    const { text, failures } = summariesJson(reports.map((r) => r.summary!));
+    out(text);
+    return failures > 0 ? 2 : archiveExitCode(reports);
   }
 
   const rows = reports.map((r) => [

@@ -1,6 +1,6 @@
 /**
  * FileReport: what one evaluated file contributes to an archive check. Small
- * enough to post from a worker thread for each of thousands of files.
+ * enough to send from a worker process for each of thousands of files.
  */
 import type { Diagnostic, Summary } from '../../engine/index.js';
 import type { CheckEntry } from '../../engine/summary.js';
@@ -62,10 +62,37 @@ export function reportOf(summary: Summary, options: { full: boolean; unreadable?
   };
 }
 
-/** A report for a file that could not be evaluated at all (worker crash, unmatched pattern). */
-export function failedReport(file: string, message: string, full: boolean): FileReport {
+/**
+ * A report for a file that could not be evaluated at all: unreadable or an unmatched pattern
+ * ('io/read'), or stopped while evaluating (a worker that died or ran past the time limit, 'eval/error').
+ */
+export function failedReport(file: string, message: string, full: boolean, ruleId: 'io/read' | 'eval/error' = 'io/read'): FileReport {
   const diagnostic: Diagnostic = {
-    message, file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null, ruleId: 'io/read', severity: 'error',
+    message, file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null, ruleId, severity: 'error',
   };
-  return reportOf({ file, meta: {}, values: {}, checks: [], diagnostics: [diagnostic] }, { full, unreadable: message });
+  return reportOf({ file, meta: {}, values: {}, checks: [], diagnostics: [diagnostic] }, { full, ...(ruleId === 'io/read' ? { unreadable: message } : {}) });
+}
+
+/**
+ * Summaries as JSON, each written on its own: a summary that cannot be written (a value JSON
+ * cannot hold) is replaced by one with that error, so one file never stops the others being written.
+ * @returns the text (one summary, or a list when `list`) and how many summaries were replaced
+ * @example const {text, failures} = summariesJson([summary], false)
+ */
+export function summariesJson(summaries: Summary[], list = true): { text: string; failures: number } {
+  let failures = 0;
+  const parts = summaries.map((summary) => {
+    try {
+      return JSON.stringify(summary, null, 2);
+    } catch (e) {
+      failures++;
+      const diagnostic: Diagnostic = {
+        message: `the results of this file cannot be written as JSON (${(e as Error).message.split('\n')[0]}); nothing of it is reported`,
+        file: summary.file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null, ruleId: 'eval/error', severity: 'error',
+      };
+      return JSON.stringify({ file: String(summary.file), meta: {}, values: {}, checks: [], diagnostics: [diagnostic] }, null, 2);
+    }
+  });
+  if (!list) return { text: parts.join('\n'), failures };
+  return { text: parts.length === 0 ? '[]' : `[\n${parts.map((p) => p.replace(/^/gm, '  ')).join(',\n')}\n]`, failures };
 }

@@ -1,4 +1,4 @@
-// Worker entry: worker threads do not inherit the tsx loader, so register it
+// Worker entry: a worker process started from the sources has no TypeScript loader, so register it
 // here (resolved from this repository, whatever the current folder) before
 // loading the TypeScript worker.
 import { register } from 'tsx/esm/api';

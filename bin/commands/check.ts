@@ -3,7 +3,7 @@
  * Exit 0 when all hold, 1 when any fails, 2 on any error or unreadable file.
  *
  * One file prints each verdict; several files (a firm's archive) are evaluated
- * on worker threads and summed up in one table.
+ * in worker processes, each file on its own, and summed up in one table.
  */
 import { formatDiagnostic, formatUtilization } from '../../engine/index.js';
 import { parse, readOverrides, SET_OPTION, JSON_OPTION, CASE_OPTION, UsageError } from '../args.js';
@@ -12,6 +12,7 @@ import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
 import type { CheckEntry } from '../../engine/summary.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
+import { summariesJson } from '../archive/report.js';
 
 export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; reason?: string }, withCases = false): string {
   const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
@@ -29,11 +30,11 @@ export function exitCodeFor(results: Loaded[]): number {
 
 export async function checkCommand(args: string[], out: (s: string) => void): Promise<number> {
   const { values, positionals } = parse(args, { ...SET_OPTION, ...JSON_OPTION, ...CASE_OPTION, jobs: { type: 'string', short: 'j' } });
-  // --jobs counts every thread that evaluates files, the main thread included.
+  // --jobs counts the worker processes that evaluate files at once (and the threads for a large family of cases).
   if (positionals.length === 0) throw new UsageError('check needs at least one FILE');
   const overrides = readOverrides(values.set as string[] | undefined);
   const jobs = values.jobs === undefined ? undefined : Number(values.jobs);
-  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) throw new UsageError(`--jobs expects a whole number of worker threads, got "${values.jobs}"`);
+  if (jobs !== undefined && !(Number.isInteger(jobs) && jobs >= 1)) throw new UsageError(`--jobs expects a whole number of worker processes, got "${values.jobs}"`);
   const expanded = await expandPatterns(positionals);
   if (values.case !== undefined && (expanded.files.length !== 1 || expanded.unmatched.length > 0)) throw new UsageError('--case applies to one FILE');
   if (expanded.files.length !== 1 || expanded.unmatched.length > 0) {
@@ -43,8 +44,9 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
   const caseOptions = { ...(values.case !== undefined ? { case: values.case as string } : {}), caseJobs: jobs ?? availableParallelism() };
   for (const file of expanded.files) results.push(await loadAndEvaluate(file, overrides, caseOptions));
   if (values.json) {
-    out(JSON.stringify(results.length === 1 ? results[0]!.summary : results.map((r) => r.summary), null, 2));
-    return exitCodeFor(results);
+    const { text, failures } = summariesJson(results.map((r) => r.summary), results.length !== 1);
+    out(text);
+    return failures > 0 ? 2 : exitCodeFor(results);
   }
   for (const r of results) {
     const s = r.summary;

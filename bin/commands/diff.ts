@@ -5,44 +5,34 @@
  * Exit 0 normally, 1 when a check fails that did not before, 2 when a version
  * cannot be read or the new version has errors.
  */
-import { readFile } from 'node:fs/promises';
-import { execFile } from 'node:child_process';
-import { basename, dirname } from 'node:path';
 import { evaluateDocument } from '../../engine/index.js';
 import { parse, JSON_OPTION, UsageError } from '../args.js';
 import { definitionsOf, diffDocuments, diffExitCode, type DiffInput } from '../diff/document.js';
 import { formatDiff } from '../diff/format.js';
+import { decodeDocument, DocumentError, readDocument } from '../document.js';
+import { GitError, readAtRevision, revisionProblem } from '../git.js';
 
 class Unreadable extends Error {}
 
-/** Runs git in `cwd` and returns stdout; failures become Unreadable with git's own words. */
-function git(args: string[], cwd: string): Promise<string> {
-  return new Promise((resolve, reject) => {
-    execFile('git', args, { cwd, maxBuffer: 64 * 1024 * 1024, encoding: 'utf8' }, (error, stdout, stderr) => {
-      if (error) {
-        const why = (stderr || error.message).trim().split('\n')[0];
-        reject(new Unreadable(`git ${args.join(' ')}: ${why}`));
-      } else resolve(stdout);
-    });
-  });
-}
-
 /**
- * The text of `file` as committed at `rev`: `git show REV:path`, the path taken
- * relative to the repository root from the file's own folder, so it works from anywhere.
+ * The text of `file` as committed at `rev` (see bin/git.ts: nothing the repository configures
+ * runs, and the revision can never be read as an option).
  */
-export async function readAtRevision(file: string, rev: string): Promise<string> {
-  const dir = dirname(file);
-  const prefix = (await git(['rev-parse', '--show-prefix'], dir)).trim();
-  return git(['show', `${rev}:${prefix}${basename(file)}`], dir);
+async function readRevisionText(file: string, rev: string): Promise<string> {
+  try {
+    return decodeDocument(`${file}@${rev}`, await readAtRevision(file, rev));
+  } catch (e) {
+    if (e instanceof GitError || e instanceof DocumentError) throw new Unreadable(e instanceof GitError ? `git: ${e.message}` : e.message);
+    throw e;
+  }
 }
 
 async function readText(file: string): Promise<string> {
   try {
-    return await readFile(file, 'utf8');
+    return (await readDocument(file)).text;
   } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    throw new Unreadable(`cannot read ${file}: ${code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+    if (e instanceof DocumentError) throw new Unreadable(e.message);
+    throw e;
   }
 }
 
@@ -54,6 +44,8 @@ async function evaluateVersion(label: string, text: string): Promise<DiffInput> 
 export async function diffCommand(args: string[], out: (s: string) => void, err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {
   const { values, positionals } = parse(args, { ...JSON_OPTION, rev: { type: 'string', short: 'r' }, tol: { type: 'string' } });
   const rev = values.rev as string | undefined;
+  const revProblem = rev === undefined ? null : revisionProblem(rev);
+  if (revProblem) throw new UsageError(`--rev: ${revProblem}`);
   if (rev !== undefined ? positionals.length !== 1 : positionals.length !== 2) {
     throw new UsageError(rev !== undefined ? 'diff --rev REV takes exactly one FILE' : 'diff takes OLD and NEW files (or one FILE with --rev REV)');
   }
@@ -63,7 +55,7 @@ export async function diffCommand(args: string[], out: (s: string) => void, err:
   try {
     if (rev !== undefined) {
       const file = positionals[0]!;
-      const [oldText, newText] = await Promise.all([readAtRevision(file, rev), readText(file)]);
+      const [oldText, newText] = await Promise.all([readRevisionText(file, rev), readText(file)]);
       a = await evaluateVersion(`${file}@${rev}`, oldText);
       b = await evaluateVersion(file, newText);
     } else {

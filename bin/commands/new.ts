@@ -3,12 +3,13 @@
  * Without a TEMPLATE (or with an unknown one) it lists the templates and their
  * titles. It never overwrites: an existing FILE is refused (exit 2).
  */
-import { readdir, readFile, writeFile } from 'node:fs/promises';
+import { readdir, writeFile } from 'node:fs/promises';
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
 import { parseDocument } from 'yaml';
 import { parse, UsageError } from '../args.js';
 import { table } from '../table.js';
+import { DocumentError, readDocument } from '../document.js';
 
 export interface TemplateInfo {
   /** The name to type: the file name without `.md`. */
@@ -35,7 +36,9 @@ export async function listTemplates(dir: string = TEMPLATE_DIR): Promise<Templat
   const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => n.endsWith('.md')).sort();
   return Promise.all(names.map(async (n) => {
     const path = join(dir, n);
-    return { name: n.slice(0, -3), path, title: titleOf(await readFile(path, 'utf8')) };
+    // A template that cannot be read (a link to a pipe, not text, too large) lists with no title.
+    const text = await readDocument(path).then((d) => d.text, () => '');
+    return { name: n.slice(0, -3), path, title: titleOf(text) };
   }));
 }
 
@@ -65,7 +68,14 @@ export function makeNewCommand(dir: string) {
     }
     if (positionals.length !== 2) throw new UsageError('new takes a TEMPLATE and the FILE to create');
     const file = positionals[1]!;
-    const text = await readFile(template.path, 'utf8');
+    let text: string;
+    try {
+      ({ text } = await readDocument(template.path));
+    } catch (e) {
+      if (!(e instanceof DocumentError)) throw e;
+      err(`vaultbook new: template ${template.name}: ${e.message}`);
+      return 2;
+    }
     try {
       // 'wx' fails if the file exists: an engineer's calc is never overwritten.
       await writeFile(file, text, { flag: 'wx' });

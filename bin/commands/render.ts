@@ -4,24 +4,25 @@
  *
  * Output: `-o OUT.html` (or `-o -` for stdout); without -o the HTML goes next to
  * FILE as <name>.html, unless only --pdf was asked for, in which case only
- * the PDF is written. Exit 0 when every check holds, 1 when a check is not
- * satisfied, 2 when the document has errors (the sheet is still written and
- * says so), cannot be read, or the PDF cannot be printed.
+ * the PDF is written. Exit 0 when the sheet is written, whatever its checks say
+ * (a failing check is content of the sheet); 2 when the document has errors (the
+ * sheet is still written and says so on its first page), cannot be read, has no
+ * cells (no sheet is written), or the PDF cannot be printed.
  */
-import { createHash } from 'node:crypto';
-import { execFile } from 'node:child_process';
-import { readFile, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { basename, dirname, join } from 'node:path';
-import { promisify } from 'node:util';
-import { evaluateDocument, type CompiledDocument, type CellState, type Diagnostic, type Summary } from '../../engine/index.js';
+import { compile, evaluateDocument, formatDiagnostic, type CompiledDocument, type CellState, type Diagnostic, type Summary } from '../../engine/index.js';
 import { renderSheet, type ArchiveInfo } from '../../engine/render/index.js';
 import { explainDocument } from '../../engine/drivers/index.js';
 import { parse, readOverrides, SET_OPTION, CASE_OPTION, UsageError } from '../args.js';
-import { ChromiumMissingError, printPdf } from '../pdf.js';
+import { DocumentError, readDocument } from '../document.js';
+import { archiveInfo } from '../git.js';
+import { noCellsDiagnostic } from '../load.js';
+import { ChromiumMissingError, PdfError, plainReason, printPdf } from '../pdf.js';
 
-const run = promisify(execFile);
+export { archiveInfo };
 
 let katexCss: string | null = null;
 
@@ -42,25 +43,6 @@ export function loadKatexCss(): string {
   return katexCss;
 }
 
-/**
- * The archive identification of a file: SHA-256 of its bytes, and the git commit and
- * whether the file differs from it, when it is inside a repository (failing soft).
- */
-export async function archiveInfo(file: string, bytes: Buffer): Promise<ArchiveInfo> {
-  const hash = createHash('sha256').update(bytes).digest('hex');
-  const cwd = dirname(file);
-  try {
-    const opts = { cwd, timeout: 5000 };
-    const [{ stdout: head }, { stdout: status }] = await Promise.all([
-      run('git', ['rev-parse', 'HEAD'], opts),
-      run('git', ['status', '--porcelain', '--', basename(file)], opts),
-    ]);
-    return { hash, commit: head.trim(), dirty: status.trim() !== '' };
-  } catch {
-    return { hash };
-  }
-}
-
 /** The HTML path: -o, else FILE with .html in place of its extension. */
 export function defaultHtmlPath(file: string): string {
   const name = basename(file).replace(/\.(md|markdown|txt)$/i, '');
@@ -78,23 +60,28 @@ export async function renderDocument(source: string, file: string, overrides: Re
   return { html, doc, states, warnings, summary };
 }
 
-export async function renderCommand(args: string[], out: (s: string) => void): Promise<number> {
+export async function renderCommand(args: string[], out: (s: string) => void, err: (s: string) => void = (s) => process.stderr.write(`${s}\n`)): Promise<number> {
   const { values, positionals } = parse(args, { ...SET_OPTION, ...CASE_OPTION, output: { type: 'string', short: 'o' }, pdf: { type: 'string' }, drivers: { type: 'boolean' } });
   if (positionals.length !== 1) throw new UsageError('render takes exactly one FILE');
   const file = positionals[0]!;
   const overrides = readOverrides(values.set as string[] | undefined);
-  let bytes: Buffer;
+  let read: { bytes: Buffer; text: string };
   try {
-    bytes = await readFile(file);
+    read = await readDocument(file);
   } catch (e) {
-    const reason = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
-    process.stderr.write(`vaultbook render: cannot read ${file}: ${reason}\n`);
+    if (!(e instanceof DocumentError)) throw e;
+    err(formatDiagnostic(e.toDiagnostic()));
     return 2;
   }
-  const { html, summary } = await renderDocument(bytes.toString('utf8'), file, overrides, archiveInfo(file, bytes), values.case as string | undefined, Boolean(values.drivers));
+  const empty = noCellsDiagnostic(compile(read.text, { file, overrides }));
+  if (empty) {
+    err(`${formatDiagnostic(empty)}\n  no sheet was written`);
+    return 2;
+  }
+  const { html, summary } = await renderDocument(read.text, file, overrides, archiveInfo(file, read.bytes), values.case as string | undefined, Boolean(values.drivers));
   const htmlPath = values.output as string | undefined ?? (values.pdf ? null : defaultHtmlPath(file));
   // With the sheet on stdout, messages go to stderr so the HTML stays clean.
-  const say = htmlPath === '-' ? (s: string) => { process.stderr.write(`${s}\n`); } : out;
+  const say = htmlPath === '-' ? err : out;
   if (htmlPath === '-') process.stdout.write(html);
   else if (htmlPath) {
     await writeFile(htmlPath, html);
@@ -106,10 +93,12 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
       say(`wrote ${values.pdf}`);
     } catch (e) {
       if (e instanceof ChromiumMissingError) {
-        process.stderr.write(`vaultbook render: ${e.message}\n`);
+        err(`vaultbook render: ${e.message}`);
         return 2;
       }
-      process.stderr.write(`vaultbook render: printing the PDF failed: ${(e as Error).message}\n`);
+      // Plain words only (PdfError); the HTML sheet, when asked for, is already written.
+      err(`vaultbook render: the PDF was not written: ${e instanceof PdfError ? e.message : plainReason(e)}`
+        + `${htmlPath && htmlPath !== '-' ? `; the HTML sheet ${htmlPath} was written and prints from any browser` : ''}`);
       return 2;
     }
   }
@@ -119,6 +108,6 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
   const failing = verdicts.filter((v) => v === false).length;
   say(`${verdicts.length} checks: ${verdicts.filter((v) => v === true).length} satisfied, ${failing} not satisfied`
     + `${errors ? `; ${errors} error${errors === 1 ? '' : 's'}: the sheet says so on its first page` : ''}`);
-  if (errors) return 2;
-  return failing ? 1 : 0;
+  // A failing check is content of the sheet, not a failure to render it.
+  return errors ? 2 : 0;
 }

@@ -1,8 +1,9 @@
 /**
  * `vaultbook serve FILE [--port N]`: the live sheet, on 127.0.0.1 only.
  */
-import { existsSync, statSync } from 'node:fs';
+import { formatDiagnostic } from '../../engine/index.js';
 import { parse, CASE_OPTION, UsageError } from '../args.js';
+import { DocumentError, readDocument } from '../document.js';
 import { startServer } from '../serve/server.js';
 
 /** Resolves when the process is asked to stop (Ctrl-C or SIGTERM). */
@@ -13,17 +14,32 @@ function untilStopped(): Promise<string> {
   });
 }
 
-export async function serveCommand(args: string[], out: (s: string) => void): Promise<number> {
+export async function serveCommand(args: string[], out: (s: string) => void, err: (s: string) => void = (s) => process.stderr.write(`${s}\n`)): Promise<number> {
   const { values, positionals } = parse(args, { ...CASE_OPTION, port: { type: 'string', short: 'p' } });
   if (positionals.length !== 1) throw new UsageError('serve takes exactly one FILE');
   const file = positionals[0]!;
-  if (!existsSync(file) || !statSync(file).isFile()) throw new UsageError(`cannot serve ${file}: no such file`);
   let port: number | undefined;
   if (values.port !== undefined) {
     port = Number(values.port);
     if (!Number.isInteger(port) || port < 0 || port > 65535) throw new UsageError(`--port expects a number 0–65535, got "${values.port}"`);
   }
-  const server = await startServer({ file, port, strictPort: port !== undefined && port !== 0, ...(values.case !== undefined ? { case: values.case as string } : {}) });
+  try {
+    await readDocument(file);
+  } catch (e) {
+    if (!(e instanceof DocumentError)) throw e;
+    err(formatDiagnostic(e.toDiagnostic()));
+    return 2;
+  }
+  let server;
+  try {
+    server = await startServer({ file, port, strictPort: port !== undefined && port !== 0, ...(values.case !== undefined ? { case: values.case as string } : {}) });
+  } catch (e) {
+    if (e instanceof DocumentError) { err(formatDiagnostic(e.toDiagnostic())); return 2; }
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code !== 'EADDRINUSE' && !/already in use/i.test((e as Error).message)) throw e;
+    err(`vaultbook serve: port ${port} on 127.0.0.1 is taken by another program; choose another with --port, or --port 0 for any free one`);
+    return 2;
+  }
   out(`vaultbook serve: ${file} at ${server.url}  (127.0.0.1 only; Ctrl-C stops)`);
   await untilStopped();
   await server.close();

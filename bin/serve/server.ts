@@ -10,7 +10,7 @@
  * It listens on 127.0.0.1 only, and a guard in front of Vite refuses every
  * path outside the allow list (see guard.ts).
  */
-import { readFileSync, realpathSync, statSync } from 'node:fs';
+import { realpathSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -19,12 +19,13 @@ import { siteConfig, REPO_ROOT } from './site-config.js';
 import { guardRequest, ASSET_TYPES, type GuardPolicy } from './guard.js';
 import { rewriteGivenValues, RewriteError } from './rewrite.js';
 import { wrongDimension } from './dimension.js';
-import { writeFileAtomic, removeStaleTemps } from './atomic.js';
+import { replaceIfUnchanged, removeStaleTemps } from './atomic.js';
 import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
-import { archiveInfo } from '../commands/render.js';
 import { buildSite, serveBuiltSite, type BuiltSite } from './built-site.js';
 import { firstPaint } from './first-paint.js';
+import { DocumentError, decodeDocument, readDocumentBytesSync } from '../document.js';
+import { sharedArchive } from '../git.js';
 
 export interface ServeOptions {
   /** The calc document to serve (and the only file ever written). */
@@ -103,13 +104,27 @@ function roundTrips(bytes: Buffer, text: string): boolean {
  */
 export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   const file = realpathSync(options.file);
-  if (!statSync(file).isFile()) throw new Error(`${options.file} is not a file`);
+  // A regular UTF-8 text file within the size limit, or a DocumentError saying why not.
+  decodeDocument(options.file, readDocumentBytesSync(file));
   const shownName = options.file;
   const docDir = dirname(file);
   removeStaleTemps(file);
   let port = 0;
   const hostOk = (host: string | undefined) => host === `127.0.0.1:${port}` || host === `localhost:${port}`;
   const originOk = (origin: string | undefined) => origin === undefined || origin === `http://127.0.0.1:${port}` || origin === `http://localhost:${port}`;
+  /**
+   * Only the page's own origin may read the document, its images or the sources: a page on another
+   * origin (another localhost port included: same site, other origin) is refused whatever it asks.
+   * Browsers say where a request comes from in Sec-Fetch-Site and, for cross-origin reads, Origin;
+   * a request with neither (a typed address, curl) comes from the user.
+   */
+  const fromThisPage = (req: IncomingMessage) => {
+    const site = req.headers['sec-fetch-site'];
+    if (site !== undefined && site !== 'same-origin' && site !== 'none') return false;
+    return originOk(req.headers.origin);
+  };
+  // At most one git process at a time for the footer, shared by all requests waiting for it.
+  const archive = sharedArchive(file);
   const policy: GuardPolicy = {
     appRoot: join(REPO_ROOT, 'site'),
     allowRoots: [join(REPO_ROOT, 'site'), join(REPO_ROOT, 'engine'), join(REPO_ROOT, 'cells'), join(REPO_ROOT, 'node_modules')],
@@ -129,8 +144,8 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   }
 
   const readDoc = () => {
-    const bytes = readFileSync(file);
-    return { bytes, text: bytes.toString('utf8'), version: versionOf(bytes) };
+    const bytes = readDocumentBytesSync(file);
+    return { bytes, text: decodeDocument(shownName, bytes), version: versionOf(bytes) };
   };
 
   const write = async (req: IncomingMessage, res: ServerResponse) => {
@@ -144,14 +159,21 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
       return sendJson(res, 400, { ok: false, message: `cannot read the request: ${(e as Error).message}` });
     }
     if (!isWriteRequest(body)) return sendJson(res, 400, { ok: false, message: 'expected {version, values: {name: text}}' });
-    // From here to the rename everything is synchronous, so no other write can interleave.
-    const current = readDoc();
-    if (current.version !== body.version) {
-      return sendJson(res, 409, {
-        ok: false, conflict: true, version: current.version,
-        message: `${shownName} changed on disk since this page loaded it; nothing was written. Load the new version (your changed inputs are kept where they still exist) and write again.`,
-      });
+    // From here to the rename everything is synchronous, so no other write of this server can interleave.
+    // An editor in another process can: replaceIfUnchanged judges the bytes on disk again at the
+    // moment of replacing them, and after.
+    let current;
+    try {
+      current = readDoc();
+    } catch (e) {
+      if (e instanceof DocumentError) return sendJson(res, 422, { ok: false, message: `${e.message}; nothing was written` });
+      throw e;
     }
+    const conflict = (version: string) => sendJson(res, 409, {
+      ok: false, conflict: true, version,
+      message: `${shownName} changed on disk since this page loaded it; nothing was written. Load the new version (your changed inputs are kept where they still exist) and write again.`,
+    });
+    if (current.version !== body.version) return conflict(current.version);
     if (!roundTrips(current.bytes, current.text)) {
       return sendJson(res, 422, { ok: false, message: `${shownName} is not valid UTF-8 text; nothing was written` });
     }
@@ -166,10 +188,14 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     }
     if (result.changed.length === 0) return sendJson(res, 200, { ok: true, version: current.version, changed: [], notes: [], text: current.text });
     const bytes = Buffer.from(result.text, 'utf8');
-    writeFileAtomic(file, bytes);
+    if (replaceIfUnchanged(file, bytes, (onDisk) => versionOf(onDisk) === body.version) === 'changed') {
+      let now = '';
+      try { now = versionOf(readDocumentBytesSync(file)); } catch { /* mid-save; the page reloads on the watch event */ }
+      return conflict(now);
+    }
     const version = versionOf(bytes);
     watcher?.known(version);
-    return sendJson(res, 200, { ok: true, version, changed: result.changed, notes: result.notes, text: result.text, archive: await archiveInfo(file, bytes) });
+    return sendJson(res, 200, { ok: true, version, changed: result.changed, notes: result.notes, text: result.text, archive: await archive(bytes) });
   };
 
   const plugin: Plugin = {
@@ -182,6 +208,10 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
           res.writeHead(403, { 'Content-Type': 'text/plain' }).end('refused: unexpected Host header');
           return;
         }
+        if (!fromThisPage(req)) {
+          res.writeHead(403, { 'Content-Type': 'text/plain', Vary: 'Origin, Sec-Fetch-Site' }).end('refused: only the live sheet itself may read from this server');
+          return;
+        }
         if (site?.handle(req, res)) return;
         const verdict = guardRequest(url, policy);
         if (!verdict.ok) {
@@ -191,15 +221,28 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
         if (verdict.kind === 'app') return next();
         if (verdict.kind === 'asset') {
           const type = ASSET_TYPES[verdict.file.slice(verdict.file.lastIndexOf('.')).toLowerCase()]!;
+          let image: Buffer;
+          try {
+            image = readDocumentBytesSync(verdict.file);
+          } catch (e) {
+            res.writeHead(404, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${e instanceof DocumentError ? e.reason : 'cannot read the file'}`);
+            return;
+          }
           res.writeHead(200, { 'Content-Type': type, 'X-Content-Type-Options': 'nosniff', 'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'", 'Cache-Control': 'no-store' });
-          res.end(readFileSync(verdict.file));
+          res.end(image);
           return;
         }
         if (verdict.name === 'doc') {
           if (req.method !== 'GET' && req.method !== 'HEAD') return sendJson(res, 405, { ok: false, message: 'use GET' });
-          const d = readDoc();
+          let d;
+          try {
+            d = readDoc();
+          } catch (e) {
+            if (e instanceof DocumentError) return sendJson(res, 422, { ok: false, message: e.message });
+            throw e;
+          }
           // The same archive identification `vaultbook render` prints in the sheet's footer.
-          void archiveInfo(file, d.bytes).then((archive) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive, ...(options.case !== undefined ? { case: options.case } : {}) }));
+          void archive(d.bytes).then((info) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive: info, ...(options.case !== undefined ? { case: options.case } : {}) }));
           return;
         }
         write(req, res).catch((e) => sendJson(res, 500, { ok: false, message: `writing ${shownName} failed: ${(e as Error).message}; the file on disk is unchanged` }));
@@ -218,6 +261,8 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     server: {
       ...base.server,
       host: '127.0.0.1',
+      // No CORS headers at all: the page reads only from its own origin, which needs none.
+      cors: false,
       port: options.port ?? 4780,
       strictPort: options.strictPort ?? false,
       open: false,

@@ -7,9 +7,10 @@
  * fs.watch is silent. Bursts of events are debounced, and a change is only
  * reported when the bytes' version differs from the last one seen.
  */
-import { watch, readFileSync, statSync, type FSWatcher } from 'node:fs';
+import { watch, statSync, type FSWatcher } from 'node:fs';
 import { basename, dirname } from 'node:path';
 import { versionOf } from './version.js';
+import { readDocumentBytesSync } from '../document.js';
 
 export interface DocumentWatch {
   /** Records a version the caller wrote itself, so it is not reported back. */
@@ -46,9 +47,10 @@ export function watchDocument(file: string, initialVersion: string, onChange: (b
     if (closed) return;
     let bytes: Buffer;
     try {
-      bytes = readFileSync(file);
+      // Only a regular file within the size limit: a save that swapped in a pipe must not block the server.
+      bytes = readDocumentBytesSync(file);
     } catch {
-      return; // Mid-save (deleted before being recreated): the next event or poll reads it.
+      return; // Mid-save (deleted before being recreated), or not a document: the next event or poll reads it.
     }
     const version = versionOf(bytes);
     if (version === last) return;
