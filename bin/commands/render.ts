@@ -5,7 +5,7 @@
  * Output: `-o OUT.html` (or `-o -` for stdout); without -o the HTML goes next to
  * FILE as <name>.html, unless only --pdf was asked for, in which case only
  * the PDF is written. Exit 0 when every check holds, 1 when a check is not
- * satisfied, 2 when the document has errors (the sheet is still written and
+ * failing, 2 when the document has errors (the sheet is still written and
  * says so), cannot be read, or the PDF cannot be printed.
  */
 import { createHash } from 'node:crypto';
@@ -117,7 +117,8 @@ export async function renderCommand(args: string[], out: (s: string) => void): P
   const verdicts = summary.checks.map((c) => c.pass);
   const errors = summary.diagnostics.filter((d) => d.severity === 'error').length;
   const failing = verdicts.filter((v) => v === false).length;
-  say(`${verdicts.length} checks: ${verdicts.filter((v) => v === true).length} satisfied, ${failing} not satisfied`
+  say(`${verdicts.length} checks: ${verdicts.filter((v) => v === true).length} hold, ${failing} fail`
+    + `${verdicts.some((v) => v === null) ? `, ${verdicts.filter((v) => v === null).length} not evaluated` : ''}`
     + `${errors ? `; ${errors} error${errors === 1 ? '' : 's'}: the sheet says so on its first page` : ''}`);
   if (errors) return 2;
   return failing ? 1 : 0;

@@ -142,7 +142,7 @@ export function formatValue(value: unknown, opts: FormatOptions = {}, unit?: str
   }
   if (isCheck(value)) {
     const u = value.utilization === null ? '' : ` (utilization ${formatUtilization(value.utilization, value.pass)})`;
-    return `${value.pass ? 'satisfied' : 'NOT satisfied'}${u}`;
+    return `${value.pass ? 'holds' : 'FAILS'}${u}`;
   }
   if (math.isMatrix(value)) return formatValue((value as { toArray(): unknown[] }).toArray(), opts);
   if (Array.isArray(value)) return `[${value.map((v) => formatValue(v, opts)).join(', ')}]`;
