@@ -13,8 +13,13 @@ import type { CheckEntry } from '../../engine/summary.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 
-export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; reason?: string }, withCases = false): string {
-  const mark = c.pass === null ? '  ??  NOT EVALUATED' : c.pass ? '  ok  holds        ' : '  !!  FAILS        ';
+/** A check limited to cases other than the one asked for: judged in no case here, which is not "not evaluated". */
+function notJudged(c: { cases?: unknown[] }): boolean {
+  return c.cases !== undefined && c.cases.length === 0;
+}
+
+export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; cases?: unknown[]; reason?: string }, withCases = false): string {
+  const mark = notJudged(c) ? '  --  not judged in this case' : c.pass === null ? '  ??  NOT EVALUATED' : c.pass ? '  ok  holds        ' : '  !!  FAILS        ';
   const u = c.utilization === null ? '     ' : formatUtilization(c.utilization, c.pass).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
   // A check that holds everywhere without utilizations to compare the cases by has no governing case.
@@ -65,8 +70,9 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
     const errors = s.diagnostics.filter((d) => d.severity === 'error').length;
     const worst = s.checks.reduce<CheckEntry | null>((w, c) => (c.utilization !== null && (w === null || c.utilization > w.utilization!) ? c : w), null);
     const highest = worst ? formatUtilization(worst.utilization!, worst.pass) : '—';
-    const open = s.checks.filter((c) => c.pass === null).length;
-    out(`${r.file}: ${s.checks.length} checks, ${holds} hold, ${fails} fail${open ? `, ${open} not evaluated` : ''}; ${errors} error${errors === 1 ? '' : 's'}; highest utilization ${highest}`);
+    const open = s.checks.filter((c) => c.pass === null && !notJudged(c)).length;
+    const off = s.checks.filter(notJudged).length;
+    out(`${r.file}: ${s.checks.length} checks, ${holds} hold, ${fails} fail${open ? `, ${open} not evaluated` : ''}${off ? `, ${off} not judged in this case` : ''}; ${errors} error${errors === 1 ? '' : 's'}; highest utilization ${highest}`);
   }
   return exitCodeFor(results);
 }

@@ -64,6 +64,14 @@ export function verdictHtml(verdict: Verdict, utilization: number | null): strin
   return `<div class="vb-verdict vb-verdict--${verdict}"><span class="vb-mark" aria-hidden="true">${mark}</span><span class="vb-word">${word}</span>${u}</div>`;
 }
 
+/** A check limited to other cases than the one shown: not judged here, and not "not evaluated". */
+const NOT_JUDGED = { mark: '–', word: 'not judged in this case' };
+
+/** Is this check limited to cases other than the one the sheet shows? */
+function offCase(cell: Cell, ctx: RenderContext): boolean {
+  return Boolean(ctx.cases?.shown) && notJudgedHere(cell, ctx) !== null;
+}
+
 /** Both sides in one unit, so that they can be compared by eye. */
 function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
   let unit: string | null = null;
@@ -108,8 +116,11 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
   // A check limited to other cases: its formula and its verdict over those cases (engine/render/cases.ts).
   const elsewhere = notJudgedHere(cell, ctx);
   if (elsewhere) {
+    const out = offCase(cell, ctx)
+      ? `<div class="vb-verdict vb-verdict--off"><span class="vb-mark" aria-hidden="true">${NOT_JUDGED.mark}</span><span class="vb-word">${NOT_JUDGED.word}</span></div>`
+      : verdictHtml(elsewhere.verdict, elsewhere.utilization);
     return `<div class="vb-work"><div class="vb-math">${typeset(exprTex(cell.node, ctx.scope, false), true)}</div></div>`
-      + `<div class="vb-out">${verdictHtml(elsewhere.verdict, elsewhere.utilization)}</div>`;
+      + `<div class="vb-out">${out}</div>`;
   }
   const r = state.status === 'ok' ? (state.value as CheckResult) : null;
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc, state.note) : '';
@@ -137,8 +148,16 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   const checks = doc.graph.cells.filter((c) => c.kind === 'check');
   if (checks.length === 0) return '<h2 class="vb-h">Checks</h2><p class="vb-note">This document has no checks.</p>';
   const tally: Record<Verdict, number> = { pass: 0, near: 0, fail: 0, none: 0 };
+  let off = 0;
   const rows = checks.map((cell, i) => {
     const state = stateOf(ctx, cell.id);
+    if (offCase(cell, ctx)) {
+      off++;
+      const what = cell.description ? descriptionHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false));
+      return `<tr class="vb-sum vb-sum--off"><td class="vb-ref">${i + 1}</td><td>${what}</td><td class="vb-num">—</td><td class="vb-barcell"></td>`
+        + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${NOT_JUDGED.mark}</span> ${NOT_JUDGED.word}</td>`
+        + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
+    }
     const byCase = caseVerdict(cell, ctx);
     const verdict = byCase ? byCase.verdict : verdictOf(state);
     tally[verdict]++;
@@ -151,11 +170,14 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
       + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
   }).join('');
   const bad = tally.fail + tally.none;
+  // Checks limited to other cases are counted apart: they are not judged here, which is not "not evaluated".
+  const judged = checks.length - off;
+  const offNote = off ? `; ${off} not judged in this case` : '';
   const overall = bad === 0
-    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks hold${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
+    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${judged} checks ${off ? 'judged in this case ' : ''}hold${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}${offNote}.</p>`
     : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">${tally.fail ? '✗' : '?'}</span> ${[
-      tally.fail ? `${tally.fail} of ${checks.length} checks FAIL` : '',
-      tally.none ? `${tally.none} of ${checks.length} not evaluated` : '',
-    ].filter(Boolean).join('; ')}.</p>`;
+      tally.fail ? `${tally.fail} of ${judged} checks FAIL` : '',
+      tally.none ? `${tally.none} of ${judged} not evaluated` : '',
+    ].filter(Boolean).join('; ')}${offNote}.</p>`;
   return `<h2 class="vb-h">Checks</h2>${overall}<table class="vb-summary"><thead><tr><th class="vb-ref">#</th><th>check</th><th class="vb-num">utilization</th><th></th><th>verdict</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;
 }
