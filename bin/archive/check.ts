@@ -73,8 +73,8 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
   const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
   out([
     `\n${plural(reports.length, 'file')}: ${plural(sum((r) => r.checks), 'check')}, ${sum((r) => r.holds)} hold, ${sum((r) => r.fails)} fail`,
-    sum((r) => r.undecided) ? `, ${sum((r) => r.undecided)} not evaluated` : '',
     ` (in ${plural(reports.filter((r) => r.fails > 0).length, 'file')})`,
+    sum((r) => r.undecided) ? `, ${sum((r) => r.undecided)} not evaluated` : '',
     `; ${plural(sum((r) => r.errors), 'error')} (in ${plural(reports.filter((r) => r.errors > 0).length, 'file')})`,
     worst ? `; highest utilization ${formatUtilization(worst.worst!, worst.worstPass)} in ${worst.file}` : '',
     `; ${((Date.now() - started) / 1000).toFixed(1)} s`,
