@@ -31,6 +31,7 @@ function verdictOf(r: FileReport): string {
   if (r.unreadable !== undefined) return 'UNREADABLE';
   if (r.errors > 0) return 'ERRORS';
   if (r.fails > 0) return 'FAILS';
+  if (r.undecided > 0) return 'NOT EVALUATED';
   return r.checks === 0 ? 'no checks' : 'holds';
 }
 
@@ -76,6 +77,7 @@ export async function archiveCheck(expanded: Expansion, options: ArchiveCheckOpt
   out([
     `\n${plural(reports.length, 'file')}: ${plural(sum((r) => r.checks), 'check')}, ${sum((r) => r.holds)} hold, ${sum((r) => r.fails)} fail`,
     ` (in ${plural(reports.filter((r) => r.fails > 0).length, 'file')})`,
+    sum((r) => r.undecided) ? `, ${sum((r) => r.undecided)} not evaluated` : '',
     `; ${plural(sum((r) => r.errors), 'error')} (in ${plural(reports.filter((r) => r.errors > 0).length, 'file')})`,
     worst ? `; highest utilization ${formatUtilization(worst.worst!, worst.worstPass)} in ${worst.file}` : '',
     `; ${((Date.now() - started) / 1000).toFixed(1)} s`,

@@ -14,11 +14,17 @@ import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 import { summariesJson } from '../archive/report.js';
 
-export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; reason?: string }, withCases = false): string {
-  const mark = c.pass === null ? '  ?? NO VERDICT' : c.pass ? '  ok  holds   ' : '  !!  FAILS   ';
+/** A check limited to cases other than the one asked for: judged in no case here, which is not "not evaluated". */
+function notJudged(c: { cases?: unknown[] }): boolean {
+  return c.cases !== undefined && c.cases.length === 0;
+}
+
+export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; cases?: unknown[]; reason?: string }, withCases = false): string {
+  const mark = notJudged(c) ? '  --  not judged in this case' : c.pass === null ? '  ??  NOT EVALUATED' : c.pass ? '  ok  holds        ' : '  !!  FAILS        ';
   const u = c.utilization === null ? '     ' : formatUtilization(c.utilization, c.pass).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
-  const governs = withCases && c.governing ? `  [governing: ${c.governing.case ?? 'as written'}]` : '';
+  // A check that holds everywhere without utilizations to compare the cases by has no governing case.
+  const governs = !withCases ? '' : c.governing ? `  [governing: ${c.governing.case ?? 'as written'}]` : c.pass === true ? '  [holds in every case; no governing case]' : '';
   return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}${governs}${c.reason ? `\n                     ${c.reason}` : ''}`;
 }
 
@@ -50,6 +56,12 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
   }
   for (const r of results) {
     const s = r.summary;
+    // A --case that names no case: only the error, not the document's results as if it were one.
+    const unknownCase = s.diagnostics.filter((d) => d.ruleId === 'cases/unknown-case' && d.message.startsWith('--case '));
+    if (values.case !== undefined && unknownCase.length) {
+      for (const d of unknownCase) out(formatDiagnostic(d));
+      continue;
+    }
     if (results.length > 1) out(`\n${r.file}`);
     const cases = s.cases ?? [];
     if (cases.length) out(values.case !== undefined ? `case ${values.case}, as if its inputs were written in:` : `judged as written and in ${cases.length} case${cases.length === 1 ? '' : 's'}; each verdict is the worst:`);
@@ -60,7 +72,9 @@ export async function checkCommand(args: string[], out: (s: string) => void): Pr
     const errors = s.diagnostics.filter((d) => d.severity === 'error').length;
     const worst = s.checks.reduce<CheckEntry | null>((w, c) => (c.utilization !== null && (w === null || c.utilization > w.utilization!) ? c : w), null);
     const highest = worst ? formatUtilization(worst.utilization!, worst.pass) : '—';
-    out(`${r.file}: ${s.checks.length} checks, ${holds} hold, ${fails} fail; ${errors} error${errors === 1 ? '' : 's'}; highest utilization ${highest}`);
+    const open = s.checks.filter((c) => c.pass === null && !notJudged(c)).length;
+    const off = s.checks.filter(notJudged).length;
+    out(`${r.file}: ${s.checks.length} checks, ${holds} hold, ${fails} fail${open ? `, ${open} not evaluated` : ''}${off ? `, ${off} not judged in this case` : ''}; ${errors} error${errors === 1 ? '' : 's'}; highest utilization ${highest}`);
   }
   return exitCodeFor(results);
 }

@@ -103,10 +103,14 @@ export async function renderCommand(args: string[], out: (s: string) => void, er
     }
   }
   // Each check's verdict over every case (the document's own verdict when it has no cases).
-  const verdicts = summary.checks.map((c) => c.pass);
+  // A check limited to other cases than the one shown (judged in no case here) is counted apart, not as not evaluated.
+  const offCase = summary.checks.filter((c) => c.cases !== undefined && c.cases.length === 0).length;
+  const verdicts = summary.checks.filter((c) => !(c.cases !== undefined && c.cases.length === 0)).map((c) => c.pass);
   const errors = summary.diagnostics.filter((d) => d.severity === 'error').length;
   const failing = verdicts.filter((v) => v === false).length;
-  say(`${verdicts.length} checks: ${verdicts.filter((v) => v === true).length} satisfied, ${failing} not satisfied`
+  say(`${summary.checks.length} checks: ${verdicts.filter((v) => v === true).length} hold, ${failing} fail`
+    + `${verdicts.some((v) => v === null) ? `, ${verdicts.filter((v) => v === null).length} not evaluated` : ''}`
+    + `${offCase ? `, ${offCase} not judged in this case` : ''}`
     + `${errors ? `; ${errors} error${errors === 1 ? '' : 's'}: the sheet says so on its first page` : ''}`);
   // A failing check is content of the sheet, not a failure to render it.
   return errors ? 2 : 0;

@@ -9,7 +9,7 @@ export interface CaseCheckChange {
   check: string;
   /** The case, or null for the document as written. */
   case: string | null;
-  change: 'to-fail' | 'to-pass' | 'to-no-verdict' | 'utilization' | 'added' | 'removed';
+  change: 'to-fail' | 'to-pass' | 'to-not-evaluated' | 'utilization' | 'added' | 'removed';
   old: CaseVerdict | null;
   new: CaseVerdict | null;
 }
@@ -28,7 +28,7 @@ export interface CasesDiff {
 }
 
 const keyOf = (c: CheckEntry) => c.name ?? c.source.replace(/\s+/g, ' ').trim();
-const verdict = (v: CaseVerdict) => (v.pass === true ? 'holds' : v.pass === false ? 'fails' : 'none');
+const verdict = (v: CaseVerdict) => (v.pass === true ? 'holds' : v.pass === false ? 'fails' : 'not evaluated');
 
 /**
  * Compares the per-case verdicts of the checks two versions share.
@@ -48,7 +48,7 @@ export function diffCases(oldChecks: CheckEntry[], newChecks: CheckEntry[], tol:
       const x = before.get(y.case);
       before.delete(y.case);
       if (!x) { changes.push({ check, case: y.case, change: 'added', old: null, new: y }); continue; }
-      if (verdict(x) !== verdict(y)) changes.push({ check, case: y.case, change: y.pass === false ? 'to-fail' : y.pass === true ? 'to-pass' : 'to-no-verdict', old: x, new: y });
+      if (verdict(x) !== verdict(y)) changes.push({ check, case: y.case, change: y.pass === false ? 'to-fail' : y.pass === true ? 'to-pass' : 'to-not-evaluated', old: x, new: y });
       else if (x.utilization !== null && y.utilization !== null && Math.abs(y.utilization - x.utilization) > tol) changes.push({ check, case: y.case, change: 'utilization', old: x, new: y });
     }
     for (const x of before.values()) changes.push({ check, case: x.case, change: 'removed', old: x, new: null });

@@ -9,7 +9,7 @@
  */
 import type { CheckEntry } from '../../engine/summary.js';
 
-export type Verdict = 'holds' | 'fails' | 'no verdict';
+export type Verdict = 'holds' | 'fails' | 'not evaluated';
 
 export interface CheckSide {
   line: number;
@@ -22,7 +22,7 @@ export interface CheckChange {
   /** The check's name, or its expression when unnamed. */
   key: string;
   description: string;
-  change: 'to-fail' | 'to-pass' | 'to-no-verdict' | 'utilization' | 'expression' | 'added' | 'removed';
+  change: 'to-fail' | 'to-pass' | 'to-not-evaluated' | 'utilization' | 'expression' | 'added' | 'removed';
   old: CheckSide | null;
   new: CheckSide | null;
   /** new − old utilization, when both have one. */
@@ -30,7 +30,7 @@ export interface CheckChange {
 }
 
 export function verdictOf(c: CheckEntry): Verdict {
-  return c.pass === true ? 'holds' : c.pass === false ? 'fails' : 'no verdict';
+  return c.pass === true ? 'holds' : c.pass === false ? 'fails' : 'not evaluated';
 }
 
 const side = (c: CheckEntry): CheckSide => ({ line: c.line, source: c.source, verdict: verdictOf(c), utilization: c.utilization });
@@ -55,7 +55,7 @@ export function diffChecks(oldChecks: CheckEntry[], newChecks: CheckEntry[], tol
     const a = side(was), b = side(c);
     const delta = a.utilization !== null && b.utilization !== null ? b.utilization - a.utilization : null;
     let change: CheckChange['change'] | null = null;
-    if (a.verdict !== b.verdict) change = b.verdict === 'fails' ? 'to-fail' : b.verdict === 'holds' ? 'to-pass' : 'to-no-verdict';
+    if (a.verdict !== b.verdict) change = b.verdict === 'fails' ? 'to-fail' : b.verdict === 'holds' ? 'to-pass' : 'to-not-evaluated';
     else if (delta !== null && Math.abs(delta) > tol) change = 'utilization';
     else if (a.source !== b.source) change = 'expression';
     if (change) changes.push({ key, description: c.description, change, old: a, new: b, delta });

@@ -54,13 +54,13 @@ function valueRows(changes: ValueChange[], reformulated = new Set<string>()): st
   return rows;
 }
 
-const VERDICT_TEXT: Record<CheckSide['verdict'], string> = { holds: 'holds', fails: 'FAILS', 'no verdict': 'no verdict' };
+const VERDICT_TEXT: Record<CheckSide['verdict'], string> = { holds: 'holds', fails: 'FAILS', 'not evaluated': 'NOT EVALUATED' };
 const MARK: Record<CheckChange['change'], string> = {
-  'to-fail': '!!', 'to-pass': 'ok', 'to-no-verdict': '??', utilization: '··', expression: '··', added: '+ ', removed: '- ',
+  'to-fail': '!!', 'to-pass': 'ok', 'to-not-evaluated': '??', utilization: '··', expression: '··', added: '+ ', removed: '- ',
 };
 
 function checkRow(c: CheckChange): string[] {
-  const u = (s: CheckSide | null) => (s === null || s.utilization === null ? '—' : formatUtilization(s.utilization, s.verdict === 'no verdict' ? null : s.verdict === 'holds'));
+  const u = (s: CheckSide | null) => (s === null || s.utilization === null ? '—' : formatUtilization(s.utilization, s.verdict === 'not evaluated' ? null : s.verdict === 'holds'));
   const verdict = c.change === 'added' ? `added, ${VERDICT_TEXT[c.new!.verdict]}`
     : c.change === 'removed' ? `removed (${VERDICT_TEXT[c.old!.verdict]})`
     : c.old!.verdict === c.new!.verdict ? VERDICT_TEXT[c.new!.verdict] : `${VERDICT_TEXT[c.old!.verdict]} → ${VERDICT_TEXT[c.new!.verdict]}`;
@@ -78,13 +78,16 @@ function definitionRow(c: DocumentDiff['definitions'][number]): string[] {
   return [c.name, c.what, move, c.line_old === c.line_new ? `line ${c.line_new}` : `line ${c.line_old} → ${c.line_new}`];
 }
 
+/** A verdict flip in the three words: holds, fails, not evaluated. */
+const NOW: Record<string, string> = { 'to-fail': 'now FAILS', 'to-pass': 'now holds', 'to-not-evaluated': 'now NOT EVALUATED' };
+
 /** Governing-case changes first, then each check's changes case by case. */
 function casesLines(d: DocumentDiff): string[] {
   const name = (c: string | null) => c ?? 'as written';
   const u = (v: { utilization: number | null; pass: boolean | null } | null) => (v === null || v.utilization === null ? '—' : formatUtilization(v.utilization, v.pass));
   const gov = d.cases!.governing.map((g) => ['>>', g.check, `governing case ${name(g.old.case)} → ${name(g.new.case)}`, `utilization ${u(g.old)} → ${u(g.new)}`]);
-  const marks: Record<string, string> = { 'to-fail': '!!', 'to-pass': 'ok', 'to-no-verdict': '??', utilization: '··', added: '+ ', removed: '- ' };
-  const what = (c: (CaseCheckChange)) => (c.change === 'added' ? 'now judged' : c.change === 'removed' ? 'no longer judged' : c.change === 'utilization' ? 'moved' : c.change.replace('to-', 'now '));
+  const marks: Record<string, string> = { 'to-fail': '!!', 'to-pass': 'ok', 'to-not-evaluated': '??', utilization: '··', added: '+ ', removed: '- ' };
+  const what = (c: (CaseCheckChange)) => (c.change === 'added' ? 'now judged' : c.change === 'removed' ? 'no longer judged' : c.change === 'utilization' ? 'moved' : NOW[c.change]);
   // A family can change in dozens of cases: the verdict flips of a check are all shown, its moves up to CASES_SHOWN.
   const rows: string[][] = [];
   const byCheck = new Map<string, CaseCheckChange[]>();
@@ -109,7 +112,7 @@ function preview(text: string, width = 70): string {
 export function formatDiff(d: DocumentDiff): string {
   const out: string[] = [`${d.old.label} → ${d.new.label}`];
   const section = (title: string, lines: string[]) => { if (lines.length > 0) out.push('', title, ...lines); };
-  const order: CheckChange['change'][] = ['to-fail', 'to-no-verdict', 'to-pass', 'utilization', 'expression', 'added', 'removed'];
+  const order: CheckChange['change'][] = ['to-fail', 'to-not-evaluated', 'to-pass', 'utilization', 'expression', 'added', 'removed'];
   const checks = [...d.checks].sort((x, y) => order.indexOf(x.change) - order.indexOf(y.change));
   section(`Checks (${checks.length} changed)`, columns(checks.map(checkRow)));
   section(`Definitions changed (${d.definitions.length})`, columns(d.definitions.map(definitionRow)));

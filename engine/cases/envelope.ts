@@ -3,8 +3,12 @@
  *
  * The worst verdict: fails if the check fails in any case it is judged in; else not evaluated
  * if it could not be evaluated in one; else holds. The governing case is the failing case of
- * highest utilization, else the first case without a verdict, else the case of highest
- * utilization (the first one on a tie; the document as written comes first).
+ * highest utilization (the first failing case when none of them has a utilization), else the
+ * first not evaluated case, else, when the check holds in every case and every case has a
+ * utilization, the case of highest utilization (the first one on a tie; the document as written
+ * comes first). A check that holds everywhere but lacks a utilization in some case (a `<` or `>`
+ * check, a negative demand or capacity) has no governing case (null): the cases were not
+ * compared, so none is claimed.
  */
 import type { CaseBook, CellGraph } from '../types.js';
 import type { Case } from './expand.js';
@@ -15,7 +19,7 @@ export interface CheckEnvelope {
   pass: boolean | null;
   /** Highest utilization over those cases (null when none has one). */
   utilization: number | null;
-  /** The case that sets the verdict; null when the check is judged in no case. */
+  /** The case that sets the verdict; null when the check is judged in no case, or holds in every case without a utilization to compare them by. */
   governing: CheckCase | null;
   /** The check in each case it is judged in, in case order. */
   cases: CheckCase[];
@@ -38,7 +42,15 @@ export function governingOf(list: readonly CheckCase[]): CheckCase | null {
   if (fails.length) return fails.reduce((g, x) => (higher(x.utilization, g.utilization) ? x : g));
   const none = list.find((x) => x.pass === null);
   if (none) return none;
-  return list.length ? list.reduce((g, x) => (higher(x.utilization, g.utilization) ? x : g)) : null;
+  if (!list.length || list.some((x) => x.utilization === null)) return null;
+  return list.reduce((g, x) => (higher(x.utilization, g.utilization) ? x : g));
+}
+
+/** The worst verdict of a list of results of one check: fails, else not evaluated, else holds (null when the list is empty). */
+export function worstOf(list: readonly CheckCase[]): boolean | null {
+  if (!list.length) return null;
+  if (list.some((x) => x.pass === false)) return false;
+  return list.some((x) => x.pass === null) ? null : true;
 }
 
 /**
@@ -58,7 +70,7 @@ export function envelopeOf(graph: CellGraph, book: CaseBook, cases: readonly (Ca
     });
     const governing = governingOf(list);
     const utilization = list.reduce<number | null>((u, x) => (higher(x.utilization, u) ? x.utilization : u), null);
-    out.set(cell.id, { pass: governing ? governing.pass : null, utilization, governing, cases: list });
+    out.set(cell.id, { pass: worstOf(list), utilization, governing, cases: list });
   }
   return out;
 }

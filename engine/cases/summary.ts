@@ -24,7 +24,9 @@ export function summariseCases(summary: Summary, run: CaseRun, doc: CompiledDocu
     if (!env) return;
     entry.pass = env.pass;
     entry.utilization = env.utilization;
-    entry.governing = env.governing ? { ...env.governing } : { case: null, pass: null, utilization: null };
+    // No governing case is claimed for a check that holds everywhere without utilizations to compare: `governing` is left out.
+    if (env.governing) entry.governing = { ...env.governing };
+    else if (!env.cases.length) entry.governing = { case: null, pass: null, utilization: null };
     entry.cases = env.cases.map((x) => ({ ...x }));
   });
   if (run.diagnostics.length) {

@@ -40,10 +40,12 @@ export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict;
   const env = run.checks.get(cell.id);
   if (!env) return null;
   const limit = ctx.doc.cases.limits.get(cell.id) ?? null;
-  const governing = env.governing ? caseLabel(env.governing.case) : 'not judged in any case';
+  const governing = env.governing ? caseLabel(env.governing.case)
+    : env.cases.length ? 'none (it holds in every case, with no utilization to compare the cases by)' : 'not judged in any case';
   const note = `governing: ${governing}${limit ? ` (judged in ${limit.join(', ')} only)` : ''}`;
   const neutral = !limit && env.cases.every((x) => x.pass === env.cases[0]?.pass && x.utilization === env.cases[0]?.utilization);
-  return { verdict: env.governing ? verdictOfCase(env.governing) : 'none', utilization: env.utilization, governing, limit, note, neutral };
+  const verdict = env.cases.length ? verdictOfCase(env.governing ?? { case: null, pass: env.pass, utilization: env.utilization }) : 'none';
+  return { verdict, utilization: env.utilization, governing, limit, note, neutral };
 }
 
 /**
@@ -55,7 +57,7 @@ export function notJudgedHere(cell: Cell, ctx: RenderContext): { verdict: Verdic
   const limit = ctx.doc.cases.limits.get(cell.id);
   if (!limit || !ctx.cases || isJudgedIn(limit, ctx.cases.shown)) return null;
   const env = ctx.cases.checks.get(cell.id);
-  return env?.governing && !ctx.cases.shown ? { verdict: verdictOfCase(env.governing), utilization: env.utilization } : { verdict: 'none', utilization: null };
+  return env?.cases.length && !ctx.cases.shown ? { verdict: verdictOfCase(env.governing ?? { case: null, pass: env.pass, utilization: env.utilization }), utilization: env.utilization } : { verdict: 'none', utilization: null };
 }
 
 /** The sentence under a check in the body: the cases it is judged in and the one that governs. */

@@ -6,7 +6,7 @@
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../types.js';
-import { formatUtilization, splitQuantity } from '../values/format.js';
+import { formatUtilization, separatingSigfigs, splitQuantity } from '../values/format.js';
 import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { typeset } from './katex.js';
 import { exprTex, readsNames } from './tex.js';
@@ -64,16 +64,77 @@ export function verdictHtml(verdict: Verdict, utilization: number | null): strin
   return `<div class="vb-verdict vb-verdict--${verdict}"><span class="vb-mark" aria-hidden="true">${mark}</span><span class="vb-word">${word}</span>${u}</div>`;
 }
 
-/** Both sides in one unit, so that they can be compared by eye. */
+/** A check limited to other cases than the one shown: not judged here, and not "not evaluated". */
+const NOT_JUDGED = { mark: '–', word: 'not judged in this case' };
+
+/** Is this check limited to cases other than the one the sheet shows? */
+function offCase(cell: Cell, ctx: RenderContext): boolean {
+  return Boolean(ctx.cases?.shown) && notJudgedHere(cell, ctx) !== null;
+}
+
+/** Do two compared values differ (so that their printed texts must differ too)? */
+function differ(a: unknown, b: unknown): boolean {
+  try {
+    return !math.equal(a as never, b as never);
+  } catch {
+    return false;
+  }
+}
+
+/** Both sides in one unit, so that they can be compared by eye; with enough figures to tell them apart when they differ. */
 function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
   let unit: string | null = null;
   if (math.isUnit(r.demand) && math.isUnit(r.capacity)) {
     const d = splitQuantity(r.demand as Unit, readableUnit(r.demand as Unit));
     try { (r.capacity as Unit).toNumber(d.unit); unit = d.unit; } catch { unit = null; }
   }
-  const a = valueTex(r.demand, { sigfigs: ctx.sigfigs, unit });
-  const b = valueTex(r.capacity, { sigfigs: ctx.sigfigs, unit });
+  const show = (sf: number): [string, string] => [valueTex(r.demand, { sigfigs: sf, unit }) ?? '', valueTex(r.capacity, { sigfigs: sf, unit }) ?? ''];
+  const sigfigs = separatingSigfigs(show, ctx.sigfigs, differ(r.demand, r.capacity));
+  const a = valueTex(r.demand, { sigfigs, unit });
+  const b = valueTex(r.capacity, { sigfigs, unit });
   return a !== null && b !== null ? [a, b] : null;
+}
+
+const COMPARISONS = new Set(['smaller', 'smallerEq', 'larger', 'largerEq', 'equal', 'unequal']);
+
+/** A comparison side the substituted row prints as one value (a name, a field, a number or a quantity written out), with its display unit. */
+function shownSide(node: MathNode, ctx: RenderContext): { value: unknown; unit: string | null } | undefined {
+  let n = node as MathNode & { content?: MathNode; name?: string; value?: unknown; object?: MathNode; index?: { dotNotation?: boolean; dimensions: MathNode[] } };
+  while (n.type === 'ParenthesisNode' && n.content) n = n.content as typeof n;
+  const path: string[] = [];
+  let p: typeof n | undefined = n;
+  while (p && p.type === 'AccessorNode' && p.index?.dotNotation && p.index.dimensions.length === 1) {
+    const key = p.index.dimensions[0] as MathNode & { value?: unknown };
+    if (typeof key.value !== 'string') return undefined;
+    path.unshift(key.value);
+    p = p.object as typeof n;
+  }
+  if (p?.type === 'SymbolNode' && ctx.scope.isDefined(p.name!)) return ctx.scope.resolve?.([p.name!, ...path]);
+  if (path.length || readsNames(n, ctx.scope) || n.filter((x) => x.type === 'FunctionNode').length) return undefined;
+  // A constant side (1, 20 kN): no name in it, so it evaluates to what is written.
+  try {
+    return { value: n.compile().evaluate({}), unit: null };
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * The significant figures for the substituted row of a check: more than the sheet's when the two
+ * sides of one of its comparisons differ but would print alike (p = 1.0004 in `p <= 1`).
+ */
+function substitutedSigfigs(node: MathNode, ctx: RenderContext): number {
+  let sigfigs = ctx.sigfigs;
+  node.traverse((child) => {
+    const c = child as MathNode & { fn?: string; args?: MathNode[] };
+    if (c.type !== 'OperatorNode' || !COMPARISONS.has(c.fn as string) || c.args?.length !== 2) return;
+    const a = shownSide(c.args[0]!, ctx);
+    const b = shownSide(c.args[1]!, ctx);
+    if (!a || !b) return;
+    const show = (sf: number): [string, string] => [valueTex(a.value, { sigfigs: sf, unit: a.unit }) ?? '', valueTex(b.value, { sigfigs: sf, unit: b.unit }) ?? ''];
+    sigfigs = Math.max(sigfigs, separatingSigfigs(show, ctx.sigfigs, differ(a.value, b.value)));
+  });
+  return sigfigs;
 }
 
 const OP_TEX: Record<string, string> = { '<=': '\\le', '>=': '\\ge', '<': '<', '>': '>' };
@@ -83,7 +144,8 @@ function workingRows(cell: Cell, r: CheckResult | null, ctx: RenderContext, reco
   const formula = exprTex(cell.node, ctx.scope, false, records);
   rows.push(formula);
   if (r && readsNames(cell.node, ctx.scope)) {
-    const filled = exprTex(cell.node, ctx.scope, true, records);
+    const sigfigs = substitutedSigfigs(cell.node, ctx);
+    const filled = exprTex(cell.node, sigfigs === ctx.sigfigs ? ctx.scope : { ...ctx.scope, sigfigs }, true, records);
     if (filled !== formula) rows.push(filled);
   }
   if (r && r.op) {
@@ -108,8 +170,11 @@ export function renderCheckOutput(cell: Cell, state: CellState, ctx: RenderConte
   // A check limited to other cases: its formula and its verdict over those cases (engine/render/cases.ts).
   const elsewhere = notJudgedHere(cell, ctx);
   if (elsewhere) {
+    const out = offCase(cell, ctx)
+      ? `<div class="vb-verdict vb-verdict--off"><span class="vb-mark" aria-hidden="true">${NOT_JUDGED.mark}</span><span class="vb-word">${NOT_JUDGED.word}</span></div>`
+      : verdictHtml(elsewhere.verdict, elsewhere.utilization);
     return `<div class="vb-work"><div class="vb-math">${typeset(exprTex(cell.node, ctx.scope, false), true)}</div></div>`
-      + `<div class="vb-out">${verdictHtml(elsewhere.verdict, elsewhere.utilization)}</div>`;
+      + `<div class="vb-out">${out}</div>`;
   }
   const r = state.status === 'ok' ? (state.value as CheckResult) : null;
   const trouble = state.status === 'error' ? diagnosticHtml(state.diagnostic) : state.status === 'blocked' ? blockedHtml(state.by, ctx.doc, state.note) : '';
@@ -137,8 +202,16 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
   const checks = doc.graph.cells.filter((c) => c.kind === 'check');
   if (checks.length === 0) return '<h2 class="vb-h">Checks</h2><p class="vb-note">This document has no checks.</p>';
   const tally: Record<Verdict, number> = { pass: 0, near: 0, fail: 0, none: 0 };
+  let off = 0;
   const rows = checks.map((cell, i) => {
     const state = stateOf(ctx, cell.id);
+    if (offCase(cell, ctx)) {
+      off++;
+      const what = cell.description ? descriptionHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false));
+      return `<tr class="vb-sum vb-sum--off"><td class="vb-ref">${i + 1}</td><td>${what}</td><td class="vb-num">—</td><td class="vb-barcell"></td>`
+        + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${NOT_JUDGED.mark}</span> ${NOT_JUDGED.word}</td>`
+        + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
+    }
     const byCase = caseVerdict(cell, ctx);
     const verdict = byCase ? byCase.verdict : verdictOf(state);
     tally[verdict]++;
@@ -151,11 +224,14 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
       + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
   }).join('');
   const bad = tally.fail + tally.none;
+  // Checks limited to other cases are counted apart: they are not judged here, which is not "not evaluated".
+  const judged = checks.length - off;
+  const offNote = off ? `; ${off} not judged in this case` : '';
   const overall = bad === 0
-    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${checks.length} checks hold${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}.</p>`
+    ? `<p class="vb-overall vb-overall--pass"><span class="vb-mark">✓</span> All ${judged} checks ${off ? 'judged in this case ' : ''}hold${tally.near ? `; ${tally.near} within 5 % of the limit` : ''}${offNote}.</p>`
     : `<p class="vb-overall vb-overall--fail"><span class="vb-mark">${tally.fail ? '✗' : '?'}</span> ${[
-      tally.fail ? `${tally.fail} of ${checks.length} checks FAIL` : '',
-      tally.none ? `${tally.none} of ${checks.length} not evaluated` : '',
-    ].filter(Boolean).join('; ')}.</p>`;
+      tally.fail ? `${tally.fail} of ${judged} checks FAIL` : '',
+      tally.none ? `${tally.none} of ${judged} not evaluated` : '',
+    ].filter(Boolean).join('; ')}${offNote}.</p>`;
   return `<h2 class="vb-h">Checks</h2>${overall}<table class="vb-summary"><thead><tr><th class="vb-ref">#</th><th>check</th><th class="vb-num">utilization</th><th></th><th>verdict</th><th class="vb-ref">where</th></tr></thead><tbody>${rows}</tbody></table>`;
 }

@@ -66,6 +66,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-sum--fail td { background: var(--vb-fail-bg); font-weight: bold; border-top: 1pt solid var(--vb-fail); border-bottom: 1pt solid var(--vb-fail); }
 .vb-sum--fail .vb-sum-verdict { color: var(--vb-fail); }
 .vb-sum--none .vb-sum-verdict { color: var(--vb-muted); font-style: italic; }
+.vb-sum--off .vb-sum-verdict { color: var(--vb-muted); }
 .vb-barcell { width: 24mm; }
 .vb-bar { display: inline-block; position: relative; width: 22mm; height: 2.4mm; border: 0.5pt solid var(--vb-ink); vertical-align: middle; background: #fff; }
 .vb-bar-fill { position: absolute; left: 0; top: 0; bottom: 0; background: #8d99a6; }
@@ -165,6 +166,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-verdict--fail { border: 3pt double var(--vb-fail); color: var(--vb-fail); background: var(--vb-fail-bg); }
 .vb-verdict--fail .vb-word { text-decoration: underline; text-decoration-thickness: 1pt; }
 .vb-verdict--none { border: 0.8pt dotted var(--vb-muted); color: var(--vb-muted); background: #fff; }
+.vb-verdict--off { border: 0.8pt solid var(--vb-muted); color: var(--vb-muted); background: #fff; }
 .vb-step--check { border-bottom-color: var(--vb-rule); }
 
 /* Figures */

@@ -65,6 +65,25 @@ function ratio(a: unknown, b: unknown): number | null {
   }
 }
 
+/**
+ * The utilization of a check `lhs op rhs`: demand over capacity, lhs/rhs for ≤ and rhs/lhs for ≥,
+ * only when the demand is ≥ 0 and the capacity > 0; then it is ≤ 1 exactly when the check holds.
+ * Otherwise (a negative demand or capacity, a zero capacity, <, >, values that do not divide) null:
+ * never a number that contradicts the verdict.
+ * @example utilizationOf('<=', unit(-2, 'kN'), unit(-1, 'kN')) // null (the check holds; 2.00 would say it is near its limit)
+ */
+function utilizationOf(op: string, lhs: unknown, rhs: unknown): number | null {
+  if (op !== '<=' && op !== '>=') return null;
+  const [demand, capacity] = op === '<=' ? [lhs, rhs] : [rhs, lhs];
+  try {
+    if (math.isNegative(demand as never) || !math.isPositive(capacity as never)) return null;
+  } catch {
+    return null;
+  }
+  const u = ratio(demand, capacity);
+  return u !== null && u >= 0 ? u : null;
+}
+
 function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
   const node = cell.node as AnyNode;
   const op = node.type === 'OperatorNode' && node.fn ? OPS[node.fn] : undefined;
@@ -74,11 +93,7 @@ function evaluateCheck(cell: Cell, scope: Map<string, unknown>): CheckResult {
     // The same mathjs function the operator calls, on the sides already evaluated.
     const compare = math[node.fn as 'smallerEq'] as (a: unknown, b: unknown) => boolean;
     const pass = compare(demand, capacity);
-    // Utilization is demand over capacity for ≤ and capacity over demand for ≥, so ≤ 1 passes.
-    let utilization: number | null = null;
-    if (op === '<=') utilization = ratio(demand, capacity);
-    if (op === '>=') utilization = ratio(capacity, demand);
-    if (utilization !== null && utilization < 0) utilization = null;
+    const utilization = utilizationOf(op, demand, capacity);
     return { isCheck: true, source: cell.source, op, demand, capacity, utilization, pass };
   }
   const value = evaluateNode(node, scope);

@@ -99,6 +99,26 @@ export function splitQuantity(u: Unit, unit?: string | null): { number: number; 
   }
 }
 
+/** The most significant figures a double carries. */
+const MAX_SIGFIGS = 17;
+
+/**
+ * The significant figures to print two values with that differ: `sigfigs`, or more when at
+ * `sigfigs` they would print alike (1.0004 and 1 both as "1"), so that a sheet never shows
+ * `1 ≤ 1` beside a check that fails.
+ * @param show the two values' texts at a number of significant figures
+ * @param differ whether the values differ (else `sigfigs` is kept)
+ * @example separatingSigfigs((sf) => [formatNumber(1.0004, sf), formatNumber(1, sf)], 4, true) // 5
+ */
+export function separatingSigfigs(show: (sf: number) => [string, string], sigfigs: number, differ: boolean): number {
+  if (!differ) return sigfigs;
+  for (let sf = sigfigs; sf <= MAX_SIGFIGS; sf++) {
+    const [a, b] = show(sf);
+    if (a !== b) return sf;
+  }
+  return sigfigs;
+}
+
 /** How far above 1 a utilization may lie and still be the round-off of a check that holds (mathjs compares with this relative tolerance). */
 const HOLDS_TOLERANCE = 1e-9;
 
@@ -142,7 +162,7 @@ export function formatValue(value: unknown, opts: FormatOptions = {}, unit?: str
   }
   if (isCheck(value)) {
     const u = value.utilization === null ? '' : ` (utilization ${formatUtilization(value.utilization, value.pass)})`;
-    return `${value.pass ? 'satisfied' : 'NOT satisfied'}${u}`;
+    return `${value.pass ? 'holds' : 'FAILS'}${u}`;
   }
   if (math.isMatrix(value)) return formatValue((value as { toArray(): unknown[] }).toArray(), opts);
   if (Array.isArray(value)) return `[${value.map((v) => formatValue(v, opts)).join(', ')}]`;

@@ -26,13 +26,13 @@ async function run(args: string[]): Promise<{ code: number; out: string[] }> {
 }
 
 describe('vaultbook render', () => {
-  it('render FILE writes FILE.html beside it and exits 0 when a check is not satisfied (the sheet shows it)', async () => {
+  it('render FILE writes FILE.html beside it and exits 0 when a check fails (the sheet shows it)', async () => {
     const d = scratch();
     copyFileSync(join(fixtures, 'verdicts.md'), join(d, 'verdicts.md'));
     const { code, out } = await run(['render', join(d, 'verdicts.md')]);
     expect(code).toBe(0);
     expect(existsSync(join(d, 'verdicts.html'))).toBe(true);
-    expect(out.join('\n')).toContain('6 checks: 4 satisfied, 2 not satisfied');
+    expect(out.join('\n')).toContain('6 checks: 4 hold, 2 fail');
     expect(defaultHtmlPath('a/b/calc.md')).toBe(join('a/b', 'calc.html'));
   });
 
@@ -96,6 +96,6 @@ describe('vaultbook render', () => {
     expect(r.status).toBe(0);
     expect(r.stdout.startsWith('<!DOCTYPE html>')).toBe(true);
     expect(r.stdout.trimEnd().endsWith('</html>')).toBe(true);
-    expect(r.stderr).toContain('6 checks: 4 satisfied, 2 not satisfied');
+    expect(r.stderr).toContain('6 checks: 4 hold, 2 fail');
   }, 60_000);
 });
