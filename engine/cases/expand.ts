@@ -26,8 +26,10 @@ export interface Case {
   index: number | null;
   /** Input → value text; parsing it gives exactly the value the case expression gave. */
   overrides: Record<string, string>;
-  /** Input → the value itself (for plotting a family against the swept value). */
+  /** Input → the value the case is evaluated with (for the sheet, and plotting a family against the swept value); an input set with --set has its --set value. */
   values: Record<string, unknown>;
+  /** Input set with --set → the value the case itself gives, which --set overrides. */
+  setOver: Record<string, unknown>;
   /** The inputs whose value runs through a list on this line (empty for a single case). */
   swept: string[];
   description: string;
@@ -79,17 +81,24 @@ export function expandCases(doc: CompiledDocument, base: Map<string, CellState>,
     for (let k = 0; k < count; k++) {
       const overrides: Record<string, string> = {};
       const values: Record<string, unknown> = {};
+      const setOver: Record<string, unknown> = {};
       let rest = k;
       for (let j = lists.length - 1; j >= 0; j--) {
         const l = lists[j]!;
         const v = l.values[rest % l.values.length]!;
         rest = Math.floor(rest / l.values.length);
-        values[l.input] = v.value;
-        if (!pinned.has(l.input)) overrides[l.input] = v.text;
+        if (pinned.has(l.input)) {
+          // --set applies on top of every case: the case runs with the --set value.
+          values[l.input] = l.used;
+          setOver[l.input] = v.value;
+        } else {
+          values[l.input] = v.value;
+          overrides[l.input] = v.text;
+        }
       }
       cases.push({
         name: isFamily ? `${line.name}[${k + 1}]` : line.name, family: isFamily ? line.name : null, index: isFamily ? k + 1 : null,
-        overrides: ordered(overrides, line), values: ordered(values, line), swept, description: line.description, line: line.span.start.line,
+        overrides: ordered(overrides, line), values: ordered(values, line), setOver: ordered(setOver, line), swept, description: line.description, line: line.span.start.line,
       });
     }
   }
@@ -107,6 +116,8 @@ interface ValueList {
   column: number;
   isList: boolean;
   values: Array<{ value: unknown; text: string }>;
+  /** The input's value in the document (with --set applied). */
+  used: unknown;
 }
 
 function evaluateLine(line: CaseLine, doc: CompiledDocument, base: Map<string, CellState>, scope: Map<string, unknown>, say: (r: RuleId, m: string, c?: number) => void): ValueList[] | null {
@@ -133,7 +144,7 @@ function evaluateLine(line: CaseLine, doc: CompiledDocument, base: Map<string, C
       if (text === null) { say('cases/dimension', `${v.input}: a case value must be a number, a quantity, true/false or text; this gives ${formatValue(element)}`, v.column); return null; }
       values.push({ value: element, text });
     }
-    lists.push({ input: v.input, column: v.column, isList, values });
+    lists.push({ input: v.input, column: v.column, isList, values, used: current?.status === 'ok' ? current.value : undefined });
   }
   return lists;
 }
