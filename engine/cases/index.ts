@@ -17,6 +17,7 @@ import { suggestName } from '../graph/suggest.js';
 import { expandCases, type Case } from './expand.js';
 import { runCases, resultOf, errorKeys, type CaseResult, type RunOptions } from './run.js';
 import { envelopeOf, type CheckEnvelope } from './envelope.js';
+import { missingMembers } from './read.js';
 
 /**
  * Evaluates the cases partly elsewhere (worker threads) and returns their results in order, or
@@ -90,7 +91,7 @@ export async function judgeCases(doc: CompiledDocument, session: Session, base: 
   const order = [null, ...cases];
   return {
     cases, shown: null, results, checks: envelopeOf(doc.graph, doc.cases, order, results),
-    diagnostics: [...diagnostics, ...caseErrors(results, order)],
+    diagnostics: [...diagnostics, ...(diagnostics.length ? [] : missingMembers(doc, cases)), ...caseErrors(results, order)],
   };
 }
 

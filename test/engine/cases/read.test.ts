@@ -36,8 +36,8 @@ describe('readCaseBook (errors found when the document compiles)', () => {
   });
 
   it('a key that is not a given input is an error on its line and column, with "did you mean"', () => {
-    expect(problems(withCases('EQU = {gama_G: 1.1}'))).toEqual(['19:8 cases/unknown-input EQU: "gama_G" is not a given input of this document; did you mean "gamma_G"?', '15:1 cases/unknown-case the check is limited to "STR", which is no case or family (cases: EQU)',
-      '15:1 cases/unknown-case the check is limited to "axle", which is no case or family (cases: EQU)']);
+    expect(problems(withCases('EQU = {gama_G: 1.1}'))).toEqual(['19:8 cases/unknown-input EQU: "gama_G" is not a given input of this document; did you mean "gamma_G"?', '15:34 cases/unknown-case the check is limited to "STR", which is no case or family (cases: EQU)',
+      '15:34 cases/unknown-case the check is limited to "axle", which is no case or family (cases: EQU)']);
   });
 
   it('a key naming a calc cell is refused: only given inputs can change', () => {
@@ -64,8 +64,29 @@ describe('readCaseBook (errors found when the document compiles)', () => {
     expect(problems(withCases('STR = {x_P: 0.5 * Ll}', 'axle = {x_P: 1 m}'))).toEqual(['19:8 graph/unknown-name STR: x_P: unknown name "Ll"; did you mean "L"?']);
   });
 
+  it('a limit marker written any other way than [in NAME, …] at the end of the comment is an error at the marker, saying what to write', () => {
+    const doc = (marker: string) => [BEAM.replace('[in STR, axle]', marker), fence('cases', 'STR = {gamma_G: 1.35}', 'axle = {x_P: 1 m}')].join('\n');
+    const hint = ' at the very end of the check\'s comment (lower-case "in", a space, then cases or families separated by commas; one member of a family as axle[2])';
+    expect(problems(doc('[in: STR]'))).toEqual([`15:34 cases/syntax cannot read the limit marker "[in: STR]": it is not read as a limit; write [in STR]${hint}`]);
+    expect(problems(doc('[In STR]'))).toEqual([`15:34 cases/syntax cannot read the limit marker "[In STR]": it is not read as a limit; write [in STR]${hint}`]);
+    expect(problems(doc('[in STR] when wet'))).toEqual([`15:34 cases/syntax cannot read the limit marker "[in STR]": the marker must end the comment (here "when wet" follows it); write [in STR]${hint}`]);
+    expect(problems(doc('[ in STR, axle ]'))).toEqual([`15:34 cases/syntax cannot read the limit marker "[ in STR, axle ]": it is not read as a limit; write [in STR, axle]${hint}`]);
+    // Words that merely start with "in" are no marker.
+    expect(problems(doc('[index 3]'))).toEqual([]);
+  });
+
+  it('[in axle[2]] limits a check to one member of a family; a member that does not exist is an error at the marker', async () => {
+    const text = (marker: string) => [BEAM.replace('[in STR, axle]', marker), fence('cases', 'STR = {gamma_G: 1.35}', 'axle = {x_P: steps(1 m, 5 m, 3)}')].join('\n');
+    expect(problems(text('[in axle[2]]'))).toEqual([]);
+    const ok = await evaluateDocument(text('[in axle[2]]'), { file: 'beam.md' });
+    expect(ok.cases.checks.get('c_R')!.cases.map((x) => x.case)).toEqual(['axle[2]']);
+    const bad = await evaluateDocument(text('[in STR, axle[4]]'), { file: 'beam.md' });
+    expect(bad.summary.diagnostics.map((d) => `${d.line}:${d.column} ${d.ruleId} ${d.message}`)).toEqual(['15:43 cases/unknown-case the check is limited to "axle[4]", but axle has 3 cases (axle[1…3])']);
+    expect(problems(text('[in axle[0]]'))).toEqual(['15:34 cases/unknown-case the check is limited to "axle[0]": members of a family count from 1 (axle[1])']);
+  });
+
   it('a check limited to a case that does not exist is an error on the check, with "did you mean"', () => {
-    expect(problems(withCases('STR = {gamma_G: 1.35}', 'axl = {x_P: 1 m}'))).toEqual(['15:1 cases/unknown-case the check is limited to "axle", which is no case or family; did you mean "axl"?']);
+    expect(problems(withCases('STR = {gamma_G: 1.35}', 'axl = {x_P: 1 m}'))).toEqual(['15:34 cases/unknown-case the check is limited to "axle", which is no case or family; did you mean "axl"?']);
   });
 });
 
