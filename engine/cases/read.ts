@@ -53,7 +53,7 @@ export function readCaseBook(blocks: Block[], graph: CellGraph, lib: Library, ct
   };
   for (const block of blocks) {
     if (block.kind !== 'calc' || block.cellKind !== 'cases') continue;
-    for (const stmt of splitStatements(block.body)) {
+    for (const stmt of splitCaseStatements(block.body)) {
       const span = lineSpan(block, stmt);
       const head = CASE_PREFIX.exec(stmt.code);
       const name = head?.[1] ?? null;
@@ -64,6 +64,16 @@ export function readCaseBook(blocks: Block[], graph: CellGraph, lib: Library, ct
       const cell = graph.byId.get(name);
       if (cell || graph.failed.has(name)) {
         report(span, 'cases/duplicate', name, `"${name}" is already the name of a cell${cell ? ` on line ${cell.span.start.line}` : ''}; give the case another name`);
+        continue;
+      }
+      if (stmt.unclosed) {
+        report(span, 'cases/syntax', name, `${name}: a bracket opened here is not closed before the next case line or the end of the cell; end the record with }, e.g. ${name} = {gamma_G: 1.1}`);
+        continue;
+      }
+      const twice = repeatedKey(stmt, head![0].length);
+      if (twice) {
+        report({ ...span, start: { ...span.start, line: block.bodyStart.line + twice.bodyLine } }, 'cases/duplicate', name,
+          `${name}: the input "${twice.key}" is given twice in this case; give each input once`, twice.column);
         continue;
       }
       const line = readLine(stmt, span, name, head![0].length);
@@ -86,6 +96,58 @@ export function readCaseBook(blocks: Block[], graph: CellGraph, lib: Library, ct
     }
   }
   return { lines, limits: readLimits(graph, named, report, blocks) };
+}
+
+/**
+ * splitStatements for a ```cases cell, where a line that starts a new `NAME =` always starts a new
+ * statement: a record left open on one line (`B = {x_P: 2 m`) is an error of that line alone, and
+ * the lines after it are still read.
+ */
+export function splitCaseStatements(body: string): RawStatement[] {
+  const lines = body.split('\n');
+  const starts = lines.map((l, i) => (i === 0 || CASE_PREFIX.test(l) ? i : -1)).filter((i) => i >= 0);
+  return starts.flatMap((from, k) => {
+    const to = starts[k + 1] ?? lines.length;
+    return splitStatements(lines.slice(from, to).join('\n')).map((stmt) => ({
+      ...stmt, lastLine: stmt.lastLine + from, lines: stmt.lines.map((l) => ({ ...l, bodyLine: l.bodyLine + from })),
+    }));
+  });
+}
+
+/** The first input a case record names twice (mathjs would keep the last one silently), with where it is. */
+function repeatedKey(stmt: RawStatement, from: number): { key: string; bodyLine: number; column: number } | null {
+  const seen = new Set<string>();
+  const code = stmt.code;
+  let depth = 0;
+  let expectKey = false;
+  for (let i = from; i < code.length; i++) {
+    const c = code[i]!;
+    let key: string | null = null;
+    if (c === '"' || c === "'") {
+      const end = code.indexOf(c, i + 1);
+      if (end < 0) return null;
+      if (depth === 1 && expectKey) key = code.slice(i + 1, end);
+      else { i = end; continue; }
+    } else if (c === '{' || c === '(' || c === '[') {
+      depth++;
+      expectKey = depth === 1 && c === '{';
+      continue;
+    } else if (c === '}' || c === ')' || c === ']') {
+      depth--;
+      continue;
+    } else if (depth === 1 && c === ',') {
+      expectKey = true;
+      continue;
+    } else if (depth === 1 && expectKey && /[\p{L}_]/u.test(c)) {
+      key = /^[\p{L}_][\p{L}\p{N}_]*/u.exec(code.slice(i))![0];
+    }
+    if (key === null) continue;
+    if (seen.has(key)) return { key, ...locateInStatement(stmt, i) };
+    seen.add(key);
+    expectKey = false;
+    i += c === '"' || c === "'" ? key.length + 1 : key.length - 1;
+  }
+  return null;
 }
 
 function readLine(stmt: RawStatement, span: Span, name: string, headLength: number): { values: Array<{ input: string; source: string; node: MathNode; column: number; line: number }> } | string {

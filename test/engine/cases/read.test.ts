@@ -51,6 +51,25 @@ describe('readCaseBook (errors found when the document compiles)', () => {
     ]);
   });
 
+  it('an input given twice in one case is an error at its second mention (mathjs would keep the last silently)', () => {
+    expect(problems(withCases('STR = {x_P: 1 m, x_P: 2 m}', 'axle = {x_P: 1 m}'))).toEqual(['19:18 cases/duplicate STR: the input "x_P" is given twice in this case; give each input once']);
+    expect(problems(withCases('STR = {x_P: 1 m,', '  "x_P": 2 m}', 'axle = {x_P: 1 m}'))).toEqual(['20:3 cases/duplicate STR: the input "x_P" is given twice in this case; give each input once']);
+    // The same input in two different cases, or inside a nested value, is no repetition.
+    expect(problems(withCases('STR = {x_P: 1 m, gamma_G: 1.35}', 'axle = {x_P: steps(1 m, 2 m, 3)}'))).toEqual([]);
+  });
+
+  it('a record left open is an error of its line alone: the lines after it are still read and their errors reported', () => {
+    expect(problems(withCases('STR = {x_P: 2 m', 'axle = {gama_G: 1}', 'C = {x_P: 1 m'))).toEqual([
+      '19:1 cases/syntax STR: a bracket opened here is not closed before the next case line or the end of the cell; end the record with }, e.g. STR = {gamma_G: 1.1}',
+      '20:9 cases/unknown-input axle: "gama_G" is not a given input of this document; did you mean "gamma_G"?',
+      '21:1 cases/syntax C: a bracket opened here is not closed before the next case line or the end of the cell; end the record with }, e.g. C = {gamma_G: 1.1}',
+    ]);
+    // A record may still run over several lines.
+    const doc = compile(withCases('STR = {x_P: 2 m,', '       gamma_G: 1.35}  # over two lines', 'axle = {x_P: 1 m}'), { file: 'beam.md' });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.cases.lines.map((l) => [l.name, l.span.start.line, l.values.map((v) => v.input)])).toEqual([['STR', 19, ['x_P', 'gamma_G']], ['axle', 21, ['x_P']]]);
+  });
+
   it('a line that is not NAME = {…} is an error that shows the format', () => {
     expect(problems(withCases('STR = 1.35', 'axle = {x_P: 1 m}'))).toEqual(['19:1 cases/syntax STR: a case is a record of inputs, e.g. STR = {gamma_G: 1.1}']);
   });
