@@ -12,6 +12,7 @@ import type { CaseLine, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic, RuleId } from '../diagnostic.js';
 import { formatValue } from '../values/format.js';
 import { steps } from './steps.js';
+import { checkRange } from '../runtime/evaluate.js';
 
 /** The most cases a document may ask for (the document as written not counted). */
 export const MAX_CASES = 1000;
@@ -57,12 +58,13 @@ export function expandCases(doc: CompiledDocument, base: Map<string, CellState>,
   const diagnostics: Diagnostic[] = [];
   let total = 0;
   for (const line of doc.cases.lines) {
-    const say = (ruleId: RuleId, message: string, column = 1) => diagnostics.push({
+    const say = (ruleId: RuleId, message: string, column = 1, severity: Diagnostic['severity'] = 'error') => diagnostics.push({
       message: `${line.name}: ${message}`, file: doc.file, line: line.span.start.line, column, endLine: line.span.end.line,
-      endColumn: line.span.end.column, cellId: line.name, ruleId, severity: 'error',
+      endColumn: line.span.end.column, cellId: line.name, ruleId, severity,
     });
     const lists = evaluateLine(line, doc, base, scope, say);
     if (!lists) continue;
+    for (const l of lists) if (!pinned.has(l.input)) warnOutOfRange(doc, l, say);
     const count = lists.reduce((n, l) => n * l.values.length, 1);
     if (count === 0) {
       const empty = lists.find((l) => l.values.length === 0)!;
@@ -103,6 +105,16 @@ export function expandCases(doc: CompiledDocument, base: Map<string, CellState>,
     }
   }
   return { cases, diagnostics };
+}
+
+/** A warning on the case line (once per input, a family's count) when a value lies outside the input's `[lo, hi]`. */
+function warnOutOfRange(doc: CompiledDocument, l: ValueList, say: (r: RuleId, m: string, c?: number, severity?: Diagnostic['severity']) => void): void {
+  const given = doc.graph.byId.get(l.input);
+  if (!given?.range) return;
+  const outside = l.values.map((v) => checkRange(given, v.value, { file: doc.file, diagnostics: [] })).filter((d): d is Diagnostic => d !== null);
+  if (!outside.length) return;
+  const more = outside.length > 1 ? ` (and ${outside.length - 1} more of the ${l.values.length} values)` : '';
+  say('value/range', `${outside[0]!.message}${more}`, l.column, 'warning');
 }
 
 function ordered<T>(record: Record<string, T>, line: CaseLine): Record<string, T> {

@@ -118,6 +118,19 @@ describe('expandCases (errors found against the document as written)', () => {
     ]);
   });
 
+  it('a case value outside its input\'s [lo, hi] range is a warning on the case line (once, a family with its count), not an error', async () => {
+    const ranged = withCases('STR = {x_P: 9 m}  # beyond the span', 'axle = {x_P: steps(0 m, 8 m, 5)}').replace('x_P = 3 m  # where the load stands', 'x_P = 3 m  # where the load stands [0 m, 4 m]');
+    const s = await evaluated(ranged);
+    expect(s.diagnostics.map((d) => `${d.line}:${d.column} ${d.severity} ${d.ruleId} ${d.message}`)).toEqual([
+      '19:8 warning value/range STR: x_P = 9 m is outside the allowed range [0 m, 4 m]',
+      // steps(0 m, 8 m, 5): 0, 2, 4, 6, 8 m; 6 m and 8 m lie outside.
+      '20:9 warning value/range axle: x_P = 6 m is outside the allowed range [0 m, 4 m] (and 1 more of the 5 values)',
+    ]);
+    // --set x_P pins the input in every case: the case values are not used, so no warning.
+    const pinned = await evaluateDocument(ranged, { file: 'beam.md', overrides: { x_P: '2 m' } });
+    expect(pinned.summary.diagnostics).toEqual([]);
+  });
+
   it('an empty family is an error on its line', async () => {
     const s = await evaluated(withCases('STR = {gamma_G: 1.35}', 'axle = {x_P: steps(1 m, 2 m, 0)}'));
     expect(s.diagnostics.map((d) => `${d.line} ${d.ruleId} ${d.message}`)).toEqual(['20 cases/empty-family axle: the list for x_P is empty, so the family has no case']);
