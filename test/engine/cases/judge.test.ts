@@ -148,6 +148,23 @@ describe('--case NAME', () => {
   });
 });
 
+describe('--set of another dimension (the rule the live page applies to an edit)', () => {
+  it('--set refuses a value whose dimension is not the input\'s, naming both, on the input\'s line; check exits 2', async () => {
+    const problems = (overrides: Record<string, string>) => compile(BEAM, { file: 'beam.md', overrides }).diagnostics.map((d) => `${d.line}:${d.column} ${d.severity} ${d.ruleId} ${d.message}`);
+    expect(problems({ P: '5 m' })).toEqual(['4:1 error units/mismatch --set P: P is force (kN); "5 m" is length (m)']);
+    expect(problems({ gamma_G: '2 kN' })).toEqual(['3:1 error units/mismatch --set gamma_G: gamma_G is a plain number; "2 kN" is force (kN)']);
+    expect(problems({ L: '7' })).toEqual(['2:1 error units/mismatch --set L: "7" has no unit, and L is written in m; write "7 m"']);
+    // Same dimension in other units, and a plain number for a plain number, are fine.
+    expect(problems({ P: '2 kip', L: '20 ft', gamma_G: '1.35' })).toEqual([]);
+    const dir = mkdtempSync(join(tmpdir(), 'vaultbook-set-dim-'));
+    const file = join(dir, 'beam.md');
+    writeFileSync(file, BEAM);
+    const out: string[] = [];
+    expect(await main(['check', file, '--set', 'P=5 m'], (s) => out.push(s), (s) => out.push(s))).toBe(2);
+    expect(out.join('\n')).toContain('beam.md:4:1  error: --set P: P is force (kN); "5 m" is length (m)');
+  });
+});
+
 describe('cost: a case re-evaluates exactly its dirty subgraph', () => {
   it('runCases evaluates each cell downstream of the case\'s inputs once and nothing else', async () => {
     const doc = compile(BEAM, { file: 'beam.md' });
