@@ -14,6 +14,7 @@ import { checkFields } from './graph/fields.js';
 import { bindGraph, type Session } from './runtime/bind.js';
 import { registerLibrary } from './library.js';
 import { readOverride } from './parse/override.js';
+import { setDimensionProblem } from './parse/set-dimension.js';
 import { summarise, type Summary } from './summary.js';
 import { readCaseBook } from './cases/read.js';
 import { judgeCases, findCase, type CaseRun, type CaseRunner } from './cases/index.js';
@@ -30,7 +31,9 @@ function applyOverrides(cells: Cell[], overrides: Record<string, string>, ctx: S
   const names = new Set(cells.map((c) => c.name));
   for (const [name, text] of Object.entries(overrides)) {
     const cell = cells.find((c) => c.name === name);
-    const reading = readOverride(cell, name, text, (n) => names.has(n));
+    const read = readOverride(cell, name, text, (n) => names.has(n));
+    const wrong = read.ok ? setDimensionProblem(read.cell, text) : null;
+    const reading = wrong ? { ok: false as const, ruleId: 'units/mismatch' as const, message: wrong } : read;
     if (!reading.ok) {
       const inputs = cells.filter((c) => c.kind === 'given').map((c) => c.name).join(', ');
       const list = reading.ruleId === 'set/unknown-input' && inputs ? ` (inputs: ${inputs})` : '';

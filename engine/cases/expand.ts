@@ -13,6 +13,7 @@ import type { CaseLine, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic, RuleId } from '../diagnostic.js';
 import { formatValue } from '../values/format.js';
 import { steps } from './steps.js';
+import { checkRange } from '../runtime/evaluate.js';
 
 /** The most cases a document may ask for (the document as written not counted). */
 export const MAX_CASES = 1000;
@@ -27,8 +28,10 @@ export interface Case {
   index: number | null;
   /** Input → value text; parsing it gives exactly the value the case expression gave. */
   overrides: Record<string, string>;
-  /** Input → the value itself (for plotting a family against the swept value). */
+  /** Input → the value the case is evaluated with (for the sheet, and plotting a family against the swept value); an input set with --set has its --set value. */
   values: Record<string, unknown>;
+  /** Input set with --set → the value the case itself gives, which --set overrides. */
+  setOver: Record<string, unknown>;
   /** The inputs whose value runs through a list on this line (empty for a single case). */
   swept: string[];
   description: string;
@@ -56,12 +59,13 @@ export function expandCases(doc: CompiledDocument, base: Map<string, CellState>,
   const diagnostics: Diagnostic[] = [];
   let total = 0;
   for (const line of doc.cases.lines) {
-    const say = (ruleId: RuleId, message: string, column = 1) => diagnostics.push({
+    const say = (ruleId: RuleId, message: string, column = 1, severity: Diagnostic['severity'] = 'error') => diagnostics.push({
       message: `${line.name}: ${message}`, file: doc.file, line: line.span.start.line, column, endLine: line.span.end.line,
-      endColumn: line.span.end.column, cellId: line.name, ruleId, severity: 'error',
+      endColumn: line.span.end.column, cellId: line.name, ruleId, severity,
     });
     const lists = evaluateLine(line, doc, base, scope, say);
     if (!lists) continue;
+    for (const l of lists) if (!pinned.has(l.input)) warnOutOfRange(doc, l, say);
     const count = lists.reduce((n, l) => n * l.values.length, 1);
     if (count === 0) {
       const empty = lists.find((l) => l.values.length === 0)!;
@@ -80,21 +84,38 @@ export function expandCases(doc: CompiledDocument, base: Map<string, CellState>,
     for (let k = 0; k < count; k++) {
       const overrides: Record<string, string> = {};
       const values: Record<string, unknown> = {};
+      const setOver: Record<string, unknown> = {};
       let rest = k;
       for (let j = lists.length - 1; j >= 0; j--) {
         const l = lists[j]!;
         const v = l.values[rest % l.values.length]!;
         rest = Math.floor(rest / l.values.length);
-        values[l.input] = v.value;
-        if (!pinned.has(l.input)) overrides[l.input] = v.text;
+        if (pinned.has(l.input)) {
+          // --set applies on top of every case: the case runs with the --set value.
+          values[l.input] = l.used;
+          setOver[l.input] = v.value;
+        } else {
+          values[l.input] = v.value;
+          overrides[l.input] = v.text;
+        }
       }
       cases.push({
         name: isFamily ? `${line.name}[${k + 1}]` : line.name, family: isFamily ? line.name : null, index: isFamily ? k + 1 : null,
-        overrides: ordered(overrides, line), values: ordered(values, line), swept, description: line.description, line: line.span.start.line,
+        overrides: ordered(overrides, line), values: ordered(values, line), setOver: ordered(setOver, line), swept, description: line.description, line: line.span.start.line,
       });
     }
   }
   return { cases, diagnostics };
+}
+
+/** A warning on the case line (once per input, a family's count) when a value lies outside the input's `[lo, hi]`. */
+function warnOutOfRange(doc: CompiledDocument, l: ValueList, say: (r: RuleId, m: string, c?: number, severity?: Diagnostic['severity']) => void): void {
+  const given = doc.graph.byId.get(l.input);
+  if (!given?.range) return;
+  const outside = l.values.map((v) => checkRange(given, v.value, { file: doc.file, diagnostics: [] })).filter((d): d is Diagnostic => d !== null);
+  if (!outside.length) return;
+  const more = outside.length > 1 ? ` (and ${outside.length - 1} more of the ${l.values.length} values)` : '';
+  say('value/range', `${outside[0]!.message}${more}`, l.column, 'warning');
 }
 
 function ordered<T>(record: Record<string, T>, line: CaseLine): Record<string, T> {
@@ -108,6 +129,8 @@ interface ValueList {
   column: number;
   isList: boolean;
   values: Array<{ value: unknown; text: string }>;
+  /** The input's value in the document (with --set applied). */
+  used: unknown;
 }
 
 function evaluateLine(line: CaseLine, doc: CompiledDocument, base: Map<string, CellState>, scope: Map<string, unknown>, say: (r: RuleId, m: string, c?: number) => void): ValueList[] | null {
@@ -134,7 +157,7 @@ function evaluateLine(line: CaseLine, doc: CompiledDocument, base: Map<string, C
       if (text === null) { say('cases/dimension', `${v.input}: a case value must be a number, a quantity, true/false or text; this gives ${formatValue(element)}`, v.column); return null; }
       values.push({ value: element, text });
     }
-    lists.push({ input: v.input, column: v.column, isList, values });
+    lists.push({ input: v.input, column: v.column, isList, values, used: current?.status === 'ok' ? current.value : undefined });
   }
   return lists;
 }

@@ -17,6 +17,7 @@ import { suggestName } from '../graph/suggest.js';
 import { expandCases, type Case } from './expand.js';
 import { runCases, resultOf, errorKeys, type CaseResult, type RunOptions } from './run.js';
 import { envelopeOf, type CheckEnvelope } from './envelope.js';
+import { missingMembers } from './read.js';
 
 /**
  * Evaluates the cases partly elsewhere (worker threads) and returns their results in order, or
@@ -58,6 +59,8 @@ function caseErrors(results: CaseResult[], cases: readonly (Case | null)[]): Dia
     const c = cases[i];
     if (!c) return;
     for (const d of r.diagnostics) {
+      // A case value outside its input's range is warned about on the case line (expandCases).
+      if (d.ruleId === 'value/range' && d.cellId !== null && d.cellId in c.overrides) continue;
       const key = `${c.family ?? c.name}\n${d.cellId}\n${d.ruleId}`;
       const entry = seen.get(key);
       if (entry) entry.more++;
@@ -90,7 +93,7 @@ export async function judgeCases(doc: CompiledDocument, session: Session, base: 
   const order = [null, ...cases];
   return {
     cases, shown: null, results, checks: envelopeOf(doc.graph, doc.cases, order, results),
-    diagnostics: [...diagnostics, ...caseErrors(results, order)],
+    diagnostics: [...diagnostics, ...(diagnostics.length ? [] : missingMembers(doc, cases)), ...caseErrors(results, order)],
   };
 }
 

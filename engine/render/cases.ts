@@ -97,6 +97,12 @@ function overridesHtml(g: Group, sigfigs: number): string {
     const values = g.members.map((m) => m.values[input]);
     const shown = (v: unknown) => escapeHtml(formatValue(v, { sigfigs }));
     const name = typeset(symbolTex(input));
+    if (input in first.setOver) {
+      // --set applies on top of every case: the value used is the --set one, not the line's.
+      const own = g.members.map((m) => shown(m.setOver[input]));
+      const ownText = first.swept.includes(input) ? `${own[0]} … ${own[own.length - 1]}` : own[0];
+      return `<span class="vb-caseset">${name} = ${shown(values[0])} <span class="vb-note">(--set; the case gives ${ownText})</span></span>`;
+    }
     if (!first.swept.includes(input)) return `<span class="vb-caseset">${name} = ${shown(values[0])}</span>`;
     const distinct = new Set(values.map(shown)).size;
     return `<span class="vb-caseset">${name} = ${shown(values[0])} … ${shown(values[values.length - 1])} (${distinct} values)</span>`;
@@ -171,6 +177,8 @@ function plotHtml(g: Group, run: CaseRun, ctx: RenderContext): string {
   const first = g.members[0]!;
   if (!first.family || first.swept.length !== 1 || g.members.length < 2) return '';
   const input = first.swept[0]!;
+  // An input pinned by --set does not move: nothing to plot against.
+  if (input in first.setOver) return '';
   const unit = unitOf(first.values[input]);
   const xs = g.members.map((m) => sweptNumber(m.values[input], unit));
   if (xs.some((x) => x === null)) return '';

@@ -115,11 +115,11 @@ describe('evaluateDocument with cases', () => {
 });
 
 describe('warnings in cases', () => {
-  it('a case that puts an input outside its range warns once for its family, on the input\'s line', async () => {
+  it('a case that puts an input outside its range warns once for its family, on the case line', async () => {
     const text = BEAM.replace('x_P = 3 m  # where the load stands', 'x_P = 3 m  # where the load stands [1 m, 5 m]');
     const { summary } = await evaluateDocument(text, { file: 'beam.md' });
-    // axle[1] at 0.6 m and axle[5] at 5.4 m lie outside [1 m, 5 m]; x_P is on line 5.
-    expect(summary.diagnostics.map((d) => [d.severity, d.line, d.message.replace(/ = .*$/, '')])).toEqual([['warning', 5, 'in case axle[1] (and 1 more of its family): x_P']]);
+    // axle[1] at 0.6 m and axle[5] at 5.4 m lie outside [1 m, 5 m]; the axle line is line 24 (x_P itself is on line 5).
+    expect(summary.diagnostics.map((d) => [d.severity, d.line, d.message])).toEqual([['warning', 24, 'axle: x_P = 0.6 m is outside the allowed range [1 m, 5 m] (and 1 more of the 5 values)']]);
   });
 });
 
@@ -145,6 +145,23 @@ describe('--case NAME', () => {
     const all: string[] = [];
     expect(await main(['check', file], (s) => all.push(s), () => {})).toBe(1);
     expect(all.find((l) => l.includes('c_M:'))).toContain('[governing: STR]');
+  });
+});
+
+describe('--set of another dimension (the rule the live page applies to an edit)', () => {
+  it('--set refuses a value whose dimension is not the input\'s, naming both, on the input\'s line; check exits 2', async () => {
+    const problems = (overrides: Record<string, string>) => compile(BEAM, { file: 'beam.md', overrides }).diagnostics.map((d) => `${d.line}:${d.column} ${d.severity} ${d.ruleId} ${d.message}`);
+    expect(problems({ P: '5 m' })).toEqual(['4:1 error units/mismatch --set P: P is force (kN); "5 m" is length (m)']);
+    expect(problems({ gamma_G: '2 kN' })).toEqual(['3:1 error units/mismatch --set gamma_G: gamma_G is a plain number; "2 kN" is force (kN)']);
+    expect(problems({ L: '7' })).toEqual(['2:1 error units/mismatch --set L: "7" has no unit, and L is written in m; write "7 m"']);
+    // Same dimension in other units, and a plain number for a plain number, are fine.
+    expect(problems({ P: '2 kip', L: '20 ft', gamma_G: '1.35' })).toEqual([]);
+    const dir = mkdtempSync(join(tmpdir(), 'vaultbook-set-dim-'));
+    const file = join(dir, 'beam.md');
+    writeFileSync(file, BEAM);
+    const out: string[] = [];
+    expect(await main(['check', file, '--set', 'P=5 m'], (s) => out.push(s), (s) => out.push(s))).toBe(2);
+    expect(out.join('\n')).toContain('beam.md:4:1  error: --set P: P is force (kN); "5 m" is length (m)');
   });
 });
 

@@ -64,6 +64,27 @@ describe('renderSheet with cases', () => {
   });
 });
 
+describe('the cases table under --set', () => {
+  it('an input set with --set shows the value every case runs with, marked as --set over the case\'s own value', async () => {
+    const { doc, states, warnings, cases } = await evaluateDocument(BEAM, { file: 'beam.md', overrides: { gamma_G: '2' } });
+    const sheet = parse(renderSheet({ doc, states, warnings, cases, options: { standalone: false } }));
+    const rows = sheet.querySelectorAll('.vb-cases table.vb-cases tbody tr').map((r) => r.querySelectorAll('td')[1]!.text.replace(/\s+/g, ' ').trim());
+    expect(rows[0]).toContain('= 2 (--set; the case gives 1.35)');
+    expect(rows[0]).not.toMatch(/= 1\.35(?! ?\))/);
+    // The case was computed with 2: STR gives M = 2 · 10 · 3 · 3 / 6 = 30 kN m, u = 1.5 (statics as above).
+    const str = cases.checks.get('c_M')!.cases.find((x) => x.case === 'STR')!;
+    expect(str.utilization).toBeCloseTo(1.5, 9);
+  });
+
+  it('a swept input pinned by --set shows the --set value and the family\'s own range, and gets no plot', async () => {
+    const { doc, states, warnings, cases } = await evaluateDocument(BEAM, { file: 'beam.md', overrides: { x_P: '2 m' } });
+    const sheet = parse(renderSheet({ doc, states, warnings, cases, options: { standalone: false } }));
+    const axle = sheet.querySelectorAll('.vb-cases table.vb-cases tbody tr')[1]!.querySelectorAll('td')[1]!.text.replace(/\s+/g, ' ');
+    expect(axle).toContain('= 2 m (--set; the case gives 0.6 m … 5.4 m)');
+    expect(sheet.querySelector('.vb-caseplot')).toBeNull();
+  });
+});
+
 describe('render and check on the command line', () => {
   let file = '';
   beforeAll(() => { file = join(mkdtempSync(join(tmpdir(), 'vaultbook-cases-render-')), 'beam.md'); writeFileSync(file, BEAM); });
