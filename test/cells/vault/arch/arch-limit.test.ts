@@ -153,6 +153,10 @@ describe('archLimit and archRing: bad input', () => {
   it('archRing(voussoirs: 0) is a RangeError naming voussoirs', () => {
     expect(() => archRing({ ...ok, voussoirs: 0 })).toThrow(/voussoirs/);
   });
+  it('archRing refuses fewer than 20 voussoirs (2 gave t_min 6e-9 m and gsf 1.3e8) and more than 10000; 20 is accepted', () => {
+    for (const n of [2, 19, 10001]) expect(() => archRing({ ...ok, voussoirs: n })).toThrow(/voussoirs must be a whole number from 20 to 10000, got/);
+    expect(archRing({ ...ok, voussoirs: 20 }).voussoirs).toBe(20);
+  });
   it('archRing(unknown shape, missing rise, both span and radius) are RangeErrors naming the option', () => {
     expect(() => archRing({ ...ok, shape: 'gothic' })).toThrow(/shape/);
     expect(() => archRing({ ...ok, rise: undefined })).toThrow(/rise/);
