@@ -106,13 +106,13 @@ export const ARCH_LIMIT_REFERENCE: CellFunctionReference = {
 };
 
 export const THRUST_LINE_REFERENCE: CellFunctionReference = {
-  params: { ring: 'The result of arch_ring.', loads: 'Symmetric loads (as for arch_limit).', ...LOADS_REFERENCE, H: 'Horizontal thrust of the line (force, > 0, whole strip).' },
+  params: { ring: 'The result of arch_ring.', loads: 'Symmetric loads (as for arch_limit).', ...LOADS_REFERENCE, H: 'Horizontal thrust of the line (force, whole strip), from H_min to H_max of arch_limit; outside that range the call is refused.' },
   fields: {
     result: 'The line of thrust: a list of points {x, y}, one per joint (and vertical cut), left to right.',
     x: 'Horizontal position of the centre of pressure from the crown axis (m; negative on the left). The result is a list of points {x, y}, one per joint (and vertical cut), left to right.',
     y: 'Height above the springing of the intrados (m).',
   },
-  method: 'Symmetry fixes V; of the lines with this H the best centred one (least largest |e|/half-thickness) is returned, a two-variable linear programme. Within [H_min, H_max] it lies in the ring.',
+  method: 'Symmetry fixes V; of the lines with this H the best centred one (least largest |e|/half-thickness) is returned, a two-variable linear programme. Within [H_min, H_max] it lies in the ring; an H outside that range is refused with the range, since no line of thrust with it lies in the ring.',
   assumptions: ['Loads symmetric about the crown.', 'x here is measured from the crown axis, unlike the positions of arch_limit.'],
   sources: ['Heyman, The Stone Skeleton, 1995, ch. 2 (from memory).'],
 };
