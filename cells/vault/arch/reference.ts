@@ -31,7 +31,7 @@ const HINGE_FIELDS = (what: string): Record<string, string> => ({
   [`${what}.x`]: 'Horizontal position of the hinge on its face, from the left springing of the intrados (m).',
   [`${what}.z`]: 'Height of the hinge above the springing of the intrados (m).',
   [`${what}.N`]: 'Normal force at the joint (compression positive), whole strip.',
-  [`${what}.T`]: 'Force along the joint (positive towards the extrados), whole strip.',
+  [`${what}.T`]: 'Force along the joint, whole strip: the force the part of the ring left of the joint exerts on the part right of it, resolved along the joint, positive towards the extrados. Mirror-image joints of a symmetric state therefore show equal and opposite T; the force itself has horizontal component N·cos(angle) + T·sin(angle) = H.',
 });
 
 export const ARCH_RING_REFERENCE: CellFunctionReference = {
