@@ -62,13 +62,15 @@ function isInfinite(v: unknown): boolean {
   return x === Infinity || x === -Infinity;
 }
 
-/** A quantity with a complex value (sqrt(x - 5 m^2) for x = 4 m^2), or a list holding one: mathjs makes it, nothing can show it. */
+/** A quantity with a complex value (sqrt(x - 5 m^2) for x = 4 m^2), or a list or record holding one: mathjs makes it, nothing can show it. */
 function holdsComplex(v: unknown, depth = 0): boolean {
   if (depth > 4) return false;
   if (math.isComplex(v)) return true;
   if (math.isUnit(v)) return math.isComplex((v as Unit).value);
   if (Array.isArray(v)) return v.some((x) => holdsComplex(x, depth + 1));
   if (math.isMatrix(v)) return holdsComplex((v as { toArray(): unknown[] }).toArray(), depth + 1);
+  // A record written in the line ({a: sqrt(-4 m^2)}); kernel results are plain records too.
+  if (typeof v === 'object' && v !== null && Object.getPrototypeOf(v) === Object.prototype) return Object.values(v).some((x) => holdsComplex(x, depth + 1));
   return false;
 }
 
