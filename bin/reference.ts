@@ -24,7 +24,7 @@ const DIMENSIONS: Record<string, string> = {
   'N/m^3': 'unit weight (force per volume), N/m³ (shown in kN/m³)',
   rad: 'angle (give it in deg or rad; shown in degrees)',
   '1': 'plain number',
-  count: 'whole number ≥ 0',
+  count: 'whole number',
   text: 'text in quotes',
   boolean: 'true or false',
   any: 'number or quantity',

@@ -23,9 +23,10 @@ function columns(rows: string[][], indent = '  '): string[] {
   return rows.map((r) => indent + r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i]!))).join('  ').trimEnd());
 }
 
-/** What one item of a list is called: "hinge" for `.hinges`, else "item". */
+/** What one item of a list is called: "hinge" for `.hinges` and `.mechanism`, else "item". */
 function itemNoun(path: string): string {
   const last = path.slice(path.lastIndexOf('.') + 1);
+  if (last === 'mechanism') return 'hinge';
   return last.length > 1 && last.endsWith('s') ? last.slice(0, -1) : 'item';
 }
 

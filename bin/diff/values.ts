@@ -8,7 +8,7 @@
  * Kernel results are walked field by field (`a.H_min`); lists are compared by
  * meaning, not by index: their items are paired by an alignment that keeps their
  * order and pairs the closest items (a hinge with the hinge of the same face at the
- * nearest angle), so a hinge added before others reads as one hinge added, not as
+ * nearest angle, up to 15° away), so a hinge added before others reads as one hinge added, not as
  * every later hinge moved. Pure: no Node imports.
  */
 import { math } from '../../cells/math.js';
@@ -117,6 +117,11 @@ const isRecord = (n: Node | undefined): n is Node & { value: Record<string, Node
  */
 function itemDistance(a: Map<string, Leaf>, b: Map<string, Leaf>, spread: Map<string, number>): number {
   if (a.size !== b.size) return Infinity;
+  const hinge = hingeDistance(a, b);
+  if (hinge !== undefined) return hinge;
+  // Items named by their state (a sliding ratio of "least thrust", "collapse"): the same state is the same item.
+  const [sa, sb] = [a.get('.state')?.value, b.get('.state')?.value];
+  if (typeof sa === 'string' && typeof sb === 'string') return sa === sb ? 0 : Infinity;
   let d = 0;
   for (const [path, x] of a) {
     const y = b.get(path);
@@ -130,6 +135,25 @@ function itemDistance(a: Map<string, Leaf>, b: Map<string, Leaf>, spread: Map<st
     }
   }
   return d;
+}
+
+/** A hinge that moves along its face by up to this angle is the same hinge moved (common practice for reading mechanisms; ours). */
+const HINGE_MOVE_DEG = 15;
+
+/**
+ * How far apart two hinges are (items with an angle and a face): on the same face, the angle moved as a
+ * fraction of HINGE_MOVE_DEG, scaled under the cost of one removal and one addition so that any move up
+ * to HINGE_MOVE_DEG pairs; Infinity on another face or further. Their forces (N, T) follow the loads and
+ * say nothing about which hinge is which. Undefined for items that are not hinges.
+ */
+function hingeDistance(a: Map<string, Leaf>, b: Map<string, Leaf>): number | undefined {
+  const [ax, bx] = [a.get('.angle'), b.get('.angle')];
+  if (!ax || !bx || !a.has('.face') || typeof ax.value !== 'number' || typeof bx.value !== 'number') return undefined;
+  if (a.get('.face')!.value !== b.get('.face')?.value) return Infinity;
+  const [da, db] = [convert(ax.value, ax.unit, 'deg'), convert(bx.value, bx.unit, 'deg')];
+  if (da === null || db === null) return undefined;
+  const moved = Math.abs(db - da);
+  return moved <= HINGE_MOVE_DEG ? (moved / HINGE_MOVE_DEG) * 2 * GAP * 0.999 : Infinity;
 }
 
 /** Spread of each numeric field over the items of both lists (range, else magnitude, else 1). */

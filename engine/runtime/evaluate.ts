@@ -48,6 +48,32 @@ function isInfinite(v: unknown): boolean {
   return x === Infinity || x === -Infinity;
 }
 
+/** A quantity with a complex value (sqrt(x - 5 m^2) for x = 4 m^2), or a list or record holding one: mathjs makes it, nothing can show it. */
+function holdsComplex(v: unknown, depth = 0): boolean {
+  if (depth > 4) return false;
+  if (math.isComplex(v)) return true;
+  if (math.isUnit(v)) return math.isComplex((v as Unit).value);
+  if (Array.isArray(v)) return v.some((x) => holdsComplex(x, depth + 1));
+  if (math.isMatrix(v)) return holdsComplex((v as { toArray(): unknown[] }).toArray(), depth + 1);
+  // A record written in the line ({a: sqrt(-4 m^2)}); kernel results are plain records too.
+  if (typeof v === 'object' && v !== null && Object.getPrototypeOf(v) === Object.prototype) return Object.values(v).some((x) => holdsComplex(x, depth + 1));
+  return false;
+}
+
+/** What made a complex number, from the functions the line calls. */
+function complexCause(node: MathNode): string {
+  const names = new Set<string>();
+  node.traverse((n) => {
+    const any = n as AnyNode & { name?: string };
+    if (any.type === 'FunctionNode' && typeof any.fn === 'object') names.add(String((any.fn as { name?: string }).name));
+    // A whole-number power (m^2) cannot make one; a fractional one can.
+    const exponent = any.type === 'OperatorNode' && any.fn === 'pow' ? (any.args?.[1] as { value?: unknown } | undefined) : undefined;
+    if (exponent && !Number.isInteger(Number(exponent.value))) names.add('pow');
+  });
+  if (names.has('sqrt') && names.size === 1) return 'the square root of a negative value (check the sign of what is under sqrt)';
+  return 'a square root, power or logarithm of a negative value';
+}
+
 /** A figure is SVG text from a figure function (or an object carrying it). */
 function isFigureValue(v: unknown): boolean {
   if (typeof v === 'string') return v.trimStart().startsWith('<svg');
@@ -110,7 +136,10 @@ function valueProblem(cell: Cell, value: unknown, scope: Map<string, unknown>): 
     return { message: `the result is ${formatValue(value)}: a division by zero or a value out of range`, ruleId: 'value/non-finite' };
   }
   if (math.isComplex(value)) {
-    return { message: `the result is the complex number ${String(value)}: a square root, power or logarithm of a negative value`, ruleId: 'value/non-finite' };
+    return { message: `the result is the complex number ${String(value)}: ${complexCause(cell.node)}`, ruleId: 'value/non-finite' };
+  }
+  if (holdsComplex(value)) {
+    return { message: `the result is a complex number: ${complexCause(cell.node)}`, ruleId: 'value/non-finite' };
   }
   if (value === undefined) {
     // An index by a name (a[k]) can reach a field that is not there.

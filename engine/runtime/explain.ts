@@ -62,6 +62,58 @@ function findUnitClash(node: AnyNode, scope: Map<string, unknown>): string | nul
   return null;
 }
 
+/** The calls named fn in a line, with their arguments evaluated where they can be. */
+function callsOf(cell: Cell, fn: string, scope: Map<string, unknown>): unknown[][] {
+  const out: unknown[][] = [];
+  (cell.node as MathNode).traverse((n) => {
+    const any = n as AnyNode & { fn?: { name?: string } };
+    if (n.type !== 'FunctionNode' || (any.fn as { name?: string } | undefined)?.name !== fn) return;
+    try {
+      out.push((any.args ?? []).map((a) => a.compile().evaluate(scope)));
+    } catch {
+      // An argument that fails on its own is explained by its own error.
+    }
+  });
+  return out;
+}
+
+/**
+ * mathjs's messages that name no argument or the wrong cause, said from the line itself: max() has no
+ * argument, log(L) has a length where a plain number goes, L^L has a unit in the exponent, L[1] indexes a
+ * single quantity, a comparison meets a complex number.
+ */
+function callWords(err: unknown, cell: Cell, scope: Map<string, unknown>): string | null {
+  const message = err instanceof Error ? err.message : String(err);
+  if (/No ordering relation is defined for complex numbers/.test(message)) {
+    return 'cannot compare a complex number: a square root, power or logarithm of a negative value in this line';
+  }
+  if (/Cannot apply a numeric index as object property|Cannot apply index/.test(message)) {
+    return 'cannot take an item [n] of this value: it is a single value or a record, not a list';
+  }
+  let m = /Too few arguments in function (\w+)/.exec(message);
+  if (m) {
+    const calls = callsOf(cell, m[1]!, scope);
+    if (calls.some((args) => args.length === 0)) return `${m[1]}(…) needs at least one argument`;
+    const withUnit = calls.flat().find((a) => math.isUnit(a));
+    if (withUnit) return `${m[1]}(…) takes a plain number, not ${unitLabel(withUnit)}; divide by a unit first (e.g. L / (1 m))`;
+    return null;
+  }
+  m = /Unexpected type of argument in function pow \(.*actual: Unit, index: 1\)/.exec(message);
+  if (m) {
+    const node = cell.node as MathNode;
+    const pow = node.filter((n) => (n as AnyNode).type === 'OperatorNode' && (n as AnyNode).fn === 'pow');
+    for (const p of pow) {
+      try {
+        const e = ((p as AnyNode).args![1]!).compile().evaluate(scope);
+        if (math.isUnit(e)) return `a power takes a plain number as exponent, not ${unitLabel(e)}, in "${p.toString()}"`;
+      } catch {
+        // Explained by its own error.
+      }
+    }
+  }
+  return null;
+}
+
 /** "did you mean" for an unknown option, from the list the message gives. */
 function withOptionGuess(message: string): string {
   const m = /unknown option "([^"]+)"; known options: (.*)$/.exec(message);
@@ -98,6 +150,7 @@ export function explainError(err: unknown, cell: Cell, scope: Map<string, unknow
       // Keep the plain-words version of mathjs's message when the clash cannot be isolated.
     }
   }
+  if (c.ruleId === 'eval/error' || c.ruleId === 'units/mismatch') message = callWords(err, cell, scope) ?? message;
   message = plainWords(message);
   // mathjs names the wrong trigonometric function in its message (cot for cos): name the one written.
   const trig = /^(\w+)\(…\) needs an angle/.exec(message);

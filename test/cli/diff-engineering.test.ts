@@ -102,7 +102,39 @@ describe('lists are compared by meaning', () => {
     expect(alignLists(items([1, 2, 3]), items([1, 2, 2.5, 3]))).toEqual([[0, 0], [1, 1], [null, 2], [2, 3]]);
   });
 
-  it('diff of the arch-ring template with a higher rise: springing hinges move, the crown hinge stays', async () => {
+  it('a hinge that moves 12° along its face while its N and T change is one hinge moved; 20° is one removed and one added', () => {
+    const withForces = (list: Array<[number, string, number]>): ValueEntry => {
+      const value = list.map(([angle, face, N]) => ({ angle: math.unit(angle, 'deg'), face, N: math.unit(N, 'kN'), T: math.unit(N / 20, 'kN') }));
+      return { ...toJsonValue({ hinges: value }, { sigfigs: 4 }), kind: 'calc', line: 1 };
+    };
+    const before = withForces([[-46.22, 'intrados', 142.8], [-14.15, 'extrados', 60], [21.25, 'intrados', 101.8]]);
+    const moved = diffValue(before, withForces([[-34, 'intrados', 121.8], [0, 'extrados', 75], [34, 'intrados', 121.8]]), 1e-9);
+    expect(moved.map((c) => [c.change, c.item])).toEqual([
+      ['item moved', { old: 0, new: 0 }], ['item moved', { old: 1, new: 1 }], ['item moved', { old: 2, new: 2 }],
+    ]);
+    const far = diffValue(before, withForces([[-46.22, 'intrados', 142.8], [-14.15, 'extrados', 60], [41.25, 'intrados', 101.8]]), 1e-9);
+    expect(far.map((c) => c.change)).toEqual(['item removed', 'item added']);
+  });
+
+  it('diff of a ring with P moved from 2 m to 3 m: every hinge moved, the mechanism keeps its 53.13° extrados hinge, labels read "hinge …"', async () => {
+    const ring = (at: string) => ['---', 'title: Ring (fictional)', '---', '', '```calc',
+      'r = arch_ring({shape: "circular", span: 6 m, rise: 1.5 m, thickness: 0.34 m, unit_weight: 18 kN/m^3})',
+      `a = arch_limit(r, {fill_unit_weight: 19 kN/m^3, fill_level: 2.24 m, P: 60 kN, P_at: ${at}})`, '```', ''].join('\n');
+    const [a, b] = [write('p2.md', ring('2 m')), write('p3.md', ring('3 m'))];
+    const d = JSON.parse((await diff(a, b, true)).out) as DocumentDiff;
+    const fields = d.results.find((v) => v.name === 'a')!.fields;
+    expect(fields.filter((f) => f.path === '.hinges').map((f) => f.change)).toEqual(['item moved', 'item moved', 'item moved']);
+    const mech = fields.filter((f) => f.path === '.mechanism');
+    // The springing extrados hinge of the right half is at the springing joint of a 6 m × 1.5 m segment: half-angle 53.13°.
+    expect(mech.find((f) => f.old?.text.startsWith('{angle: 53.13 deg, face: extrados'))?.change).toBe('item moved');
+    const sliding = fields.filter((f) => f.path === '.sliding');
+    expect(sliding.every((f) => f.change === 'item moved')).toBe(true);
+    const text = (await diff(a, b, false)).out;
+    expect(text).toMatch(/a\.mechanism .* hinge (added|removed|moved)/);
+    expect(text).not.toMatch(/a\.mechanism .* item /);
+  });
+
+  it('diff of the arch-ring template with a higher rise: springing hinges move, the crown hinge stays at the crown and rises with it', async () => {
     const template = readFileSync(new URL('../../templates/arch-ring.md', import.meta.url), 'utf8');
     const risen = template.replace(/^f = 1\.5 m/m, 'f = 1.6 m');
     expect(risen).not.toBe(template);
@@ -110,6 +142,9 @@ describe('lists are compared by meaning', () => {
     const aG = d.results.find((v) => v.name === 'a_G')!.fields.filter((f) => f.path === '.hinges');
     // Under self-weight and symmetric fill the least-thrust line touches the extrados at the crown (0°) and the
     // intrados at the springings (Heyman, The Stone Skeleton, 1995, ch. 3; from memory): only the springing hinges move.
-    expect(aG.map((f) => [f.change, f.item])).toEqual([['item moved', { old: 0, new: 0 }], ['item moved', { old: 2, new: 2 }]]);
+    // Each hinge is paired with itself; the crown hinge keeps its angle (0°) while its height and N follow the rise.
+    expect(aG.map((f) => [f.change, f.item])).toEqual([['item moved', { old: 0, new: 0 }], ['item moved', { old: 1, new: 1 }], ['item moved', { old: 2, new: 2 }]]);
+    expect(aG[1]!.old!.text).toMatch(/^\{angle: 0 deg, face: extrados/);
+    expect(aG[1]!.new!.text).toMatch(/^\{angle: 0 deg, face: extrados/);
   });
 });

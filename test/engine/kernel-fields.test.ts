@@ -41,7 +41,7 @@ const CASES: Record<string, Array<() => unknown>> = {
   vault_bays: [() => call('vault_bays', groin, 1), () => call('vault_bays', groin, 4)],
   barrel_membrane: [() => barrel, () => call('barrel_membrane', { shape: 'parabolic', span: u(6, 'm'), rise: u(1.5, 'm'), length: u(8, 'm'), g: u(5, 'kN/m^2'), p: u(1, 'kN/m^2') })],
   membrane_at: [() => call('membrane_at', barrel, u(1, 'm'), u(20, 'deg'))],
-  thrust_line: [() => call('thrust_line', semicircle(0.4), {}, u(60, 'kN'))],
+  thrust_line: [() => call('thrust_line', semicircle(0.4), {}, u(14.5, 'kN'))],
   dome: [
     () => hemisphere,
     () => call('dome', { shape: 'spherical', radius: u(5, 'm'), half_angle: u(60, 'deg'), thickness: u(0.3, 'm'), unit_weight: u(18, 'kN/m^3'), p: u(1, 'kN/m^2') }), // a cap: no hoop tension

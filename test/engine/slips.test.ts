@@ -20,6 +20,7 @@ export const INTERNALS = [
   /\[object/, /\bObject\b/, /BigNumber/, /Fraction/, /\bComplex\b/, /DenseMatrix|SparseMatrix/, /\bMatrix\b/, /\bArray\b/,
   /\bstring\b/, /Unexpected type/, /index: \d/, /\(char \d+\)/, /\bN kN\b/, /\bkg\b[^,;()]*\bs\^/, /Symbol\(/, /prototype/,
   /__proto__/, /\bmathjs\b/, /No access to/, /Cannot read propert/, /is not a function/,
+  /\d\.\d{9,}/, // number noise such as -0.23999999999999977
 ];
 /** A stack trace or a source position of our own code. */
 const STACK = /\n\s+at |\b\w+\.(ts|js|mjs):\d+/;

@@ -94,9 +94,17 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   const p = thrustProgram(ring, ring.thickness, loads);
   const sliding: SlidingRatio[] = [];
   const least = solveAdmissible(p, [-1, 0, 0], {}, solve);
-  const t_min = minimumThickness(ring, loads, solve);
+  const slides = least.feasible ? undefined : frictionBlocks(ring, loads, p, solve, x0);
+  // Where friction alone bars every line, t_min and gsf are the geometric ones (without the friction limit), and the notes say so.
+  const t_min = slides ? slides.t_min : minimumThickness(ring, loads, solve);
   const gsf = t_min === undefined ? 0 : ring.thickness / t_min;
-  const unsafe = `the ring holds no line of thrust (gsf ${gsf.toFixed(2)} < 1)`;
+  const unsafe = slides ? `friction makes the ring inadmissible: without the friction limit a line of thrust fits, but ${slides.why}`
+    : `the ring holds no line of thrust (gsf ${gsf.toFixed(2)} < 1)`;
+  if (slides) {
+    sliding.push(slides.ratio);
+    notes.push(slides.t_min === undefined ? 'without the friction limit no thickness up to the span fits either: gsf is set to 0'
+      : `t_min and gsf (${gsf.toFixed(2)}) are geometric, without the friction limit: with μ = ${ring.friction} no thickness makes the ring safe here`);
+  }
   let H_min: number | NotAvailable = notAvailable(unsafe);
   let H_max: number | NotAvailable = notAvailable(unsafe);
   let V_left: number | NotAvailable = notAvailable(unsafe);
@@ -124,7 +132,7 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
   } else {
     notes.push(`${unsafe}: it is not safe`);
   }
-  if (t_min === undefined) notes.push('no thickness up to the span fits a line of thrust: gsf is set to 0');
+  if (t_min === undefined && !slides) notes.push('no thickness up to the span fits a line of thrust: gsf is set to 0');
   const c = collapse(p, solve, x0);
   if (c.state) sliding.push(slidingRatio(p, c.state, 'collapse', x0));
   if (c.lambdaRigid !== undefined && c.state) {
@@ -144,6 +152,22 @@ export function archLimit(ring: ArchRing, loads: ArchLoads = {}, solve: LpSolver
     safe: least.feasible,
     notes,
   };
+}
+
+/**
+ * When the ring holds no line of thrust with its friction limit but does without it: the joint where the
+ * least-thrust line without friction needs the most friction (|T|/N against μ), and t_min without friction.
+ * Undefined when friction is not what bars the ring.
+ */
+function frictionBlocks(ring: ArchRing, loads: ArchLoads, p: ThrustProgram, solve: LpSolver, x0: number):
+  { why: string; ratio: SlidingRatio; t_min: number | undefined } | undefined {
+  if (!Number.isFinite(p.mu)) return undefined;
+  const free = solveAdmissible({ ...p, mu: Infinity }, [-1, 0, 0], {}, solve);
+  if (!free.feasible) return undefined;
+  const ratio = slidingRatio(p, thrustState(p, free.x, false), 'least thrust without friction', x0);
+  const deg = (ratio.angle * 180) / Math.PI;
+  const why = `the least-thrust line needs |T|/N = ${ratio.ratio.toFixed(3)} at the joint at ${deg.toFixed(1)}° (x = ${ratio.x.toFixed(3)} m), more than μ = ${p.mu}: the joints there would slide`;
+  return { why, ratio, t_min: minimumThickness(Object.create(ring, { friction: { value: Infinity, enumerable: true } }) as ArchRing, loads, solve) };
 }
 
 /** The sheet's words for each definition of the geometric factor of safety. */

@@ -31,7 +31,7 @@ const HINGE_FIELDS = (what: string): Record<string, string> => ({
   [`${what}.x`]: 'Horizontal position of the hinge on its face, from the left springing of the intrados (m).',
   [`${what}.z`]: 'Height of the hinge above the springing of the intrados (m).',
   [`${what}.N`]: 'Normal force at the joint (compression positive), whole strip.',
-  [`${what}.T`]: 'Force along the joint (positive towards the extrados), whole strip.',
+  [`${what}.T`]: 'Force along the joint, whole strip: the force the part of the ring left of the joint exerts on the part right of it, resolved along the joint, positive towards the extrados. Mirror-image joints of a symmetric state therefore show equal and opposite T; the force itself has horizontal component N·cos(angle) + T·sin(angle) = H.',
 });
 
 export const ARCH_RING_REFERENCE: CellFunctionReference = {
@@ -45,7 +45,7 @@ export const ARCH_RING_REFERENCE: CellFunctionReference = {
     'options.thickness': 'Ring thickness, constant, measured normal to the centreline (m).',
     'options.unit_weight': 'Unit weight of the masonry (force per volume).',
     'options.depth': 'Width of the strip (barrel width b) the analysis carries, default 1 m; loads are on the whole strip, stresses use b.',
-    'options.voussoirs': 'Number of voussoirs of equal centreline length for the analysis, default 200 (λ within 0.3 % of the converged value, tested). More joints are added under point loads.',
+    'options.voussoirs': 'Number of voussoirs of equal centreline length for the analysis, a whole number from 20 to 10000, default 200 (λ within 0.3 % of the converged value, tested); fewer than 20 joints miss where the hinges form (21 is tested within 1 % of 3200). More joints are added under point loads.',
     'options.f_c': 'Design compressive strength (stress). Given, the resultant at every joint must leave room for a rectangular stress block of depth N/(f_c·b) inside the face (common practice). Default: uncrushable blocks.',
     'options.friction': 'Coefficient of friction μ at the joints. Given, |T| ≤ μ·N at every joint in every programme. Default: no sliding.',
     'options.gsf': 'Definition of the geometric factor of safety: "loads_as_built" (default: Heyman, every load as built, the bounds shrink about the centreline) or "ring_scaled" (the ring shrinks with its own weight, fill replacing the masonry removed).',
@@ -75,7 +75,7 @@ export const ARCH_LIMIT_REFERENCE: CellFunctionReference = {
     V_left: 'Vertical reaction at the left springing in the least-thrust state (upward positive).',
     V_right: 'Vertical reaction at the right springing in the least-thrust state.',
     t_min: 'Least thickness about the same centreline holding a line of thrust, by the ring\'s gsf definition. Not available when no thickness up to the span fits.',
-    gsf: 'Geometric factor of safety t / t_min (0 when no thickness fits).',
+    gsf: 'Geometric factor of safety t / t_min (0 when no thickness fits). When friction alone makes the ring inadmissible (a line fits without the friction limit), t_min and gsf are the geometric ones without it, and the notes and sliding name the joint where |T|/N exceeds μ.',
     gsf_definition: 'Which definition gsf used, in words (Heyman\'s loads as built, or ring scaled).',
     ...HINGE_FIELDS('hinges'),
     load_factor: 'Collapse load factor λ on the live load, P and axles (the largest λ with an admissible line; by the uniqueness theorem the collapse factor). ∞ when the live load never causes collapse; not available without live loads or when the permanent loads alone cannot be carried.',
@@ -83,7 +83,7 @@ export const ARCH_LIMIT_REFERENCE: CellFunctionReference = {
     governs: 'What limits λ: "hinges", "crushing" (f_c given and the rigid ring never collapses, or the stress blocks lower λ by more than 5 %; the notes give both λ) or "sliding" (a joint at |T| = μN at collapse).',
     sigma_max: 'With f_c: the least peak compressive stress with which any line of thrust carries the loads at λ = 1 (stress blocks centred on the resultant, found to 1e-4). Not available without f_c or when no line fits.',
     sigma_max_at: 'Where that peak stress occurs: the resultant\'s x at that joint, from the left springing of the intrados (m).',
-    sliding: 'The largest |T|/N over the joints in each reported state ("least thrust", "greatest thrust", "collapse"), with the joint\'s angle and position (x, z). With friction given it is at most μ.',
+    sliding: 'The largest |T|/N over the joints in each reported state ("least thrust", "greatest thrust", "collapse"), with the joint\'s angle and position (x, z). With friction given it is at most μ, except in "least thrust without friction", reported when friction alone makes the ring inadmissible: there it exceeds μ at the joint named.',
     'sliding.state': 'The state.', 'sliding.ratio': '|T|/N at the worst joint.', 'sliding.angle': 'Angle of that joint.',
     'sliding.x': 'Mid-point of that joint, from the left springing (m).', 'sliding.z': 'Its height above the springing (m).',
     load_spread: 'The spread of point loads through the fill used, in words (default: none).',
@@ -106,13 +106,13 @@ export const ARCH_LIMIT_REFERENCE: CellFunctionReference = {
 };
 
 export const THRUST_LINE_REFERENCE: CellFunctionReference = {
-  params: { ring: 'The result of arch_ring.', loads: 'Symmetric loads (as for arch_limit).', ...LOADS_REFERENCE, H: 'Horizontal thrust of the line (force, > 0, whole strip).' },
+  params: { ring: 'The result of arch_ring.', loads: 'Symmetric loads (as for arch_limit).', ...LOADS_REFERENCE, H: 'Horizontal thrust of the line (force, whole strip), from H_min to H_max of arch_limit; outside that range the call is refused.' },
   fields: {
     result: 'The line of thrust: a list of points {x, y}, one per joint (and vertical cut), left to right.',
     x: 'Horizontal position of the centre of pressure from the crown axis (m; negative on the left). The result is a list of points {x, y}, one per joint (and vertical cut), left to right.',
     y: 'Height above the springing of the intrados (m).',
   },
-  method: 'Symmetry fixes V; of the lines with this H the best centred one (least largest |e|/half-thickness) is returned, a two-variable linear programme. Within [H_min, H_max] it lies in the ring.',
+  method: 'Symmetry fixes V; of the lines with this H the best centred one (least largest |e|/half-thickness) is returned, a two-variable linear programme. Within [H_min, H_max] it lies in the ring; an H outside that range is refused with the range, since no line of thrust with it lies in the ring.',
   assumptions: ['Loads symmetric about the crown.', 'x here is measured from the crown axis, unlike the positions of arch_limit.'],
   sources: ['Heyman, The Stone Skeleton, 1995, ch. 2 (from memory).'],
 };
@@ -127,7 +127,7 @@ export const ARCH_SCAN_REFERENCE: CellFunctionReference = {
     'vehicle.spacing': 'Distances between consecutive axles (m), one fewer than the axles.',
     'vehicle.from': 'First position of the lead axle from the left springing of the intrados (m), default 0.',
     'vehicle.to': 'Last position of the lead axle (m), default span + vehicle length (the last axle leaves the span).',
-    'vehicle.steps': 'Even positions of the first pass, default 100.',
+    'vehicle.steps': 'Even positions of the first pass, a whole number from 2 to 10000, default 100.',
   },
   fields: {
     lambda_min: 'Least collapse load factor over all positions; ∞ when no position causes collapse.',

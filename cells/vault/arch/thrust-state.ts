@@ -2,7 +2,7 @@ import type { Metres } from '../profile.js';
 import type { Newtons } from './types.js';
 import type { ThrustProgram } from './thrust-program.js';
 
-/** Actions at one section: normal force N (N, compression positive), tangential force T along u (N), moment M about the mid-point (N·m), e = −M/N (m, + towards the extrados). */
+/** Actions at one section, of the part left of it on the part right of it: normal force N (N, compression positive), tangential force T along u (N, + towards the extrados), moment M about the mid-point (N·m), e = −M/N (m, + towards the extrados). */
 export interface JointAction {
   N: Newtons;
   T: Newtons;

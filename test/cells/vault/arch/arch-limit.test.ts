@@ -153,6 +153,10 @@ describe('archLimit and archRing: bad input', () => {
   it('archRing(voussoirs: 0) is a RangeError naming voussoirs', () => {
     expect(() => archRing({ ...ok, voussoirs: 0 })).toThrow(/voussoirs/);
   });
+  it('archRing refuses fewer than 20 voussoirs (2 gave t_min 6e-9 m and gsf 1.3e8) and more than 10000; 20 is accepted', () => {
+    for (const n of [2, 19, 10001]) expect(() => archRing({ ...ok, voussoirs: n })).toThrow(/voussoirs must be a whole number from 20 to 10000, got/);
+    expect(archRing({ ...ok, voussoirs: 20 }).voussoirs).toBe(20);
+  });
   it('archRing(unknown shape, missing rise, both span and radius) are RangeErrors naming the option', () => {
     expect(() => archRing({ ...ok, shape: 'gothic' })).toThrow(/shape/);
     expect(() => archRing({ ...ok, rise: undefined })).toThrow(/rise/);
@@ -190,5 +194,21 @@ describe('archLimit and archRing: bad input', () => {
     expect(a.H_max).toBe(Infinity);
     expect(a.notes.join(' ')).toMatch(/H_max is unbounded/);
     expect(a.H_min).toBeGreaterThan(0);
+  });
+});
+
+describe('hinge T: the force of the left part on the right part, along the joint, + towards the extrados', () => {
+  it('every hinge of the least-thrust state of a segment gives back H from N and T, and mirror joints have opposite T', () => {
+    // Equilibrium of the part left of a joint (Heyman, The Stone Skeleton, 1995, ch. 2): with no horizontal loads
+    // the force it passes on has horizontal component H at every joint; n = (cos φ, −sin φ), u = (sin φ, cos φ).
+    const ring = archRing({ shape: 'circular', span: 6, rise: 1.5, thickness: 0.3, unit_weight: 18e3, voussoirs: 120 });
+    const a = archLimit(ring);
+    const hinges = a.hinges!;
+    expect(hinges.length).toBeGreaterThanOrEqual(3);
+    for (const h of hinges) expectClose(h.N * Math.cos(h.angle) + h.T * Math.sin(h.angle), a.H_min!, 1e-6);
+    const left = hinges.find((h) => h.angle < -0.1)!;
+    const right = hinges.find((h) => Math.abs(h.angle + left.angle) < 1e-9)!;
+    expect(left.T).toBeGreaterThan(0);
+    expect(right.T).toBeCloseTo(-left.T, 6);
   });
 });

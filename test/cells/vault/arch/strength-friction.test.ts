@@ -107,3 +107,21 @@ describe('sliding: |T| ≤ μ·N at every joint', () => {
     expect(tight.load_factor).toBeLessThan(free.load_factor);
   });
 });
+
+describe('friction alone makes a ring inadmissible: it says where, and gsf is not a misleading 0', () => {
+  it('a semicircle (R 5 m, t 0.8 m) with μ = 0.2 names the springing joint, |T|/N = H/V there, and keeps the geometric gsf with a note', () => {
+    const semi = { shape: 'circular', radius: 5, half_angle: Math.PI / 2, thickness: 0.8, unit_weight: 2e4, voussoirs: 120 };
+    const free = archLimit(archRing(semi));
+    const a = archLimit(archRing({ ...semi, friction: 0.2 }));
+    expect(a.safe).toBe(false);
+    // At a horizontal springing joint T = H and N = V (Coulomb: the resultant must lie within tan⁻¹μ of the normal).
+    const s = a.sliding.find((x) => x.state === 'least thrust without friction')!;
+    expectClose(s.ratio, free.H_min! / free.V_left!, 1e-6);
+    expect(s.ratio).toBeGreaterThan(0.2);
+    expectClose(Math.abs(s.angle), Math.PI / 2, 1e-9);
+    expect(a.notes.join('\n')).toMatch(/friction makes the ring inadmissible: without the friction limit a line of thrust fits, but the least-thrust line needs \|T\|\/N = 0\.\d+ at the joint at -90\.0°/);
+    expectClose(a.gsf, free.gsf, 1e-9);
+    expect(a.gsf).toBeGreaterThan(1);
+    expect(a.notes.join('\n')).toMatch(/t_min and gsf \(\d\.\d\d\) are geometric, without the friction limit/);
+  });
+});

@@ -31,10 +31,14 @@ describe('thrustLine', () => {
     expect(Math.min(...r)).toBeCloseTo(R - t / 2, 9);
   });
 
-  it('thrustLine(semicircle, {}, H) leaves the ring when H is outside [H_min, H_max]', () => {
-    const outside = (H: number) => radial(thrustLine(ring, {}, H)).some((r) => r < R - t / 2 - 1e-6 || r > R + t / 2 + 1e-6);
-    expect(outside(numberField(limit.H_min) * 0.9)).toBe(true);
-    expect(outside(numberField(limit.H_max) * 1.1)).toBe(true);
+  it('thrustLine(semicircle, {}, H) refuses an H outside [H_min, H_max] and names the range; H_min and H_max themselves give a line in the ring', () => {
+    // Safe theorem (Heyman 1966): a line of thrust within the ring exists exactly for H in [H_min, H_max].
+    const range = /no line of thrust within the ring: it lies outside H_min = \d+(\.\d+)? N … H_max = \d+(\.\d+)? N/;
+    expect(() => thrustLine(ring, {}, numberField(limit.H_min) * 0.9)).toThrow(range);
+    expect(() => thrustLine(ring, {}, numberField(limit.H_max) * 1.1)).toThrow(range);
+    for (const H of [numberField(limit.H_min), numberField(limit.H_max)]) {
+      expect(radial(thrustLine(ring, {}, H)).every((r) => r >= R - t / 2 - 1e-6 && r <= R + t / 2 + 1e-6)).toBe(true);
+    }
   });
 
   it('thrustLine(thin parabola, uniform plan load, mid-range H) runs along the centreline — funicular of a uniform load (common practice)', () => {
