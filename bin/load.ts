@@ -30,10 +30,23 @@ export function summaryOfProblem(file: string, diagnostic: Diagnostic): Summary 
  */
 export function noCellsDiagnostic(doc: CompiledDocument): Diagnostic | null {
   if (doc.graph.cells.length > 0 || doc.graph.unparsed.length > 0) return null;
+  // A document refused as a whole (too large, too many statements) has no cells because of that
+  // refusal: its own error says why, and "no cells found" would mislead.
+  if (doc.diagnostics.some((d) => d.severity === 'error')) return null;
   return {
     message: 'no cells found: the document has no ```given, ```calc, ```check or ```figure cell with a statement, so there is nothing to evaluate or check',
     file: doc.file, line: 1, column: 1, endLine: 1, endColumn: 1, cellId: null, ruleId: 'doc/no-cells', severity: 'error',
   };
+}
+
+/**
+ * Why no sheet can be made of this document, or null when one can: the document has no cells,
+ * either because it holds none or because it was refused as a whole (its errors say why).
+ */
+export function nothingToRender(doc: CompiledDocument): Diagnostic[] | null {
+  if (doc.graph.cells.length > 0 || doc.graph.unparsed.length > 0) return null;
+  const errors = doc.diagnostics.filter((d) => d.severity === 'error');
+  return errors.length > 0 ? errors : [noCellsDiagnostic(doc)!];
 }
 
 export async function loadAndEvaluate(file: string, overrides: Record<string, string>, options: LoadOptions = {}): Promise<Loaded> {

@@ -19,7 +19,7 @@ import { explainDocument } from '../../engine/drivers/index.js';
 import { parse, readOverrides, SET_OPTION, CASE_OPTION, UsageError } from '../args.js';
 import { DocumentError, readDocument } from '../document.js';
 import { archiveInfo } from '../git.js';
-import { noCellsDiagnostic } from '../load.js';
+import { nothingToRender } from '../load.js';
 import { ChromiumMissingError, PdfError, plainReason, printPdf } from '../pdf.js';
 
 export { archiveInfo };
@@ -73,9 +73,9 @@ export async function renderCommand(args: string[], out: (s: string) => void, er
     err(formatDiagnostic(e.toDiagnostic()));
     return 2;
   }
-  const empty = noCellsDiagnostic(compile(read.text, { file, overrides }));
-  if (empty) {
-    err(`${formatDiagnostic(empty)}\n  no sheet was written`);
+  const nothing = nothingToRender(compile(read.text, { file, overrides }));
+  if (nothing) {
+    err(`${nothing.map(formatDiagnostic).join('\n')}\n  no sheet was written`);
     return 2;
   }
   const { html, summary } = await renderDocument(read.text, file, overrides, archiveInfo(file, read.bytes), values.case as string | undefined, Boolean(values.drivers));

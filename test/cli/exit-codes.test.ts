@@ -61,6 +61,18 @@ describe('exit codes', () => {
     expect(existsSync(join(dir, 'b.html'))).toBe(true);
   });
 
+  it('render of a document over the size limit: 2, no sheet, and the message names the limit (not "no cells found")', async () => {
+    // A 5 MB calc (issue: large documents fail with a plain message in the user's words).
+    const big = join(dir, 'big5.md');
+    const block = ['```given', ...Array.from({ length: 50 }, (_, k) => `a_${k} = ${k + 1} m  # input ${k}`), '```', ''].join('\n');
+    writeFileSync(big, block.repeat(Math.ceil(5_000_000 / block.length)));
+    const errs: string[] = [];
+    expect(await main(['render', big, '-o', join(dir, 'big5.html')], () => {}, (s) => errs.push(s))).toBe(2);
+    expect(existsSync(join(dir, 'big5.html'))).toBe(false);
+    expect(errs.join('\n')).toMatch(/a calc document may have at most 1,000,000/);
+    expect(errs.join('\n')).not.toMatch(/no cells found/);
+  });
+
   it('diff: 0 nothing newly fails, 1 a check newly fails, 2 the new version has errors', async () => {
     expect(await code('diff', holds, holds)).toBe(0);
     expect(await code('diff', fails, holds)).toBe(0);
