@@ -129,7 +129,7 @@ export class LiveSheet {
   /** Worker mode: cells marked waiting for their new values. */
   private waiting = new Set<string>();
   private downstream = new Map<string, string[]>();
-  private casesWanted: ((ok: boolean) => void) | null = null;
+  private casesWanted: { generation: number; done: (ok: boolean) => void } | null = null;
 
   constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false, useWorker = workerChosen()) {
     this.worker = useWorker ? new Worker(new URL('./worker/evaluate.ts', import.meta.url), { type: 'module' }) : null;
@@ -354,7 +354,8 @@ export class LiveSheet {
     }
     if (m.type === 'loaded' || m.token !== this.token) return;
     if (m.type === 'cases') {
-      this.casesWanted?.(this.showWorkerCases(m));
+      // An answer to an older request (a newer one is on its way): dropped.
+      if (this.casesWanted?.generation === m.generation) this.casesWanted.done(this.showWorkerCases(m));
       return;
     }
     // An answer to an edit that is no longer the latest: dropped (the next answer repeats its cells).
@@ -392,9 +393,9 @@ export class LiveSheet {
    * @returns false when a newer request or load came first
    */
   judgeCasesInWorker(trials: Record<string, string>, generation: number): Promise<boolean> {
-    this.casesWanted?.(false);
+    this.casesWanted?.done(false);
     return new Promise((ok) => {
-      this.casesWanted = ok;
+      this.casesWanted = { generation, done: ok };
       this.post({ type: 'cases', generation, trials });
     });
   }
@@ -475,6 +476,11 @@ export class LiveSheet {
         this.deferred.add(id); // reported when its slice patches it
         continue;
       }
+      // Evaluating in a worker: the page's task only swaps elements, a slice at a time (the rest right after).
+      if (el && this.worker && !this.isHeld(el) && performance.now() - renderStart > SLICE_MS) {
+        this.deferred.add(id);
+        continue;
+      }
       changed.push(id);
       if (!el) continue;
       if (this.isHeld(el)) this.held.add(id);
@@ -493,8 +499,17 @@ export class LiveSheet {
     this.turnStart = 0;
     if (this.deferred.size && !this.deferring) {
       this.deferring = true;
-      idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
+      this.later();
     } else if (!this.deferred.size) this.emitSettled();
+  }
+
+  /**
+   * Schedules the next slice of waiting cells: in idle time, as long as the idle period allows; in
+   * worker mode one short slice per task, so that no task of the page grows long.
+   */
+  private later(): void {
+    if (this.worker) setTimeout(() => this.patchDeferred(SLICE_MS), 0);
+    else idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
   }
 
   /** Patches waiting cells for up to `budget` ms; schedules the rest. */
@@ -521,7 +536,7 @@ export class LiveSheet {
     this.emit(null, done.filter((id) => !id.startsWith('@')), patched, start, start);
     if (this.deferred.size) {
       this.deferring = true;
-      idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
+      this.later();
     } else if (this.pending.size === 0 && this.dirty.size === 0) this.emitSettled();
   }
 

@@ -17,13 +17,41 @@ let browser: Browser;
 beforeAll(async () => { browser = await launchBrowser(); }, 60_000);
 afterAll(async () => { await browser?.close(); });
 
-async function useWorker(page: Page): Promise<void> {
-  await page.addInitScript(() => localStorage.setItem('vaultbook:evaluate', 'worker'));
+/** Before the page loads: the evaluation mode, and a promise of the load's first judging of the cases. */
+function prepare(worker: boolean) {
+  return async (page: Page): Promise<void> => {
+    await page.addInitScript((mode) => {
+      localStorage.setItem('vaultbook:evaluate', mode);
+      const w = window as unknown as { __casesAtLoad: Promise<unknown> };
+      w.__casesAtLoad = new Promise((ok) => document.addEventListener('vaultbook:cases', ok, { once: true }));
+    }, worker ? 'worker' : 'main');
+  };
 }
 
-/** Every cell's output HTML, by id (the live parts' own waiting marks left out). */
+const casesAtLoad = (page: Page) => page.evaluate(() => (window as unknown as { __casesAtLoad: Promise<unknown> }).__casesAtLoad.then(() => true));
+
+/**
+ * Every cell's output HTML, by id. A check's cases note (its governing case) is left out: on either
+ * page it is rendered from the cases as last judged when the check was patched, which is a matter of
+ * timing (the cases are judged again a quarter second after each edit).
+ */
 function sheetHtml(page: Page): Promise<Record<string, string>> {
-  return page.evaluate(() => Object.fromEntries([...document.querySelectorAll<HTMLElement>('#lv-sheet [data-cell]')].map((el) => [el.dataset.cell!, el.innerHTML])));
+  return page.evaluate(() => Object.fromEntries([...document.querySelectorAll<HTMLElement>('#lv-sheet [data-cell]')].map((el) => [
+    el.dataset.cell!, el.innerHTML.replace(/<p class="vb-note vb-casenote">[^<]*<\/p>/g, ''),
+  ])));
+}
+
+/**
+ * Runs an edit and waits until the page has also judged its cases again (each check's governing
+ * case is part of its HTML), so that two pages are compared in the same state.
+ */
+async function withCases<T>(page: Page, action: () => Promise<T>): Promise<T> {
+  await page.evaluate(() => {
+    (window as unknown as { __cases: Promise<unknown> }).__cases = new Promise((ok) => document.addEventListener('vaultbook:cases', ok, { once: true }));
+  });
+  const out = await action();
+  await page.evaluate(() => Promise.race([(window as unknown as { __cases: Promise<unknown> }).__cases, new Promise((_, no) => setTimeout(() => no(new Error('no vaultbook:cases within 20 s')), 20_000))]));
+  return out;
 }
 
 /**
@@ -55,8 +83,11 @@ async function timedEdit(page: Page, name: string, text: string): Promise<{ wait
 describe('evaluating in a worker', { timeout: 180_000 }, () => {
   let onMain: Live, inWorker: Live;
   beforeAll(async () => {
-    onMain = await openLive(browser, BARREL);
-    inWorker = await openLive(browser, BARREL, { prepare: useWorker });
+    onMain = await openLive(browser, BARREL, { prepare: prepare(false) });
+    inWorker = await openLive(browser, BARREL, { prepare: prepare(true) });
+    // Each check's governing case is part of its HTML: compare once both pages have judged their cases.
+    await casesAtLoad(onMain.page);
+    await casesAtLoad(inWorker.page);
   }, 120_000);
   afterAll(async () => {
     await onMain?.close();
@@ -74,7 +105,7 @@ describe('evaluating in a worker', { timeout: 180_000 }, () => {
     const before = await sheetHtml(page);
     // Untouched by the span: the screed's thickness and the roof build-up computed from it.
     await page.evaluate(() => { (window as unknown as { __g: Element }).__g = document.querySelector('[data-cell="g_roof"]')!.firstElementChild!; });
-    const edit = await timedEdit(page, 'L', '6');
+    const edit = await withCases(page, () => timedEdit(page, 'L', '6'));
     await editOnMain('L', '6');
     // Waiting right after the commit: L's dependents (the membrane state among them), not the screed.
     expect(edit.waiting).toContain('mem');
@@ -100,7 +131,7 @@ describe('evaluating in a worker', { timeout: 180_000 }, () => {
     const { page } = inWorker;
     const roof = await page.locator('[data-cell="g_roof"]').textContent();
     for (const [name, text] of [['t', '0.25'], ['d_screed', '60']] as const) {
-      const edit = await timedEdit(page, name, text);
+      const edit = await withCases(page, () => timedEdit(page, name, text));
       await editOnMain(name, text);
       expect(edit.waiting.length).toBeGreaterThan(0);
       expect(edit.longest).toBeLessThan(LIMIT_MS);
@@ -108,25 +139,50 @@ describe('evaluating in a worker', { timeout: 180_000 }, () => {
     }
     // 60 mm of screed at 21 kN/m³ instead of 40 mm: the roof build-up moved, on both pages alike.
     expect(await page.locator('[data-cell="g_roof"]').textContent()).not.toEqual(roof);
-    await nextEvent(page, 'settled', () => page.click('#lv-review [data-action="reset-all"]'));
-    await nextEvent(onMain.page, 'settled', () => onMain.page.click('#lv-review [data-action="reset-all"]'));
+    await withCases(page, () => nextEvent(page, 'settled', () => page.click('#lv-review [data-action="reset-all"]')));
+    await withCases(onMain.page, () => nextEvent(onMain.page, 'settled', () => onMain.page.click('#lv-review [data-action="reset-all"]')));
     expect(await differences(page)).toEqual([]);
+    expect(inWorker.errors).toEqual([]);
+  });
+
+  it('an answer to an edit that is no longer the latest is dropped; the page ends with the latest values', async () => {
+    const { page } = inWorker;
+    // Two edits in one task: the worker cannot answer the first before the second is sent.
+    const seen = await withCases(page, () => page.evaluate(async () => {
+      const patches: string[][] = [];
+      const count = (e: Event) => patches.push((e as CustomEvent<{ patched: string[] }>).detail.patched);
+      document.addEventListener('vaultbook:patched', count);
+      const settled = new Promise((ok) => document.addEventListener('vaultbook:settled', ok, { once: true }));
+      const { sheet } = window.vaultbook;
+      sheet.setInput('L', '6.2 m');
+      sheet.setInput('L', '6.6 m');
+      await settled;
+      document.removeEventListener('vaultbook:patched', count);
+      return patches.length;
+    }));
+    expect(seen).toBe(1);
+    await editOnMain('L', '6.6');
+    expect(await differences(page)).toEqual([]);
+    expect(await page.locator('#lv-sheet .lv-computing').count()).toBe(0);
     expect(inWorker.errors).toEqual([]);
   });
 
   /** The same edit on the main-thread page. */
   async function editOnMain(name: string, text: string): Promise<void> {
-    await nextEvent(onMain.page, 'settled', async () => {
+    await withCases(onMain.page, () => nextEvent(onMain.page, 'settled', async () => {
       await onMain.page.click(`[data-input="${name}"]`);
       await onMain.page.fill(`input.lv-edit[data-edit="${name}"]`, text);
       await onMain.page.keyboard.press('Enter');
-    });
+    }));
   }
 
   /** Cells whose HTML differs between the worker page and the main-thread page. */
   async function differences(page: Page): Promise<string[]> {
     const after = await sheetHtml(page);
     const expected = await sheetHtml(onMain.page);
-    return Object.keys(after).filter((id) => after[id] !== expected[id]);
+    const diff = Object.keys(after).filter((id) => after[id] !== expected[id]);
+    const text = (h: string) => h.replace(/<annotation[^]*?<\/annotation>/g, '').replace(/<[^>]*>/g, ' ').replace(/\s+/g, ' ');
+    if (process.env.VB_DIFF) for (const id of diff) console.log(`DIFF ${id}\nW: ${text(after[id]!)}\nM: ${text(expected[id]!)}`);
+    return diff;
   }
 });
