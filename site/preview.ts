@@ -190,7 +190,7 @@ export class LiveSheet {
   }
 
   private index(): void {
-    for (const set of [this.dirty, this.held, this.deferred, this.visible, this.pending, this.settledChanged]) set.clear();
+    for (const set of [this.dirty, this.held, this.deferred, this.visible, this.pending, this.settledChanged, this.waiting]) set.clear();
     this.cells.clear();
     this.parts.clear();
     this.lastHtml.clear();
