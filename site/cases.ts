@@ -87,9 +87,14 @@ export class LiveCases {
     this.timer = setTimeout(async () => {
       // The chosen case's own values are not trial values of the document: every case sets them itself.
       const trials = Object.fromEntries([...this.sheet.overrides].filter(([k, v]) => this.chosen?.overrides[k] !== v));
-      const run = await judgeWithTrials(this.sheet.doc, trials);
-      if (generation !== this.generation) return;
-      this.sheet.showCases(run);
+      if (this.sheet.worker) {
+        // Evaluating in a worker: the worker judges the cases and renders their verdicts.
+        if (!(await this.sheet.judgeCasesInWorker(trials, generation)) || generation !== this.generation) return;
+      } else {
+        const run = await judgeWithTrials(this.sheet.doc, trials);
+        if (generation !== this.generation) return;
+        this.sheet.showCases(run);
+      }
       document.dispatchEvent(new CustomEvent('vaultbook:cases', { detail: { shown: this.shown } }));
     }, QUIET_MS);
   }

@@ -39,7 +39,8 @@ function showChange(id: string): void {
   const cell = sheet.cell(id);
   const el = sheet.cellElement(id);
   if (!cell || !el || cell.kind === 'given') return;
-  const change = compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs());
+  // Evaluating in a worker: the worker compares each result it sends; one it never sent is as loaded.
+  const change = sheet.worker && sheet.workerChange(id) !== undefined ? sheet.workerChange(id)! : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs());
   if (change) changes.set(id, change); else changes.delete(id);
   const html = changeBadge(change);
   let badge = el.querySelector<HTMLElement>(':scope > .lv-badge');

@@ -11,6 +11,9 @@
  * printing); when none is left the page fires `vaultbook:settled`.
  */
 import { compile, startSession } from '../engine/index.js';
+import { readOverride } from '../engine/parse/override.js';
+import type { ResultChange } from './review.js';
+import type { FromWorker, ToWorker } from './worker/protocol.js';
 import type { CaseRun, Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
 import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
 
@@ -50,6 +53,36 @@ const idle: Idle = (fn) => (typeof requestIdleCallback === 'function' ? requestI
 /** Milliseconds of deferred patching per idle slice. */
 const SLICE_MS = 8;
 
+/**
+ * Evaluate in a worker (site/worker/evaluate.ts) instead of on the page's main thread: on when
+ * localStorage `vaultbook:evaluate` is `worker`. Off by default while it is being proven.
+ */
+export function workerChosen(): boolean {
+  try {
+    return typeof Worker === 'function' && localStorage.getItem('vaultbook:evaluate') === 'worker';
+  } catch {
+    return false;
+  }
+}
+
+/** The class (with aria-busy) of a cell whose new value is being computed. */
+export const WAITING_CLASS = 'lv-computing';
+
+/** Each given input's transitive dependents (itself included): the cells an edit of it may move. */
+function dependentsOf(doc: CompiledDocument): Map<string, string[]> {
+  const users = new Map<string, string[]>();
+  for (const c of doc.graph.cells) for (const u of c.uses) users.set(u, [...(users.get(u) ?? []), c.id]);
+  const out = new Map<string, string[]>();
+  for (const c of doc.graph.cells) {
+    if (c.kind !== 'given') continue;
+    const seen = new Set([c.id]);
+    const stack = [c.id];
+    while (stack.length) for (const n of users.get(stack.pop()!) ?? []) if (!seen.has(n)) { seen.add(n); stack.push(n); }
+    out.set(c.id, [...seen]);
+  }
+  return out;
+}
+
 export class LiveSheet {
   doc!: CompiledDocument;
   session!: Session;
@@ -82,7 +115,25 @@ export class LiveSheet {
   private unsubscribe: (() => void) | null = null;
   private listeners = new Set<(e: PatchEvent) => void>();
 
-  constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false) {
+  /** The evaluation worker, when evaluating off the main thread (see workerChosen). */
+  readonly worker: Worker | null;
+  /** Worker mode: the latest edit sent, the latest result taken, the load the worker works on. */
+  private seq = 0;
+  private accepted = 0;
+  private token = 0;
+  /** Worker mode: each cell's latest HTML and review change from the worker. */
+  private incoming = new Map<string, string>();
+  private incomingParts = new Map<string, string>();
+  private workerChanges = new Map<string, ResultChange | null>();
+  private workerEvaluations = 0;
+  /** Worker mode: cells marked waiting for their new values. */
+  private waiting = new Set<string>();
+  private downstream = new Map<string, string[]>();
+  private casesWanted: { generation: number; done: (ok: boolean) => void } | null = null;
+
+  constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false, useWorker = workerChosen()) {
+    this.worker = useWorker ? new Worker(new URL('./worker/evaluate.ts', import.meta.url), { type: 'module' }) : null;
+    this.worker?.addEventListener('message', (e: MessageEvent<FromWorker>) => this.fromWorker(e.data));
     // A printout must show every value: finish deferred patches first.
     window.addEventListener('beforeprint', () => this.patchDeferred(Infinity));
   }
@@ -126,11 +177,20 @@ export class LiveSheet {
     this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options });
     this.index();
     this.unsubscribe = this.session.subscribe((id, state) => this.mark(id, state));
+    if (this.worker) {
+      this.token++;
+      this.accepted = this.seq;
+      this.incoming.clear();
+      this.incomingParts.clear();
+      this.workerChanges.clear();
+      this.downstream = dependentsOf(this.doc);
+      this.post({ type: 'load', token: this.token, text, file, ...(archive ? { archive } : {}), overrides: [...this.overrides] });
+    }
     return { dropped };
   }
 
   private index(): void {
-    for (const set of [this.dirty, this.held, this.deferred, this.visible, this.pending, this.settledChanged]) set.clear();
+    for (const set of [this.dirty, this.held, this.deferred, this.visible, this.pending, this.settledChanged, this.waiting]) set.clear();
     this.cells.clear();
     this.parts.clear();
     this.lastHtml.clear();
@@ -150,7 +210,8 @@ export class LiveSheet {
       const el = this.parts.get(part);
       if (el) this.observer?.observe(el);
     }
-    this.learnShownHtml();
+    // In worker mode the states on the page are those of the load only: nothing to learn from them.
+    if (!this.worker) this.learnShownHtml();
   }
 
   private seen(entries: IntersectionObserverEntry[]): void {
@@ -190,6 +251,9 @@ export class LiveSheet {
 
   /** The sheet's parts that depend on every cell: status banner, checks summary, diagnostics list. */
   private partRenderers(): Array<[string, () => string]> {
+    if (this.worker) {
+      return ['status', 'check-summary', 'diagnostics'].map((part) => [part, () => this.incomingParts.get(part) ?? this.lastHtml.get(`@${part}`) ?? '']);
+    }
     const { doc, ctx } = this;
     const states = this.session.states, warnings = this.session.warnings;
     return [
@@ -209,7 +273,7 @@ export class LiveSheet {
 
   /** Is every change on the page (no cell computing, none waiting for its patch)? */
   get settled(): boolean {
-    return this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0;
+    return this.waiting.size === 0 && this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0;
   }
 
   /** The value text an input has now (the override, else the document's). */
@@ -234,6 +298,13 @@ export class LiveSheet {
       return null;
     }
     if (this.overrides.get(name) === value) return null;
+    if (this.worker) {
+      const d = this.check(name, value);
+      if (d) return d;
+      this.overrides.set(name, value);
+      this.send(name, { type: 'set', name, value });
+      return null;
+    }
     const d = this.session.setInput(name, value);
     if (!d) this.overrides.set(name, value);
     return d;
@@ -242,7 +313,102 @@ export class LiveSheet {
   resetInput(name: string): void {
     if (!this.overrides.has(name)) return;
     this.overrides.delete(name);
-    this.session.resetInput(name);
+    if (this.worker) this.send(name, { type: 'reset', name });
+    else this.session.resetInput(name);
+  }
+
+  /** Worker mode: is a value text acceptable for this input (as session.setInput judges it)? */
+  private check(name: string, value: string): Diagnostic | null {
+    const cell = this.doc.graph.byId.get(name);
+    const reading = readOverride(cell, name, value, (n) => this.doc.graph.byId.has(n));
+    if (reading.ok) return null;
+    return {
+      message: reading.message, file: this.doc.file ?? '', line: cell?.span.start.line ?? 1, column: 1, endLine: cell?.span.end.line ?? 1,
+      endColumn: 1, cellId: name, ruleId: reading.ruleId, severity: 'error',
+    };
+  }
+
+  private post(m: ToWorker): void {
+    this.worker!.postMessage(m);
+  }
+
+  /** Worker mode: sends an edit and marks the cells it moves as waiting. */
+  private send(name: string, m: { type: 'set'; name: string; value: string } | { type: 'reset'; name: string }): void {
+    this.touched = true;
+    this.turnStart = performance.now();
+    this.post({ ...m, seq: ++this.seq, accepted: this.accepted });
+    for (const id of this.downstream.get(name) ?? []) {
+      const el = this.cells.get(id);
+      this.waiting.add(id);
+      if (el) {
+        el.classList.add(WAITING_CLASS);
+        el.setAttribute('aria-busy', 'true');
+      }
+    }
+  }
+
+  private fromWorker(m: FromWorker): void {
+    if (m.type === 'failed') {
+      console.error(`vaultbook: the evaluation worker failed: ${m.message}`);
+      return;
+    }
+    if (m.type === 'loaded' || m.token !== this.token) return;
+    if (m.type === 'cases') {
+      // An answer to an older request (a newer one is on its way): dropped.
+      if (this.casesWanted?.generation === m.generation) this.casesWanted.done(this.showWorkerCases(m));
+      return;
+    }
+    // An answer to an edit that is no longer the latest: dropped (the next answer repeats its cells).
+    if (m.seq !== this.seq) return;
+    this.accepted = m.seq;
+    this.workerEvaluations = m.evaluations;
+    for (const c of m.cells) {
+      this.incoming.set(c.id, c.html);
+      this.workerChanges.set(c.id, c.change);
+      this.dirty.add(c.id);
+    }
+    for (const [part, html] of m.parts) this.incomingParts.set(part, html);
+    for (const id of this.waiting) {
+      const el = this.cells.get(id);
+      el?.classList.remove(WAITING_CLASS);
+      el?.removeAttribute('aria-busy');
+    }
+    this.waiting.clear();
+    if (this.dirty.size) this.flush();
+    else this.emitSettled();
+  }
+
+  /** Worker mode: the review change of a result, as the worker computed it (undefined: no news). */
+  workerChange(id: string): ResultChange | null | undefined {
+    return this.workerChanges.get(id);
+  }
+
+  /** How many cell evaluations have run since the load (in the worker, in worker mode). */
+  evaluationCount(): number {
+    return this.worker ? this.workerEvaluations : [...this.session.evaluations.values()].reduce((a, b) => a + b, 0);
+  }
+
+  /**
+   * Worker mode: judges every case in the worker and shows the verdicts.
+   * @returns false when a newer request or load came first
+   */
+  judgeCasesInWorker(trials: Record<string, string>, generation: number): Promise<boolean> {
+    this.casesWanted?.done(false);
+    return new Promise((ok) => {
+      this.casesWanted = { generation, done: ok };
+      this.post({ type: 'cases', generation, trials });
+    });
+  }
+
+  private showWorkerCases(m: Extract<FromWorker, { type: 'cases' }>): boolean {
+    this.casesWanted = null;
+    for (const [line, html] of m.blocks) {
+      const el = this.root.querySelector<HTMLElement>(`#line-${line} [data-cases]`);
+      if (el) el.outerHTML = html;
+    }
+    this.incomingParts.set('check-summary', m.summary);
+    this.patchPart('check-summary', () => m.summary);
+    return true;
   }
 
   resetAll(): void {
@@ -280,6 +446,7 @@ export class LiveSheet {
   }
 
   private render(id: string, state: CellState): string {
+    if (this.worker) return this.incoming.get(id) ?? this.lastHtml.get(id) ?? '';
     const cell = this.doc.graph.byId.get(id);
     return cell ? renderCellOutput(cell, state, this.ctx) : '';
   }
@@ -309,6 +476,11 @@ export class LiveSheet {
         this.deferred.add(id); // reported when its slice patches it
         continue;
       }
+      // Evaluating in a worker: the page's task only swaps elements, a slice at a time (the rest right after).
+      if (el && this.worker && !this.isHeld(el) && performance.now() - renderStart > SLICE_MS) {
+        this.deferred.add(id);
+        continue;
+      }
       changed.push(id);
       if (!el) continue;
       if (this.isHeld(el)) this.held.add(id);
@@ -327,8 +499,17 @@ export class LiveSheet {
     this.turnStart = 0;
     if (this.deferred.size && !this.deferring) {
       this.deferring = true;
-      idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
+      this.later();
     } else if (!this.deferred.size) this.emitSettled();
+  }
+
+  /**
+   * Schedules the next slice of waiting cells: in idle time, as long as the idle period allows; in
+   * worker mode one short slice per task, so that no task of the page grows long.
+   */
+  private later(): void {
+    if (this.worker) setTimeout(() => this.patchDeferred(SLICE_MS), 0);
+    else idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
   }
 
   /** Patches waiting cells for up to `budget` ms; schedules the rest. */
@@ -355,7 +536,7 @@ export class LiveSheet {
     this.emit(null, done.filter((id) => !id.startsWith('@')), patched, start, start);
     if (this.deferred.size) {
       this.deferring = true;
-      idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
+      this.later();
     } else if (this.pending.size === 0 && this.dirty.size === 0) this.emitSettled();
   }
 

@@ -47,6 +47,8 @@ export function siteConfig(): UserConfig {
         deny: ['.env', '.env.*', '*.{crt,pem,key}', '**/.git/**'],
       },
     },
+    // The evaluation worker (site/worker/) shares chunks with the page: an ES module worker.
+    worker: { format: 'es' },
     build: {
       outDir: join(REPO_ROOT, 'dist', 'site'),
       emptyOutDir: true,

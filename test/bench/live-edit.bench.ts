@@ -5,12 +5,17 @@
  * page with performance.now(). Two series of 50 edits on the largest template
  * (or the serve tests' fictional fixture): the input with the most dependents, and every
  * input in turn. Target ≤ 16 ms median.
+ *
+ * Then the barrel template with the evaluation on the main thread and in the worker
+ * (site/worker/, localStorage `vaultbook:evaluate=worker`): the longest main-thread task
+ * (PerformanceObserver 'longtask', and the edit's own task) during edits of the heavy inputs
+ * L, t and d_screed, target ≤ 50 ms; and the edit-to-patch median of the lightest input.
  */
 import { copyFileSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { startServer } from '../../bin/serve/server.js';
 
 const REPO = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -101,7 +106,7 @@ async function timeEdit(page: Page, input: InputInfo, step: number): Promise<Sam
     settled.catch(() => undefined);
     // Never the value in use: that would be no change.
     if (text === window.vaultbook.sheet.sourceOf(name).replace(/\s.*$/, '')) return null;
-    const total = () => [...window.vaultbook.sheet.session.evaluations.values()].reduce((a, b) => a + b, 0);
+    const total = () => window.vaultbook.sheet.evaluationCount();
     const before = total();
     field.value = text;
     field.dispatchEvent(new Event('input', { bubbles: true }));
@@ -138,6 +143,37 @@ function summary(label: string, samples: Sample[]): string[] {
     `live-edit: ${label}: phases (medians): reading the value and setting the input ${m('wait').toFixed(1)} ms, evaluate ${m('evaluate').toFixed(1)} ms, render + patch in view ${m('render').toFixed(1)} ms;`
       + ` next frame painted ${m('painted').toFixed(1)} ms; whole sheet patched ${m('settled').toFixed(1)} ms; ${m('evaluations')} evaluations, ${m('elements')} elements replaced per edit`,
   ];
+}
+
+const BARREL = join(REPO, 'templates', 'barrel-vault.md');
+const HEAVY = ['L', 't', 'd_screed'];
+
+/** Longest task and Enter → patched median per heavy input, and the lightest input's median, in one mode. */
+export async function responsiveness(context: BrowserContext, url: string, worker: boolean): Promise<string> {
+  const page = await context.newPage();
+  try {
+    await page.addInitScript(`window.__name = (f) => f; localStorage.setItem('vaultbook:evaluate', ${JSON.stringify(worker ? 'worker' : 'main')})`);
+    await page.goto(url);
+    await page.evaluate(() => window.vaultbook.ready);
+    if ((await page.evaluate(() => window.vaultbook.sheet.worker !== null)) !== worker) throw new Error('live-edit: the evaluation mode was not taken');
+    const inputs = await listInputs(page);
+    const lightest = [...inputs].sort((a, b) => a.dependents - b.dependents)[0]!;
+    const parts: string[] = [];
+    for (const input of [...inputs.filter((i) => HEAVY.includes(i.name)), lightest]) {
+      const samples: Sample[] = [];
+      for (let i = 0; i < 8; i++) {
+        const sample = await timeEdit(page, input, i);
+        if (i > 1 && sample) samples.push(sample);
+        await page.waitForTimeout(30 + Math.random() * 20);
+      }
+      const longest = samples.length ? Math.max(...samples.map((s) => s.task)) : NaN;
+      const patched = samples.length ? quantile(samples.map((s) => s.patched), 0.5) : NaN;
+      parts.push(`${input.name}${input === lightest ? ' (lightest)' : ''}: longest task ${longest.toFixed(0)} ms, Enter → patched median ${patched.toFixed(1)} ms`);
+    }
+    return `live-edit: barrel template, evaluation ${worker ? 'in the worker' : 'on the main thread'} (6 edits each after 2 warm-up; target: no task over 50 ms, light median ≤ 16 ms): ${parts.join('; ')}`;
+  } finally {
+    await page.close();
+  }
 }
 
 export async function run(): Promise<string[]> {
@@ -183,11 +219,24 @@ export async function run(): Promise<string[]> {
     const worstSamples = await series(() => worst);
     const everySamples = await series((i) => inputs[i % inputs.length]!);
     const load = loadavg()[0]!.toFixed(1);
+    // Before and after: the same edits of the barrel template, evaluated on the main thread and in the worker.
+    const barrelDir = mkdtempSync(join(tmpdir(), 'vaultbook-bench-barrel-'));
+    const barrelFile = join(barrelDir, 'barrel-vault.md');
+    copyFileSync(BARREL, barrelFile);
+    const barrel = await startServer({ file: barrelFile, port: 0, logLevel: 'error' });
+    const modes: string[] = [];
+    try {
+      for (const worker of [false, true]) modes.push(await responsiveness(context, barrel.url, worker));
+    } finally {
+      await barrel.close();
+      rmSync(barrelDir, { recursive: true, force: true });
+    }
     return [
       `live-edit: ${source.replace(`${REPO}/`, '')} (${cells} cells, ${inputs.length} numeric inputs), ${EDITS} edits per series, headless Chromium, 1-min load average ${load}`,
       ...summary(`"${worst.name}" (${worst.dependents} dependents, the most)`, worstSamples),
       ...summary('every input in turn', everySamples),
       `live-edit: longest main-thread task per input (5 edits each, after one warm-up; target ≤ 50 ms): ${perInput.join(', ')}`,
+      ...modes,
     ];
   } finally {
     await context.close();

@@ -1,0 +1,29 @@
+/**
+ * Messages between the live page and its evaluation worker (site/worker/evaluate.ts).
+ *
+ * Every edit carries a sequence number; a result says which edit it answers, and the page drops a
+ * result whose edit is no longer the latest. So that no change is lost with it, the worker keeps
+ * every cell changed since the last result the page accepted (`accepted`, sent back with each edit)
+ * and repeats it in each result until the page has taken it.
+ */
+import type { ArchiveInfo } from '../sheet.js';
+import type { ResultChange } from '../review.js';
+
+export type ToWorker =
+  | { type: 'load'; token: number; text: string; file: string; archive?: ArchiveInfo; overrides: Array<[string, string]> }
+  | { type: 'set'; seq: number; accepted: number; name: string; value: string }
+  | { type: 'reset'; seq: number; accepted: number; name: string }
+  | { type: 'cases'; generation: number; trials: Record<string, string> };
+
+/** One cell's new rendering and its move against the document as written (for the review badges). */
+export interface CellPatch {
+  id: string;
+  html: string;
+  change: ResultChange | null;
+}
+
+export type FromWorker =
+  | { type: 'loaded'; token: number }
+  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: number }
+  | { type: 'cases'; generation: number; token: number; blocks: Array<[number, string]>; summary: string }
+  | { type: 'failed'; message: string };
