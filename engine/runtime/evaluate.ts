@@ -3,7 +3,7 @@
  */
 import type { MathNode, Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
-import { evaluateNode, chargeDocument } from '../sandbox/index.js';
+import { evaluateNode, chargeDocument, ComplexValueError } from '../sandbox/index.js';
 import type { Cell, CheckResult } from '../types.js';
 import type { Diagnostic, StageContext } from '../diagnostic.js';
 import { CellFailure, NotComputed } from './failure.js';
@@ -165,6 +165,16 @@ export function evaluateCell(cell: Cell, inputs: unknown[], ctx: StageContext): 
     value = chargeDocument(ctx, () => (cell.kind === 'check' ? evaluateCheck(cell, scope) : evaluateNode(cell.node, scope)));
   } catch (err) {
     if (err instanceof CellFailure || err instanceof NotComputed) throw err;
+    if (err instanceof ComplexValueError) {
+      // The sandbox refuses a complex value wherever it appears; the line says what made it.
+      const message = cell.kind === 'check'
+        ? 'cannot compare a complex number: a square root, power or logarithm of a negative value in this line'
+        : `the result is a complex number: ${complexCause(cell.node)}`;
+      throw new CellFailure(cell.id, {
+        message, file: ctx.file, line: cell.span.start.line, column: cell.span.start.column,
+        endLine: cell.span.end.line, endColumn: cell.span.end.column, cellId: cell.id, ruleId: 'value/non-finite', severity: 'error',
+      });
+    }
     checkCalledReads(cell, (node) => evaluateNode(node, scope));
     throw new CellFailure(cell.id, explainError(err, cell, scope, ctx));
   }

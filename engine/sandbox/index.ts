@@ -18,6 +18,11 @@ import { freezeValue } from './freeze.js';
 export { LIMITS } from './limits.js';
 export { checkExpression, isHiddenProperty, type GateOptions, type Refusal } from './gate.js';
 export { LimitError } from './guards.js';
+
+/** An expression gave a quantity whose value is not a real number (sqrt of a negative quantity). */
+export class ComplexValueError extends TypeError {
+  override name = 'ComplexValueError';
+}
 export { SandboxError } from '../../cells/math.js';
 export { NOT_FOR_DOCUMENTS } from './names.js';
 export { isDocumentFunction, documentNamespace } from './namespace.js';
@@ -71,7 +76,7 @@ export function evaluateNode(node: MathNode, scope: Map<string, unknown> = new M
   const value = withinCellBudget(() => compileNode(node)(scope as Scope, {}, null));
   checkValueSize(value, 'this line');
   const odd = oddQuantity(value);
-  if (odd) throw new TypeError(`this gives a quantity with a ${math.typeOf((odd as { value: unknown }).value).toLowerCase()} value (${String(odd)}); a calc works with real quantities`);
+  if (odd) throw new ComplexValueError('this gives a complex number (a square root, power or logarithm of a negative value); a calc works with real quantities');
   return freezeValue(value);
 }
 
