@@ -25,7 +25,7 @@ export function archRingWithAxleFamily(): string {
   const text = readFileSync(join(root, 'templates/arch-ring.md'), 'utf8');
   return `${text}\n\n## Bench: the axle rolled across the span\n\n`
     + '```given\nx_P = 1.5 m   # axle position from the left springing\n```\n\n'
-    + '```calc\na_x = arch_limit(r, {fill_unit_weight: gamma_fill, fill_level: z_fill, dead: g_surf, P: P_d, P_at: x_P})\nlambda_x = a_x.load_factor   # collapse load factor, axle at x_P\n```\n\n'
+    + '```calc\na_x = arch_limit(r, {fill_unit_weight: gamma_fill, fill_level: z_fill, dead: g_surf, P: P_rear, P_at: x_P})\nlambda_x = a_x.load_factor   # collapse load factor, axle at x_P\n```\n\n'
     + '```check\nc_axle = lambda_x >= lambda_req   # collapse load factor at every axle position [in axle]\n```\n\n'
     + `\`\`\`cases\naxle = {x_P: steps(0.05 * L, 0.95 * L, ${CASES})}   # the axle rolled across the span\n\`\`\`\n`;
 }
