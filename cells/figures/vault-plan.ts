@@ -97,7 +97,7 @@ export function vaultPlan(v: GroinVault): string {
   ];
   views.forEach((w, k) => {
     const ev = evAt(k);
-    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span`, { fill: MUTED, 'font-size': 2.2 });
+    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span`, { fill: MUTED, 'font-size': SMALL_TEXT });
     const outline = [...arch(w.sec, h), ...arch(w.sec, -h).reverse()];
     body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
     const ground = ev({ x: 0, y: 0 }).y;
