@@ -57,7 +57,10 @@ describe.skipIf(!haveTools)('sheet layout in Chromium', () => {
       const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
       const missing = numbers.filter((n) => !text.includes(n));
       expect(missing, `${numbers.length} numbers in the working`).toEqual([]);
-      expect(numbers.length).toBeGreaterThan(5);
+      // Not a vacuous measure: the working shows numbers. The buttress shows the fewest (5: its factors, loads and
+      // depth): each of its checks is judged only in its cases, so the body shows their formulas without
+      // substitution, and its other cells are bare references whose values the output column shows.
+      expect(numbers.length).toBeGreaterThanOrEqual(5);
       // The text keeps its size on every page (prose 10.5 pt, working 10 pt, tables 9 pt): nothing shrank a page to fit,
       // which Chromium does to a whole printout when one element is wider than the paper (it was 6.5 pt before).
       const pages = pdfFontSizes(pdf);
