@@ -210,16 +210,16 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
   legend += text(WIDTH - 10, 9.9, `gsf: ${(limit.gsf_definition ?? '').split(':')[0]}`, { 'text-anchor': 'end', fill: MUTED, 'font-size': SMALL_TEXT });
   // Hinge list under the drawing: face and position of each, numbered as drawn.
   let footer = '';
-  const footY = base + 13;
+  const footY = base + 12.6;
   let footLines = 0;
   if (mechanism.length) {
     const items = mechanismHinges.map((h, i) => `${i + 1} ${h.face} x ${h.x.toFixed(2)} m`);
-    // At the least print size, wrapped to the drawing's width (the scale bar moves down with it).
+    // At the least print size, wrapped to the drawing's width; two lines fit above the scale bar, which moves down for more.
     const lines = wrapLines(`mechanism: ${items.join(' · ')} (x from the left springing)`, WIDTH - 20, SMALL_TEXT);
-    footer += lines.map((line, i) => text(10, footY + i * 3.6, line, { fill: INK, 'font-size': SMALL_TEXT })).join('');
+    footer += lines.map((line, i) => text(10, footY + i * 3.4, line, { fill: INK, 'font-size': SMALL_TEXT })).join('');
     footLines = lines.length;
   }
-  const height = base + (mechanism.length ? 26 + (footLines - 1) * 3.6 : 22);
+  const height = base + (mechanism.length ? 26 + Math.max(0, footLines - 2) * 3.4 : 22);
   body += scaleBar(frame.scale, { x: 10, y: height - 9 });
   return markFigure(svgDocument(WIDTH, height, `Section of the ${ring.shape} ring with its loads and lines of thrust`, legend + body + labels.out + footer));
 }
