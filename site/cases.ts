@@ -30,6 +30,8 @@ export class LiveCases {
   private chosen: Case | null = null;
   private generation = 0;
   private timer: ReturnType<typeof setTimeout> | undefined;
+  /** The document judgeLoading judged last. */
+  private judged: CompiledDocument | null = null;
 
   /**
    * @param select the chooser in the page's bar (hidden when the document has no cases)
@@ -52,6 +54,23 @@ export class LiveCases {
     return c !== null && (limit.includes(c.name) || (c.family !== null && limit.includes(c.family)));
   }
 
+  /**
+   * The verdicts of every case for a document being loaded, with the page's trial values (LiveSheet.load paints
+   * the sheet with them, so the cases block and the checks summary have their height from the start);
+   * undefined for a document without cases.
+   */
+  async judgeLoading(doc: CompiledDocument): Promise<CaseRun | undefined> {
+    if (expandCases(doc, this.sheet.baseline).cases.length === 0 && doc.cases.limits.size === 0) return undefined;
+    const run = await judgeWithTrials(doc, this.trials());
+    this.judged = doc;
+    return run;
+  }
+
+  /** The page's trial values less the chosen case's own (every case sets those itself). */
+  private trials(): Record<string, string> {
+    return Object.fromEntries([...this.sheet.overrides].filter(([k, v]) => this.chosen?.overrides[k] !== v));
+  }
+
   /** After a document (re)load: its cases in the chooser, the case asked for shown, the envelope judged. */
   loaded(initial?: string): void {
     this.cases = expandCases(this.sheet.doc, this.sheet.baseline).cases;
@@ -66,8 +85,10 @@ export class LiveCases {
       return o;
     }));
     this.select.value = this.chosen?.name ?? '';
-    if (initial !== undefined && !this.chosen) this.choose(initial);
-    this.refresh();
+    const choosing = initial !== undefined && !this.chosen;
+    if (choosing) this.choose(initial);
+    // Judged while loading (judgeLoading) with the same trial values: no second run.
+    if (choosing || this.judged !== this.sheet.doc) this.refresh();
   }
 
   /** Shows a case: the previous case's inputs go back, this one's become trial values. */
@@ -85,8 +106,7 @@ export class LiveCases {
     if (this.cases.length === 0 && this.sheet.doc.cases.limits.size === 0) return;
     const generation = ++this.generation;
     this.timer = setTimeout(async () => {
-      // The chosen case's own values are not trial values of the document: every case sets them itself.
-      const trials = Object.fromEntries([...this.sheet.overrides].filter(([k, v]) => this.chosen?.overrides[k] !== v));
+      const trials = this.trials();
       if (this.sheet.worker) {
         // Evaluating in a worker: the worker judges the cases and renders their verdicts.
         if (!(await this.sheet.judgeCasesInWorker(trials, generation)) || generation !== this.generation) return;

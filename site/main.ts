@@ -134,7 +134,7 @@ function serially<T>(task: () => Promise<T>): Promise<T> {
 async function show(doc: DocPayload, why: 'start' | 'disk' | 'write'): Promise<void> {
   const scroll = window.scrollY;
   loaded = doc;
-  const result = await sheet.load(doc.text, doc.file, doc.archive);
+  const result = await sheet.load(doc.text, doc.file, doc.archive, (d) => cases.judgeLoading(d));
   dropped = result.dropped.map((d) => d.name);
   if (why === 'disk') {
     message = { kind: 'info', text: `${doc.file} changed on disk and was reloaded.${sheet.overrides.size ? ' Your trial values are kept.' : ''}` };

@@ -148,7 +148,11 @@ export class LiveSheet {
    * Compiles and shows a document text, then re-applies the page's overrides where the inputs still exist.
    * @param text the document as read from disk
    */
-  async load(text: string, file: string, archive?: ArchiveInfo): Promise<LoadResult> {
+  /**
+   * @param judge the cases' verdicts for the document just evaluated (site/cases.ts), awaited before the sheet
+   *   is painted so that the cases block and the checks summary take their full height from the start
+   */
+  async load(text: string, file: string, archive?: ArchiveInfo, judge?: (doc: CompiledDocument) => Promise<CaseRun | undefined>): Promise<LoadResult> {
     this.unsubscribe?.();
     this.session?.dispose();
     this.doc = compile(text, { file });
@@ -173,8 +177,10 @@ export class LiveSheet {
     await this.session.settle();
     // The context reads session.states live, so one context serves every later patch.
     const options = { standalone: false, ...(archive ? { archive } : {}) };
+    const cases = await judge?.(this.doc);
     this.ctx = makeRenderContext(this.doc, this.session.states, this.session.warnings, options);
-    this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options });
+    if (cases) this.ctx.cases = cases;
+    this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options, ...(cases ? { cases } : {}) });
     this.index();
     this.unsubscribe = this.session.subscribe((id, state) => this.mark(id, state));
     if (this.worker) {

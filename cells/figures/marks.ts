@@ -33,6 +33,7 @@ export function label(x: number, y: number, content: string, anchor: 'start' | '
  * extension lines, closed arrowheads and the label along it.
  * @param a first point (mm), b second point (mm)
  * @param offset distance of the dimension line from a–b (mm; + to the left of a→b)
+ * @param content the label ('' for none: the value is written elsewhere)
  */
 export function dimension(a: P, b: P, offset: number, content: string): string {
   const len = Math.hypot(b.x - a.x, b.y - a.y);
@@ -49,7 +50,7 @@ export function dimension(a: P, b: P, offset: number, content: string): string {
   const mid = { x: (a2.x + b2.x) / 2 + nx * side, y: (a2.y + b2.y) / 2 + ny * side };
   return el('g', { stroke: INK, 'stroke-width': 0.18 },
     ext(a, a2) + ext(b, b2) + el('line', { x1: a2.x, y1: a2.y, x2: b2.x, y2: b2.y }) + head(a2, 1) + head(b2, -1))
-    + label(mid.x, mid.y, content, 'middle', { transform: `rotate(${num(angle)} ${num(mid.x)} ${num(mid.y)})`, 'dominant-baseline': 'central' });
+    + (content === '' ? '' : label(mid.x, mid.y, content, 'middle', { transform: `rotate(${num(angle)} ${num(mid.x)} ${num(mid.y)})`, 'dominant-baseline': 'central' }));
 }
 
 /**

@@ -4,7 +4,8 @@
  * and the level λ = 1 drawn.
  */
 import type { ArchScan } from '../vault/arch/arch-scan.js';
-import { el, svgDocument, text, INK, MUTED } from './svg.js';
+import { el, svgDocument, text, INK, MUTED, SMALL_TEXT } from './svg.js';
+import { wrapLines } from './labels.js';
 import { panel } from './axes.js';
 import { markFigure } from './registry.js';
 
@@ -23,7 +24,11 @@ export function scanPlot(s: ArchScan): string {
   const top = finite.length ? Math.max(...finite.map((p) => p.lambda)) : 1;
   // Where λ is unbounded (the vehicle off the ring, or never a mechanism) the curve is cut.
   const clip = Math.max(1.2, Math.min(top, 4 * (typeof s.lambda_min === 'number' && Number.isFinite(s.lambda_min) ? s.lambda_min : 1)));
-  const p = panel({ left: 24, top: 16, width: 136, height: 62 }, [Math.min(...xs), Math.max(...xs)], [0, clip * 1.05],
+  // The load spread in words, under the title at the least print size, on as many lines as it takes.
+  const spread = wrapLines(s.load_spread, WIDTH - 20, SMALL_TEXT);
+  // Two lines fit between the title and the top of the panel (its top tick label starts at 14.7 mm).
+  const extra = Math.max(0, spread.length - 2) * 3.4;
+  const p = panel({ left: 24, top: 16 + extra, width: 136, height: 62 }, [Math.min(...xs), Math.max(...xs)], [0, clip * 1.05],
     'position of the lead axle from the left springing of the intrados (m)', 'collapse load factor λ');
   let body = p.frame;
   // λ = 1: the vehicle as given just causes collapse.
@@ -47,6 +52,6 @@ export function scanPlot(s: ArchScan): string {
   } else {
     title += ' (no position causes collapse)';
   }
-  body = text(10, 6, title, { fill: INK, 'font-weight': 'bold' }) + text(10, 10.5, s.load_spread, { fill: MUTED, 'font-size': 2.2 }) + body;
-  return markFigure(svgDocument(WIDTH, 94, 'Collapse load factor of a vehicle against the position of its lead axle', body));
+  body = text(10, 6, title, { fill: INK, 'font-weight': 'bold' }) + spread.map((line, i) => text(10, 9.9 + i * 3.4, line, { fill: MUTED, 'font-size': SMALL_TEXT })).join('') + body;
+  return markFigure(svgDocument(WIDTH, 94 + extra, 'Collapse load factor of a vehicle against the position of its lead axle', body));
 }

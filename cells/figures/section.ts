@@ -10,10 +10,11 @@ import type { ArchLimit, ArchLoads, ArchRing, Hinge } from '../vault/arch/types.
 import { archFigure } from '../vault/arch/arch-figure.js';
 import { ringPoint } from '../vault/arch/ring-point.js';
 import { extradosAngle } from '../vault/arch/extrados-angle.js';
-import { el, pathData, svgDocument, text, INK, MUTED, TEXT_SIZE, type P } from './svg.js';
+import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, TEXT_SIZE, type P } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
 import { arrow, dimension, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
 import { markFigure } from './registry.js';
+import { wrapLines } from './labels.js';
 
 const LEAST = { stroke: '#2c4a6b', 'stroke-width': 0.55, 'stroke-dasharray': '2.4 1.2' };
 const GREATEST = { stroke: '#a3162b', 'stroke-width': 0.55, 'stroke-dasharray': '3.2 1 0.7 1' };
@@ -206,15 +207,19 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
     y += 4;
   }
   legend += text(WIDTH - 10, 5.9, `geometric factor of safety ${limit.gsf.toFixed(2)}`, { 'text-anchor': 'end', fill: INK, 'font-weight': 'bold' });
-  legend += text(WIDTH - 10, 9.9, `gsf: ${(limit.gsf_definition ?? '').split(':')[0]}`, { 'text-anchor': 'end', fill: MUTED, 'font-size': 2.2 });
+  legend += text(WIDTH - 10, 9.9, `gsf: ${(limit.gsf_definition ?? '').split(':')[0]}`, { 'text-anchor': 'end', fill: MUTED, 'font-size': SMALL_TEXT });
   // Hinge list under the drawing: face and position of each, numbered as drawn.
   let footer = '';
-  const footY = base + 13;
+  const footY = base + 12.6;
+  let footLines = 0;
   if (mechanism.length) {
     const items = mechanismHinges.map((h, i) => `${i + 1} ${h.face} x ${h.x.toFixed(2)} m`);
-    footer += text(10, footY, `mechanism: ${items.join(' · ')} (x from the left springing)`, { fill: INK, 'font-size': 2.3 });
+    // At the least print size, wrapped to the drawing's width; two lines fit above the scale bar, which moves down for more.
+    const lines = wrapLines(`mechanism: ${items.join(' · ')} (x from the left springing)`, WIDTH - 20, SMALL_TEXT);
+    footer += lines.map((line, i) => text(10, footY + i * 3.4, line, { fill: INK, 'font-size': SMALL_TEXT })).join('');
+    footLines = lines.length;
   }
-  const height = base + (mechanism.length ? 26 : 22);
+  const height = base + (mechanism.length ? 26 + Math.max(0, footLines - 2) * 3.4 : 22);
   body += scaleBar(frame.scale, { x: 10, y: height - 9 });
   return markFigure(svgDocument(WIDTH, height, `Section of the ${ring.shape} ring with its loads and lines of thrust`, legend + body + labels.out + footer));
 }

@@ -84,8 +84,7 @@ export function vaultPlan(v: GroinVault): string {
   }
   const q = pl(corners[0]!);
   body += label(q.x + len(v.H_corner_x) + 1, q.y - len(v.H_corner_y) - 1.5, `H = ${kilonewtons(v.H_corner)}`, 'end', { fill: RED, 'font-weight': 'bold' });
-  body += label(q.x + len(v.H_corner_x) + 1.5, q.y + 0.9, `H_x = ${kilonewtons(v.H_corner_x)}`, 'start', { fill: '#2c4a6b' });
-  body += label(q.x - 1.5, q.y - len(v.H_corner_y) + 2, `H_y = ${kilonewtons(v.H_corner_y)}`, 'end', { fill: '#2c4a6b' });
+  // The components are labelled in the elevations, where they act (in the plan H_x ran into the elevation drawing).
   // Clear spans between the faces of the supports (the corners stand half a thickness further out).
   const cx = v.model.input.spanX / 2, cy = v.model.input.spanY / 2;
   body += dimension(pl({ x: -cx, y: -ey }), pl({ x: cx, y: -ey }), -4, `clear ${metres(2 * cx)} (x)`);
@@ -97,7 +96,8 @@ export function vaultPlan(v: GroinVault): string {
   ];
   views.forEach((w, k) => {
     const ev = evAt(k);
-    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span`, { fill: MUTED, 'font-size': 2.2 });
+    // The thrust's height in the title: a dimension of a few mm has no room for its label.
+    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span; thrust at z = ${metres(w.z)}`, { fill: MUTED, 'font-size': SMALL_TEXT });
     const outline = [...arch(w.sec, h), ...arch(w.sec, -h).reverse()];
     body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
     const ground = ev({ x: 0, y: 0 }).y;
@@ -115,8 +115,9 @@ export function vaultPlan(v: GroinVault): string {
     }
     body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
     body += dimension(ev({ x: -w.clear / 2, y: 0 }), ev({ x: w.clear / 2, y: 0 }), -2.5, `clear ${metres(w.clear)}`);
-    body += dimension(ev({ x: -w.e, y: 0 }), ev({ x: -w.e, y: w.z }), len(w.H) + 3, `z = ${metres(w.z)}`);
-    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), -3, `crown ${metres(v.crown)}`);
+    body += dimension(ev({ x: -w.e, y: 0 }), ev({ x: -w.e, y: w.z }), len(w.H) + 3, '');
+    // The crown height left of the centre line: the corner thrust is labelled on the right.
+    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), 3, `crown ${metres(v.crown)}`);
   });
   body += scaleBar(scale, { x: 8, y: 92 }, 40);
   body += wrapLines('Clear spans between the supports; corners at the springing of the middle surface; thrust per corner.', WIDTH - 90 - 2, SMALL_TEXT)

@@ -50,6 +50,10 @@ function resultHtml(cell: Cell, value: unknown, ctx: RenderContext): string {
     const keys = Object.keys(value as Record<string, unknown>);
     return `<div class="vb-result vb-note">record of ${keys.length} item${keys.length === 1 ? '' : 's'}: ${escapeHtml(keys.join(', '))}</div>`;
   }
+  // Text of several words is set as prose so it wraps in the output column (KaTeX never breaks a line inside \text).
+  if (typeof value === 'string' && /\s/.test(value.trim()) && !value.startsWith('<svg') && cell.name) {
+    return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} =`)} ${valueHtml(value, { sigfigs: ctx.sigfigs })}</div>`;
+  }
   const tex = valueTex(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit });
   if (tex !== null && cell.name) return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} = ${tex}`)}</div>`;
   return `<div class="vb-result">${valueHtml(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit })}</div>`;

@@ -97,12 +97,16 @@ export function renderArticle(input: SheetInput): string {
     ? `<div class="vb-prose">${renderProse(b.raw)}</div>`
     : renderBlock(b, i, ctx, figureNumber))).join('\n');
   const archive = options.archive ?? { hash: sha256Hex(doc.source) };
+  const archiveLine = renderArchive(archive, doc.file);
+  const appendix = input.drivers ? renderDriversAppendix(input.drivers) : '';
+  // The archive line closes what comes last, as its last child: Chromium keeps it on the page of the text
+  // before it (break-before: avoid) only among siblings; after the whole of <main> it could fall onto a page alone.
   return `<article class="vb-sheet">\n<style data-part="page-style">${pageStyle(info, doc.file)}</style>\n`
     + `${renderTitleBlock(info, doc.file)}\n`
     + `<div data-part="status">${renderStatus(doc, states, ctx.warnings)}</div>\n`
     + `<section class="vb-part" data-part="check-summary">${renderCheckSummary(doc, states, ctx)}</section>\n`
     + `<section class="vb-part" data-part="diagnostics">${renderDiagnostics(doc, states, ctx.warnings)}</section>\n`
-    + `${renderCautions(ctx.sigfigs)}\n<main class="vb-main">\n${body}\n</main>\n${input.drivers ? `${renderDriversAppendix(input.drivers)}\n` : ''}${renderArchive(archive, doc.file)}\n</article>`;
+    + `${renderCautions(ctx.sigfigs)}\n<main class="vb-main">\n${body}\n${appendix ? '' : `${archiveLine}\n`}</main>\n${appendix ? `${appendix}\n${archiveLine}\n` : ''}</article>`;
 }
 
 /** What a standalone sheet may load: nothing from anywhere, no scripts; inline styles, data: fonts and images only. */

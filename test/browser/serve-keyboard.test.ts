@@ -43,7 +43,7 @@ describe('vaultbook serve with the keyboard only', { timeout: 120_000 }, () => {
       // Refused: announced (role=alert), marked invalid, focus stays in the field.
       expect((await focused()).edit).toBe('L');
       expect(await page.locator('input.lv-edit[data-edit="L"]').getAttribute('aria-invalid')).toBe('true');
-      expect(await page.getByRole('alert').filter({ hasText: 'L is length (m); "3 kN" is force (N)' }).count()).toBe(1);
+      expect(await page.getByRole('alert').filter({ hasText: 'L is length (m); "3 kN" is force (kN)' }).count()).toBe(1);
       // Escape: back to the input, nothing applied.
       await page.keyboard.press('Escape');
       expect((await focused()).input).toBe('L');

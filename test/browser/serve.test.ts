@@ -153,7 +153,7 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       expect(await field.getAttribute('aria-invalid')).toBe('true');
       const msg = page.locator('#lv-edit-msg-t');
       expect(await msg.isVisible()).toBe(true);
-      expect(await msg.innerText()).toMatch(/t is length \(m\); "3 kN" is force \(N\)\. Not applied\./);
+      expect(await msg.innerText()).toMatch(/t is length \(m\); "3 kN" is force \(kN\)\. Not applied\./);
       expect(await msg.getAttribute('role')).toBe('alert');
       // Leaving the field does not drop the refused value: the field stays open with its message.
       await page.keyboard.press('Tab');
