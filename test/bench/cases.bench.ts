@@ -7,7 +7,7 @@
  * Targets are printed, never asserted.
  */
 import { performance } from 'node:perf_hooks';
-import { spawnSync } from 'node:child_process';
+import { median, coldWall } from './timing.js';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -30,19 +30,7 @@ export function archRingWithAxleFamily(): string {
     + `\`\`\`cases\naxle = {x_P: steps(0.05 * L, 0.95 * L, ${CASES})}   # the axle rolled across the span\n\`\`\`\n`;
 }
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
-function wall(args: string[]): number {
-  const t0 = performance.now();
-  const r = spawnSync(process.execPath, [join(root, 'bin/vaultbook.js'), ...args], { cwd: root, encoding: 'utf8' });
-  const ms = performance.now() - t0;
-  if (r.status === null || r.status > 1) throw new Error(`cases.bench: ${args.join(' ')} failed (${r.status}): ${r.stdout}${r.stderr}`);
-  return ms;
-}
+const wall = (args: string[]) => coldWall('cases.bench', args, 1);
 
 export async function run(): Promise<string[]> {
   const text = archRingWithAxleFamily();

@@ -8,7 +8,7 @@
  * Targets are printed, never asserted.
  */
 import { performance } from 'node:perf_hooks';
-import { spawnSync } from 'node:child_process';
+import { median, coldWall } from './timing.js';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -19,18 +19,8 @@ import { prunedDocument } from '../../engine/drivers/prune.js';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
 function wall(args: string[]): number {
-  const t0 = performance.now();
-  const r = spawnSync(process.execPath, [join(root, 'bin/vaultbook.js'), ...args], { cwd: root, encoding: 'utf8' });
-  const ms = performance.now() - t0;
-  if (r.status !== 0) throw new Error(`explain.bench: ${args.join(' ')} failed (${r.status}): ${r.stdout}${r.stderr}`);
-  return ms;
+  return coldWall('explain.bench', args);
 }
 
 export async function run(): Promise<string[]> {

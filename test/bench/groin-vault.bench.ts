@@ -2,27 +2,14 @@
  * Timing of the cross-vault kernel: median time of one groin_vault call,
  * through the kernel and through the registered cell function (units in and out).
  */
-import { performance } from 'node:perf_hooks';
+import { timeCalls } from './timing.js';
 import { groinVault } from '../../cells/vault/groin/groin-vault.js';
 import { groin_vault } from '../../cells/vault/register-groin.js';
 import { math } from '../../cells/math.js';
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
 /** Median over `runs` timed calls, after `warm` untimed ones (µs per call). */
 function time(fn: () => unknown, runs = 300, warm = 50): number {
-  for (let i = 0; i < warm; i++) fn();
-  const ts: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    ts.push(performance.now() - t0);
-  }
-  return median(ts) * 1e3;
+  return timeCalls(fn, runs, warm) * 1e3;
 }
 
 /** Lines to print: the median time per call of each case. */

@@ -4,27 +4,15 @@
  * analysis of a dome by lunes (32 courses, bisection on the thickness).
  */
 import { performance } from 'node:perf_hooks';
+import { timeCalls } from './timing.js';
 import { crossVault } from '../../cells/vault/groin/cross-vault.js';
 import { dome } from '../../cells/vault/dome/dome.js';
 import { domeLimit } from '../../cells/vault/dome/dome-limit.js';
 import { flyingButtress } from '../../cells/supports/flyer.js';
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
 /** Median over `runs` timed calls after `warm` untimed ones (ms per call). */
 function time(fn: () => unknown, runs = 7, warm = 2): number {
-  for (let i = 0; i < warm; i++) fn();
-  const ts: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    fn();
-    ts.push(performance.now() - t0);
-  }
-  return median(ts);
+  return timeCalls(fn, runs, warm);
 }
 
 /** Lines to print: the median time per call of each case. */
