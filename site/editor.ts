@@ -12,9 +12,9 @@
  * keeps the document's unit: `7` for a span written `6.4 m` means `7 m`; the
  * document's value typed again (`5.40` for `5.4 m`) is no change.
  */
-import { readInputValue, sameValue, valueOfText } from './input-value.js';
+import { readInputValue, sameValue, valueOfText } from '../engine/values/input-value.js';
 
-export { withDocumentUnit } from './input-value.js';
+export { withDocumentUnit } from '../engine/values/input-value.js';
 
 export interface EditorHost {
   /** The value text in use now. */

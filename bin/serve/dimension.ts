@@ -6,7 +6,7 @@
 import type { MathNode } from 'mathjs';
 import { compile } from '../../engine/index.js';
 import { checkExpression, evaluateNode } from '../../engine/sandbox/index.js';
-import { readInputValue } from '../../site/input-value.js';
+import { readInputValue } from '../../engine/values/input-value.js';
 
 /** The document's own value of a given input, evaluated on its own; undefined when it does not evaluate so. */
 function documentValueOf(node: MathNode): unknown {

@@ -1,10 +1,10 @@
 /**
  * setDimensionProblem: a `--set` value must have the dimension of the document's value for that
- * input, the same rule the live page and the server apply to an edit (site/input-value.ts):
+ * input, the same rule the live page and the server apply to an edit (engine/values/input-value.ts):
  * `--set "R=5 m"` for a force is refused instead of failing later on the lines that use R.
  */
 import type { Cell } from '../types.js';
-import { readInputValue } from '../../site/input-value.js';
+import { readInputValue } from '../values/input-value.js';
 
 /** The document's own value of a given input, evaluated on its own; undefined when it does not evaluate so. */
 function writtenValue(cell: Cell): unknown {

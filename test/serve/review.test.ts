@@ -5,7 +5,7 @@ import { compile, startSession } from '../../engine/index.js';
 import { math } from '../../cells/math.js';
 import { compareToDocument, changeBadge, checkState, flipTone, inputChanges, renderReviewPanel } from '../../site/review.js';
 import { withDocumentUnit } from '../../site/editor.js';
-import { readInputValue, sameValue, valueOfText } from '../../site/input-value.js';
+import { readInputValue, sameValue, valueOfText } from '../../engine/values/input-value.js';
 import { FIXTURES, REPO } from './helpers.js';
 
 const TEXT = readFileSync(join(FIXTURES, 'barrel.md'), 'utf8');

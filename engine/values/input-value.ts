@@ -5,9 +5,9 @@
  * Pure: no DOM, no I/O, so the page and the server (bin/serve/dimension.ts) share it.
  */
 import type { Unit } from 'mathjs';
-import { evaluateUntrusted } from '../engine/sandbox/index.js';
-import { math, parseExpression } from '../cells/math.js';
-import { describeDimension } from '../cells/units.js';
+import { evaluateUntrusted } from '../sandbox/index.js';
+import { math, parseExpression } from '../../cells/math.js';
+import { describeDimension } from '../../cells/units.js';
 
 export type InputReading =
   | { ok: true; text: string; value: unknown }
