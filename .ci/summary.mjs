@@ -9,9 +9,9 @@ if (!existsSync(file)) {
 }
 const r = JSON.parse(readFileSync(file, 'utf8'));
 const passed = r.numPassedTests ?? 0;
-// A test file that fails to load has no test results; count it as one failure
-// so that a broken import cannot pass silently.
-const brokenFiles = (r.testResults ?? []).filter((s) => s.status === 'failed' && (s.assertionResults ?? []).length === 0).length;
+// A test file that fails outside its tests (it cannot load, or a beforeAll hook fails and its tests
+// are skipped) has no failed test results; count it as one failure so it cannot pass silently.
+const brokenFiles = (r.testResults ?? []).filter((s) => s.status === 'failed' && !(s.assertionResults ?? []).some((a) => a.status === 'failed')).length;
 const failed = (r.numFailedTests ?? 0) + brokenFiles;
 const skipped = (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
 console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}`);

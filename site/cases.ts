@@ -87,8 +87,10 @@ export class LiveCases {
     this.select.value = this.chosen?.name ?? '';
     const choosing = initial !== undefined && !this.chosen;
     if (choosing) this.choose(initial);
-    // Judged while loading (judgeLoading) with the same trial values: no second run.
+    // Judged while loading (judgeLoading) with the same trial values: no second run, but the page
+    // still says the cases are judged, as after every run.
     if (choosing || this.judged !== this.sheet.doc) this.refresh();
+    else document.dispatchEvent(new CustomEvent('vaultbook:cases', { detail: { shown: this.shown } }));
   }
 
   /** Shows a case: the previous case's inputs go back, this one's become trial values. */
