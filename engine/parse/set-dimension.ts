@@ -5,11 +5,13 @@
  */
 import type { Cell } from '../types.js';
 import { readInputValue } from '../values/input-value.js';
+import { evaluateNode } from '../sandbox/index.js';
 
 /** The document's own value of a given input, evaluated on its own; undefined when it does not evaluate so. */
 function writtenValue(cell: Cell): unknown {
   try {
-    return cell.node.compile().evaluate(new Map());
+    // Through the sandbox like every expression: the written value of a stranger's calc is untrusted too.
+    return evaluateNode(cell.node);
   } catch {
     return undefined;
   }

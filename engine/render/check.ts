@@ -5,6 +5,7 @@
  */
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
+import { evaluateNode } from '../sandbox/index.js';
 import type { Cell, CellState, CheckResult, CompiledDocument } from '../types.js';
 import { formatUtilization, separatingSigfigs, splitQuantity } from '../values/format.js';
 import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
@@ -113,7 +114,7 @@ function shownSide(node: MathNode, ctx: RenderContext): { value: unknown; unit: 
   if (path.length || readsNames(n, ctx.scope) || n.filter((x) => x.type === 'FunctionNode').length) return undefined;
   // A constant side (1, 20 kN): no name in it, so it evaluates to what is written.
   try {
-    return { value: n.compile().evaluate({}), unit: null };
+    return { value: evaluateNode(n), unit: null };
   } catch {
     return undefined;
   }

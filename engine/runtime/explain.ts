@@ -69,7 +69,7 @@ function callsOf(cell: Cell, fn: string, scope: Map<string, unknown>): unknown[]
     const any = n as AnyNode & { fn?: { name?: string } };
     if (n.type !== 'FunctionNode' || (any.fn as { name?: string } | undefined)?.name !== fn) return;
     try {
-      out.push((any.args ?? []).map((a) => a.compile().evaluate(scope)));
+      out.push((any.args ?? []).map((a) => evaluateNode(a, scope)));
     } catch {
       // An argument that fails on its own is explained by its own error.
     }
@@ -104,7 +104,7 @@ function callWords(err: unknown, cell: Cell, scope: Map<string, unknown>): strin
     const pow = node.filter((n) => (n as AnyNode).type === 'OperatorNode' && (n as AnyNode).fn === 'pow');
     for (const p of pow) {
       try {
-        const e = ((p as AnyNode).args![1]!).compile().evaluate(scope);
+        const e = evaluateNode((p as AnyNode).args![1]!, scope);
         if (math.isUnit(e)) return `a power takes a plain number as exponent, not ${unitLabel(e)}, in "${p.toString()}"`;
       } catch {
         // Explained by its own error.
