@@ -12,6 +12,7 @@
  */
 import { compile, startSession } from '../engine/index.js';
 import { readOverride } from '../engine/parse/override.js';
+import { downstreamOf } from '../engine/cases/dirty.js';
 import type { ResultChange } from './review.js';
 import type { FromWorker, ToWorker } from './worker/protocol.js';
 import type { CaseRun, Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
@@ -70,17 +71,8 @@ export const WAITING_CLASS = 'lv-computing';
 
 /** Each given input's transitive dependents (itself included): the cells an edit of it may move. */
 function dependentsOf(doc: CompiledDocument): Map<string, string[]> {
-  const users = new Map<string, string[]>();
-  for (const c of doc.graph.cells) for (const u of c.uses) users.set(u, [...(users.get(u) ?? []), c.id]);
-  const out = new Map<string, string[]>();
-  for (const c of doc.graph.cells) {
-    if (c.kind !== 'given') continue;
-    const seen = new Set([c.id]);
-    const stack = [c.id];
-    while (stack.length) for (const n of users.get(stack.pop()!) ?? []) if (!seen.has(n)) { seen.add(n); stack.push(n); }
-    out.set(c.id, [...seen]);
-  }
-  return out;
+  const inputs = doc.graph.cells.filter((c) => c.kind === 'given');
+  return new Map(inputs.map((c) => [c.id, [...downstreamOf(doc.graph, [c.id])]]));
 }
 
 export class LiveSheet {

@@ -50,15 +50,16 @@ export function checkReads(cell: Cell, evaluate: (node: MathNode) => unknown, fi
   for (const node of list) {
     const field = fieldOf(node)!;
     const object = evaluate((node as AnyNode).object!);
-    const written = (node as AnyNode).object!.toString();
+    // Written out only for a message: this runs on every evaluation of the cell.
+    const written = () => (node as AnyNode).object!.toString();
     if (isNotAvailable(object)) {
-      throw new NotComputed(cell.id, rootName(node as AnyNode) ?? cell.id, `not computed: ${written} is not available — ${object.reason}`);
+      throw new NotComputed(cell.id, rootName(node as AnyNode) ?? cell.id, `not computed: ${written()} is not available — ${object.reason}`);
     }
     if (!isRecord(object)) {
-      throw new CellFailure(cell.id, fieldDiagnostic(cell, node, `"${written}" is ${kindOf(object)}, not a record: it has no field "${field}"`, file));
+      throw new CellFailure(cell.id, fieldDiagnostic(cell, node, `"${written()}" is ${kindOf(object)}, not a record: it has no field "${field}"`, file));
     }
     if (!Object.prototype.hasOwnProperty.call(object, field)) {
-      const label = isKernelResult(object) ? `${String(object[KERNEL_SOURCE])} result` : `record "${written}"`;
+      const label = isKernelResult(object) ? `${String(object[KERNEL_SOURCE])} result` : `record "${written()}"`;
       const fields = Object.keys(object).filter((k) => typeof object[k] !== 'function');
       throw new CellFailure(cell.id, fieldDiagnostic(cell, node, missingFieldMessage(label, field, fields), file));
     }

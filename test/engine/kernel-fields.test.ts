@@ -3,7 +3,11 @@
  * the edges (a ring that holds no line of thrust, a wall that overturns, no live load, no friction
  * given): a number, Infinity for an unbounded quantity, or "not available" with its reason.
  * The inputs are invented for the test; the states they reach are checked by the assertions on
- * `safe`, `in_base` and the reasons, not assumed.
+ * `safe`, `in_base` and the reasons, not assumed. No engineering value is compared here; the edge
+ * states are chosen from facts of the trade: a semicircular ring thinner than t/R ≈ 0.107 holds no
+ * line of thrust (Milankovitch's minimum, from memory; checked in test/cells/vault/arch), a parabola
+ * is the funicular of load uniform on plan (common practice), and a wall whose resultant leaves its
+ * base overturns (common practice).
  */
 import { describe, it, expect } from 'vitest';
 import { math } from '../../cells/math.js';
