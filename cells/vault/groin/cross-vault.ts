@@ -50,8 +50,10 @@ export interface CrossVault {
   W: number | NotAvailable; V_corner: number | NotAvailable;
   /** Range of the corner thrust in x and in y (N per corner). */
   H_x_min: number | NotAvailable; H_x_max: number | NotAvailable; H_y_min: number | NotAvailable; H_y_max: number | NotAvailable;
-  /** Height above the springing where the corner's resultant crosses the vertical plane of the corner: least- and greatest-thrust states (m). */
+  /** Height above the springing at which the corner's horizontal thrust acts, ΣH_k·z_k/ΣH_k: least- and greatest-thrust states (m). */
   z_x_min: number | NotAvailable; z_x_max: number | NotAvailable; z_y_min: number | NotAvailable; z_y_max: number | NotAvailable;
+  /** How far inside the corner's vertical plane the corner's vertical reaction acts, ΣV_k·(e − x_k)/ΣV_k (m). */
+  a_x_min: number | NotAvailable; a_x_max: number | NotAvailable; a_y_min: number | NotAvailable; a_y_max: number | NotAvailable;
   /** Membrane solution beside it (semicircular webs without a solid pocket): corner thrusts (N) and their heights (m). */
   H_x_membrane: number | NotAvailable; H_y_membrane: number | NotAvailable; z_x_membrane: number | NotAvailable; z_y_membrane: number | NotAvailable;
   readonly model: { x: WebArc; y: WebArc; slices: CrossSlice[] };
@@ -106,9 +108,14 @@ function sliceLoads(z0: number, plan: number, fillLevel: number, fillWeight: num
  * ring of the arch kernel (archLimit: least and greatest thrust under its own weight, fill and plan
  * load; thrustLine: where the line crosses its springing). The half vault cut through the crowns of
  * one barrel's slices stands on two corners, so each corner's thrust is the sum of the slice
- * thrusts of one web; the height at which the corner's resultant crosses the corner's vertical
- * plane follows from moments of every slice reaction on the quarter's groin about the corner:
- *   ΣH·z_T = ΣH_k·z_k − ΣV_k·(e − x_k).
+ * thrusts of one web. Each slice hands the groin its thrust H_k at the height z_k where its line
+ * crosses the springing joint, and its load V_k at plan distance e − x_k inside the corner's
+ * vertical plane; the corner's resultant is reported by the horizontal thrust's height
+ *   z = ΣH_k·z_k / ΣH_k   (a weighted mean of springing heights: within the vault, below the crown)
+ * and the vertical reaction's arm a = ΣV_k·(e − x_k) / ΣV_k (every slice reaction on the quarter's
+ * groin). The resultant's line crosses the corner's vertical plane at z − a·V/H (moments about the
+ * corner), which in the least-thrust state of most bays lies below the springing: the groin and
+ * the support under it must carry it there (no thrust between the groins at the boss is assumed).
  * fill_needed: the solid pocket height at which the deepest slice (by the face arch) first holds a
  * line of thrust, by bisection on its springing angle; 0 when it holds springing from the groin.
  * Shallower slices are taken to be no worse (every slice is then analysed; `safe` says whether all hold).
@@ -150,7 +157,7 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
       const zg = Math.max(webZAtPlan(other, v), solid);
       const phi = webPhiAt(own, zg);
       const uSpring = (own.r - own.h) * Math.sin(phi) - own.c;
-      const base = { web: name, v, phi, u: uSpring, z: zg, x_min: 0, z_min: zg, x_max: 0, z_max: zg };
+      const base = { web: name, v, phi, u: uSpring, z: zg, x_min: uSpring, z_min: zg, x_max: uSpring, z_max: zg };
       if (uSpring < 2 * c.t) {
         // A sliver at the crown, narrower than two thicknesses: its weight goes straight down the groin.
         slices.push({ ...base, W: 2 * c.gamma * c.t * own.r * Math.max(0, phi - own.phiC) * dv, H_min: 0, H_max: 0 });
@@ -188,20 +195,26 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
   // The slices of one web of each barrel; each barrel has two webs (mirror images).
   const W = 2 * slices.reduce((sum, sl) => sum + sl.W, 0);
   const why = 'a slice holds no line of thrust: build the pockets solid higher (see fill_needed) or thicken the webs';
-  // Height where the corner's resultant crosses the corner plane, from moments of the quarter's slice reactions:
-  // the own web's slices push with H at (x_k, z_k) and load W/2 there; the crossing web's slices load W/2 at their plane v.
+  // The quarter's slice reactions on its groin: the own web's slices push with H at height z_k and load W/2 at
+  // plan x_k; the crossing web's slices load W/2 at their plane v. Height of the horizontal thrust's resultant:
   const height = (dir: 'x' | 'y', which: 'min' | 'max'): number => {
-    const e = webs[dir].e;
     let H = 0, M = 0;
     for (const sl of slices) {
-      if (sl.web === dir) {
-        const h = which === 'min' ? sl.H_min : sl.H_max, x = which === 'min' ? sl.x_min : sl.x_max, z = which === 'min' ? sl.z_min : sl.z_max;
-        H += h; M += h * z - (sl.W / 2) * (e - x);
-      } else {
-        M -= (sl.W / 2) * (e - sl.v);
-      }
+      if (sl.web !== dir) continue;
+      const h = which === 'min' ? sl.H_min : sl.H_max;
+      H += h; M += h * (which === 'min' ? sl.z_min : sl.z_max);
     }
     return M / H;
+  };
+  // Arm of the vertical reaction's resultant inside the corner's vertical plane:
+  const arm = (dir: 'x' | 'y', which: 'min' | 'max'): number => {
+    const e = webs[dir].e;
+    let V = 0, M = 0;
+    for (const sl of slices) {
+      const x = sl.web !== dir ? sl.v : which === 'min' ? sl.x_min : sl.x_max;
+      V += sl.W / 2; M += (sl.W / 2) * (e - x);
+    }
+    return M / V;
   };
   const sum = (dir: 'x' | 'y', which: 'min' | 'max') => slices.reduce((t, sl) => t + (sl.web === dir ? (which === 'min' ? sl.H_min : sl.H_max) : 0), 0);
   const ok = <T>(f: () => T): T | NotAvailable => (safe ? f() : notAvailable(why));
@@ -224,6 +237,9 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
     z_x_min: ok(() => height('x', 'min')), z_y_min: ok(() => height('y', 'min')),
     z_x_max: safe && maxBounded ? height('x', 'max') : notAvailable(safe ? unbounded : why),
     z_y_max: safe && maxBounded ? height('y', 'max') : notAvailable(safe ? unbounded : why),
+    a_x_min: ok(() => arm('x', 'min')), a_y_min: ok(() => arm('y', 'min')),
+    a_x_max: safe && maxBounded ? arm('x', 'max') : notAvailable(safe ? unbounded : why),
+    a_y_max: safe && maxBounded ? arm('y', 'max') : notAvailable(safe ? unbounded : why),
     H_x_membrane: membrane.Hx, H_y_membrane: membrane.Hy, z_x_membrane: membrane.zx, z_y_membrane: membrane.zy,
   };
   return Object.defineProperty(result, 'model', { value: { x: webs.x, y: webs.y, slices }, enumerable: false }) as CrossVault;

@@ -40,6 +40,57 @@ function handLeastThrust(w: WebArc, phiG: number, depth: number, gamma: number):
   return { H, W: 2 * W };
 }
 
+/**
+ * The half slice by hand for its statics at the springing: weight and centroid of the 400 annular
+ * sectors from the crown joint to φ_g, and the least and greatest thrusts of the classical hand method
+ * (least: the line through the extrados of the crown joint clearing every intrados joint point, as
+ * above; greatest: through the intrados of the crown joint, under every extrados joint point lower than
+ * it, H = min_j M_j/(z_c − z_j) — Heyman 1969, from memory).
+ */
+function handHalfSlice(w: WebArc, phiG: number, depth: number, gamma: number) {
+  const N = 400, ri = w.r - w.h, re = w.r + w.h;
+  const topE = w.zc + re * Math.cos(w.phiC), topI = w.zc + ri * Math.cos(w.phiC);
+  let W = 0, Mx = 0, Hmin = 0, Hmax = Infinity;
+  for (let i = 0; i < N; i++) {
+    const a = w.phiC + ((phiG - w.phiC) * i) / N, b = w.phiC + ((phiG - w.phiC) * (i + 1)) / N, d = b - a;
+    const area = ((re * re - ri * ri) / 2) * d;
+    const rc = ((2 / 3) * (re ** 3 - ri ** 3)) / (re * re - ri * ri) * (Math.sin(d / 2) / (d / 2));
+    W += gamma * depth * area; Mx += gamma * depth * area * (rc * Math.sin((a + b) / 2) - w.c);
+    Hmin = Math.max(Hmin, (W * (ri * Math.sin(b) - w.c) - Mx) / (topE - (w.zc + ri * Math.cos(b))));
+    const ze = w.zc + re * Math.cos(b);
+    if (ze < topI) Hmax = Math.min(Hmax, (W * (re * Math.sin(b) - w.c) - Mx) / (topI - ze));
+  }
+  return { W, xbar: Mx / W, Hmin, Hmax, topE, topI };
+}
+
+/**
+ * Independent statics of the corner (no thrust_line, no arch_limit): each half slice, pushed at its crown
+ * by H (least: at the extrados of the crown joint; greatest: at its intrados) and loaded by its weight at
+ * its centroid, is balanced by the groin at the point P of its springing joint (radius ρ from the centre,
+ * at φ_g) about which those two have no moment: H·(z_top − z_P) = (W/2)·(x_P − x̄), so
+ * ρ = [H·(z_top − z_c) + (W/2)·(c + x̄)] / [H·cos φ_g + (W/2)·sin φ_g].
+ * Gathered on the quarter's groin: z = ΣH·z_P/ΣH, a = ΣV·(e − x)/ΣV (the crossing web's slices and the
+ * slivers at the plan points the kernel reports for them), and, by a second route, the resultant's
+ * crossing of the corner plane from moments about the corner of the crown thrusts and the half slices'
+ * weights: z_T = [ΣH·z_top − Σ(W/2)·(e − x̄) − ΣV_other·(e − v)] / ΣH.
+ */
+function handCornerStatics(v: CrossVault, dir: 'x' | 'y', which: 'min' | 'max', gamma: number) {
+  const own = v.model[dir], other = v.model[dir === 'x' ? 'y' : 'x'], dv = other.e / v.slices, e = own.e;
+  let H = 0, Hz = 0, V = 0, Va = 0, Mc = 0;
+  for (const s of v.model.slices) {
+    const load = (W: number, x: number) => { V += W; Va += W * (e - x); Mc -= W * (e - x); };
+    if (s.web !== dir) { load(s.W / 2, s.v); continue; }
+    if (!(s.H_min > 0)) { load(s.W / 2, s.u); continue; } // a sliver at the crown: its weight straight onto the groin
+    const h = handHalfSlice(own, s.phi, dv, gamma);
+    const Hk = which === 'min' ? h.Hmin : h.Hmax, top = which === 'min' ? h.topE : h.topI;
+    const rho = (Hk * (top - own.zc) + h.W * (own.c + h.xbar)) / (Hk * Math.cos(s.phi) + h.W * Math.sin(s.phi));
+    const xP = rho * Math.sin(s.phi) - own.c, zP = own.zc + rho * Math.cos(s.phi);
+    H += Hk; Hz += Hk * zP; V += h.W; Va += h.W * (e - xP);
+    Mc += Hk * top - h.W * (e - h.xbar);
+  }
+  return { H, V, z: Hz / H, a: Va / V, zT: Mc / H };
+}
+
 function handCorner(v: CrossVault, dir: 'x' | 'y', gamma: number): number {
   const other = dir === 'x' ? v.model.y : v.model.x, dv = other.e / v.slices;
   return v.model.slices.filter((s) => s.web === dir && s.H_min > 0).reduce((sum, s) => sum + handLeastThrust(v.model[dir], s.phi, dv, gamma).H, 0);
@@ -90,16 +141,73 @@ describe('cross_vault by slicing, against closed forms and an independent hand s
     const b = crossVault({ span_x: 4.2, span_y: 6, shape: 'pointed', thickness: 0.25, unit_weight: 18e3 });
     expectClose(n(a.H_x_min), n(b.H_y_min), 1e-9);
     expectClose(n(a.z_x_min), n(b.z_y_min), 1e-9);
+    expectClose(n(a.a_x_min), n(b.a_y_min), 1e-9);
+    expectClose(n(semi.z_x_min), n(semi.z_y_min), 1e-9);
     expectClose(a.crown, b.crown, 1e-12);
   });
 
-  it('the thrust acts below the crown, and in the least-thrust state it meets the corner plane within the solid pocket or below the springing (inside the pier)', () => {
-    for (const v of [semi, point]) {
-      expect(n(v.z_x_min)).toBeLessThan(v.crown);
-      expect(n(v.z_x_min)).toBeLessThanOrEqual(v.solid_level + 1e-9);
+  // Square and oblong bays of every shape (self-weight only, which the hand statics takes).
+  const bays: Array<[string, CrossVault, number]> = [
+    ['square semicircular', semi, gamma],
+    ['square pointed', point, gamma],
+    ['oblong semicircular (narrow web stilted)', crossVault({ span_x: 6, span_y: 4.2, thickness: 0.25, unit_weight: 18e3 }), 18e3],
+    ['oblong segmental', crossVault({ span_x: 6, span_y: 4.2, shape: 'segmental', rise: 2, thickness: 0.25, unit_weight: 18e3 }), 18e3],
+    ['oblong stilted', crossVault({ span_x: 6, span_y: 4.2, shape: 'stilted', stilt: 0.6, thickness: 0.25, unit_weight: 18e3 }), 18e3],
+    ['oblong pointed on its solid pocket', crossVault({ span_x: 6, span_y: 4.2, shape: 'pointed', thickness: 0.25, unit_weight: 18e3 }), 18e3],
+  ];
+
+  it('the corner thrust acts within the vault, above the springing and below the crown, least and greatest alike: against the independent hand statics of every slice', () => {
+    let checked = 0;
+    for (const [name, v, g] of bays) {
+      for (const dir of ['x', 'y'] as const) {
+        for (const which of ['min', 'max'] as const) {
+          const z = v[`z_${dir}_${which}`];
+          if (which === 'max' && v[`H_${dir}_max`] === Infinity) {
+            // Shallow slices near the crown fit a straight line: no greatest thrust, so no height for it.
+            expect(isNotAvailable(z) && z.reason, `${name} ${dir} max`).toMatch(/unbounded/);
+            continue;
+          }
+          const hand = handCornerStatics(v, dir, which, g);
+          expect(n(z), `${name} z_${dir}_${which}`).toBeGreaterThanOrEqual(0);
+          expect(n(z), `${name} z_${dir}_${which}`).toBeLessThan(v.crown);
+          expect(hand.z, `${name}: the hand statics too`).toBeGreaterThanOrEqual(0);
+          expect(hand.z).toBeLessThan(v.crown);
+          // Hand statics against the kernel: 400 voussoirs against 24 and the hand least thrust within 0.5 % of
+          // the kernel's (above) move the heights by millimetres; a pointed slice's keystone, which the hand
+          // statics leaves out, moves its least thrust by up to 8 % and the mean height by a few centimetres:
+          // 0.5 % of the crown height for round webs and for every greatest thrust, 2 % for pointed least thrusts.
+          const tol = v.shape === 'pointed' && which === 'min' ? 0.02 : 0.005;
+          expect(Math.abs(n(z) - hand.z) / v.crown, `${name} z_${dir}_${which}: kernel ${n(z)} m, hand ${hand.z} m`).toBeLessThan(tol);
+          expect(Math.abs(n(v[`a_${dir}_${which}`]) - hand.a) / v.crown, `${name} a_${dir}_${which}`).toBeLessThan(tol);
+          checked++;
+        }
+      }
     }
-    expect(n(point.z_x_max)).toBeLessThan(point.crown);
+    expect(checked).toBe(16); // 12 least-thrust states and the 4 bounded greatest ones (pointed webs)
+  });
+
+  it('the resultant of H and V crosses the corner plane at z − a·V/H; by moments of the crown thrusts and half-slice weights about the corner it is the same, and for the least thrust mostly below the springing', () => {
+    const below: string[] = [];
+    for (const [name, v, g] of bays) {
+      for (const dir of ['x', 'y'] as const) {
+        const zT = n(v[`z_${dir}_min`]) - (n(v[`a_${dir}_min`]) * n(v.V_corner)) / n(v[`H_${dir}_min`]);
+        if (zT < 0) below.push(`${name} ${dir}`);
+        if (v.shape === 'pointed') continue; // the keystone moves the pointed least thrust (above): not a test of this statics
+        // The hand's crown route against the kernel's springing reactions; the tolerance as for the heights above.
+        expect(Math.abs(zT - handCornerStatics(v, dir, 'min', g).zT) / v.crown, `${name} ${dir}`).toBeLessThan(0.005);
+      }
+    }
+    const zTmax = n(point.z_x_max) - (n(point.a_x_max) * n(point.V_corner)) / n(point.H_x_max);
+    expect(Math.abs(zTmax - handCornerStatics(point, 'x', 'max', gamma).zT) / point.crown).toBeLessThan(0.005);
+    // The slices' least thrusts, with no thrust between the groins, leave V/H at 2.5 to 7.5: the resultant reaches the
+    // springing level inside the clear span. Reported (z − a·V/H), not hidden: 10 of the 12 cases here.
+    expect(below.length).toBe(10);
+    expect(below).not.toContain('oblong semicircular (narrow web stilted) y');
+  });
+
+  it('the greatest thrust, where bounded, exceeds the least and acts higher', () => {
     expect(n(point.H_x_max)).toBeGreaterThan(n(point.H_x_min));
+    expect(n(point.z_x_max)).toBeGreaterThan(n(point.z_x_min));
     expect(semi.H_x_max).toBe(Infinity); // shallow slices near the crown fit a straight line: no upper bound
   });
 
@@ -138,6 +246,6 @@ describe('cross_vault by slicing, against closed forms and an independent hand s
     const u = (v: number, unit: string) => math.unit(v, unit);
     const r = cross_vault.call({ span_x: u(6, 'm'), span_y: u(4.2, 'm'), shape: 'pointed', thickness: u(250, 'mm'), unit_weight: u(18, 'kN/m^3') }) as Record<string, any>;
     expect(r.H_x_min.toNumber('kN')).toBeGreaterThan(0);
-    for (const f of ['H_x_min', 'H_x_max', 'H_y_min', 'H_y_max', 'z_x_min', 'z_x_max', 'z_y_min', 'z_y_max', 'V_corner', 'fill_needed', 'H_x_membrane']) expect(r[f], f).toBeDefined();
+    for (const f of ['H_x_min', 'H_x_max', 'H_y_min', 'H_y_max', 'z_x_min', 'z_x_max', 'z_y_min', 'z_y_max', 'a_x_min', 'a_x_max', 'a_y_min', 'a_y_max', 'V_corner', 'fill_needed', 'H_x_membrane']) expect(r[f], f).toBeDefined();
   });
 });
