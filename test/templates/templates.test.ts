@@ -357,4 +357,13 @@ describe('templates/clerestory.md — key numbers (issue 15)', () => {
     expectClose(num(s(), 'F_lo'), 9.916, 2e-3); // regression value, from this kernel on 2026-12-02
     expect(num(s(), 'F_lo')).toBeLessThan(num(s(), 'T_lo'));
   });
+
+  it('the least thrust across the nave acts on the groin between the solid pocket and the crown; its resultant with V_c meets the wall plane below the springing', () => {
+    // z_lo was the resultant's crossing of the wall plane (about −0.77 m); since 2026-12-02 it is the height of the
+    // horizontal thrust, ΣH·z/ΣH over the slices (issue 15), and the crossing is z_wall = z_lo − a_lo·V_c/H_lo.
+    expect(num(s(), 'z_lo')).toBeGreaterThan(num(s(), 'bay.solid_level'));
+    expect(num(s(), 'z_lo')).toBeLessThan(num(s(), 'bay.crown'));
+    expectClose(num(s(), 'z_lo'), 2.872, 2e-3); // regression value, from this kernel on 2026-12-02
+    expectClose(num(s(), 'z_wall'), -0.7688, 2e-3); // regression value, from this kernel on 2026-12-02
+  });
 });
