@@ -159,6 +159,17 @@ describe('cross_vault by slicing, against closed forms and an independent hand s
     expect(() => crossVault({ ...ok, fill_level: 1 })).toThrow(/fill/);
   });
 
+  it('cross_vault refuses a solid pocket so high that no slice above it is wider than two thicknesses (before: W = 0, H = 0 and the heights NaN)', () => {
+    const ok = { span_x: 6, thickness: 0.25, unit_weight: gamma };
+    // Middle surface radius 3.125 m, intrados 3.0 m: a slice two thicknesses wide (0.5 m) springs where
+    // 3.0·sin φ = 0.5, at z = 3.125·cos φ = 3.081 m above the springing (geometry of the circle).
+    const zTop = 3.125 * Math.cos(Math.asin(0.5 / 3.0));
+    expect(() => crossVault({ ...ok, solid_level: 10 })).toThrow(/solid_level must be below 3\.08 m/);
+    expect(() => crossVault({ ...ok, solid_level: zTop + 0.01 })).toThrow(/solid_level/);
+    const high = crossVault({ ...ok, solid_level: zTop - 0.2 });
+    for (const f of ['W', 'H_x_min', 'z_x_min', 'z_y_min'] as const) expect(Number.isFinite(n(high[f])), f).toBe(true);
+  });
+
   it('cross_vault.call takes units and returns every field', () => {
     const u = (v: number, unit: string) => math.unit(v, unit);
     const r = cross_vault.call({ span_x: u(6, 'm'), span_y: u(4.2, 'm'), shape: 'pointed', thickness: u(250, 'mm'), unit_weight: u(18, 'kN/m^3') }) as Record<string, any>;
