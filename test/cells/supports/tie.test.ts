@@ -95,6 +95,16 @@ describe('tie: bar and threaded ends', () => {
     expect(() => tie({ T: 100e3, ...S235, diameter: 0.068 })).toThrow(RangeError);
   });
 
+  it('utilization is the greater of the two also when the bar governs (γ_M0 = 1.25 chosen here only to reach that branch: a cut thread is otherwise the weaker)', () => {
+    // 20 mm bar, M20 thread: bar 235·314.16/1.25 = 59.06 kN; thread 0.9·360·245/1.25 = 63.50 kN (hand computation).
+    const r = tie({ T: 50e3, ...S235, gamma_M: 1.25, diameter: 0.02 });
+    expectClose(r.N_bar_Rd, (235e6 * Math.PI * 0.01 ** 2) / 1.25, 1e-12);
+    expectClose(r.N_thread_Rd as number, (0.9 * 360e6 * 245e-6) / 1.25, 1e-12);
+    expect(r.governs).toBe('bar');
+    expect(r.utilization).toBe(r.utilization_bar);
+    expect(r.utilization_bar).toBeGreaterThan(r.utilization_thread as number);
+  });
+
   it('gamma_M2 scales the thread resistance', () => {
     const a = tie({ T: 50e3, ...S235, diameter: 0.025 }), b = tie({ T: 50e3, ...S235, diameter: 0.025, gamma_M2: 1.5 });
     expectClose((b.utilization_thread as number) / (a.utilization_thread as number), 1.5 / 1.25, 1e-12);
