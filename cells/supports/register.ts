@@ -87,7 +87,7 @@ export const tie = defineCellFunction({
       'options.gamma_M': 'Partial factor γ_M0 of the gross section, default 1.0 (EN 1993-1-1 §6.1 recommended value).',
       'options.f_u': 'Ultimate strength of the steel (MPa), ≥ f_y; without it the threaded ends are not checked and utilization is not available.',
       'options.gamma_M2': 'Partial factor γ_M2 of the threaded ends, default 1.25 (EN 1993-1-8 Table 2.1 recommended value).',
-      'options.diameter': 'The chosen bar (mm); when omitted, the smallest bar of the series 8, 10, 12, 16, 20, 25, 32, 40, 50 mm that passes both checks.',
+      'options.diameter': 'The chosen bar (mm), from 8 mm to under 68 mm (the thread table ends at M64; M68 is the next coarse size); its ends carry the largest metric coarse thread not above it (31 mm → M30). When omitted, the smallest bar of the series 8, 10, 12, 16, 20, 25, 32, 40, 50 mm that passes both checks.',
     },
     fields: {
       force: 'Tension in the tie (kN).',

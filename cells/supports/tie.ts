@@ -2,7 +2,10 @@
  * A steel tie across the springings, taking the vault's thrust in tension: the bar and its threaded ends.
  */
 import { notAvailable, type NotAvailable } from '../not-available.js';
-import { threadOnBar } from './thread.js';
+import { METRIC_COARSE, threadOnBar } from './thread.js';
+
+/** The next ISO coarse size after the table's last (M68 × 6, ISO 261; from memory): a bar this thick or more would carry a thread the table does not hold. */
+const NEXT_THREAD_MM = 68;
 
 /** Nominal diameters of the round bars offered (mm): the preferred reinforcing-bar series of EN 10080 (from memory), common practice for tie rods. */
 export const BAR_DIAMETERS_MM = [8, 10, 12, 16, 20, 25, 32, 40, 50] as const;
@@ -17,7 +20,7 @@ export interface TieOptions {
   f_y: number; gamma_M?: number;
   /** Ultimate strength (Pa) and partial factor γ_M2 (default 1.25) of the threaded ends. */
   f_u?: number; gamma_M2?: number;
-  /** The chosen bar (m); when omitted, the smallest bar of the series that passes both checks. */
+  /** The chosen bar (m), 8 mm to under 68 mm; when omitted, the smallest bar of the series that passes both checks. */
   diameter?: number;
 }
 
@@ -77,8 +80,8 @@ export function tie(o: TieOptions): Tie {
       throw new RangeError(`tie: needs more than one ${most} mm bar (${barArea(most).toFixed(0)} mm², thread ${threadOnBar(most / 1e3)!.name}) can take; use several ties`);
     }
     d = needed / 1e3;
-  } else if (!(d >= 0.008 && d <= 0.1)) {
-    throw new RangeError(`tie: diameter must be between 8 mm and 100 mm (a thread M8 or larger), got ${d} m`);
+  } else if (!(d >= 0.008 && d < NEXT_THREAD_MM / 1e3)) {
+    throw new RangeError(`tie: diameter must be at least 8 mm (thread M8) and less than ${NEXT_THREAD_MM} mm: the table of thread stress areas ends at M${METRIC_COARSE[METRIC_COARSE.length - 1]!.d} and a thicker bar carries a thread it does not hold; got ${d} m`);
   }
   const c = check(d);
   const th = c.th!;

@@ -97,7 +97,7 @@ export const dome_limit = defineCellFunction({
   },
   fn: domeLimit,
   reference: {
-    params: { dome: `A dome from dome(…) (spherical or pointed) with thickness and unit_weight; cut into ${DOME_RINGS} courses of equal angle from the top edge to the base.` },
+    params: { dome: `A dome from dome(…) (spherical or pointed) with a thickness and its self-weight (unit_weight, or g above zero: the weight scales with the thickness); cut into ${DOME_RINGS} courses of equal angle from the top edge to the base.` },
     fields: {
       t_min: 'Least thickness (m) for which a thrust surface fits, the thickness scaled about the fixed middle surface; 0 when one fits however thin the shell (no hoop tension in the membrane state); not available when no thickness up to 0.9 of the radius fits.',
       gsf: 'Geometric factor of safety thickness / t_min; ∞ when t_min = 0; 0 when no thickness up to 0.9 of the radius fits.',

@@ -160,7 +160,7 @@ export const cross_vault = defineCellFunction({
       'options.fill_unit_weight': 'Unit weight of that fill (kN/m³).',
       'options.dead': 'Superimposed dead load per unit plan area (kPa).',
       'options.live': 'Live load per unit plan area (kPa), taken over the whole bay.',
-      'options.solid_level': 'Height above the springing to which the pockets are built solid (coursed masonry, the tas-de-charge) (m); slices spring on it where it is above the groin. Default: fill_needed.',
+      'options.solid_level': 'Height above the springing to which the pockets are built solid (coursed masonry, the tas-de-charge) (m); slices spring on it where it is above the groin. Default: fill_needed. It must stay below the level where a slice springing on it is two thicknesses wide (higher, every slice is a sliver that carries no thrust).',
       'options.slices': 'Slices per web, 2 to 60 (default 10); each slice is a ring of 24 voussoirs.',
     },
     fields: {

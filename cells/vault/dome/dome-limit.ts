@@ -114,6 +114,8 @@ function baseThrust(l: Lune, sign: number): number[] {
 export function domeLimit(v: Dome): DomeLimit {
   const d = v.model;
   if (!(d.t > 0)) throw new RangeError('dome_limit: the dome needs a thickness (and unit_weight)');
+  // The programme is scaled by the shell's own weight (forces in units of γa³); a weightless shell has no scale.
+  if (!(d.q > 0)) throw new RangeError(`dome_limit: the dome needs its self-weight (unit_weight, or g above zero), got g = ${d.q} Pa`);
   const rings = DOME_RINGS, a = d.a, g = d.gamma;
   const feasible = (h: number) => simplex(lune(d, h, rings).lp).status !== 'infeasible';
   // Bisection on the half-thickness ratio h = t/(2a): fitting is taken to be monotone in t.

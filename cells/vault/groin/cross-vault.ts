@@ -126,6 +126,15 @@ function sliceLoads(z0: number, plan: number, fillLevel: number, fillWeight: num
 export function crossVault(o: CrossVaultOptions): CrossVault {
   const c = checkOptions(o);
   const webs = crossWebs(c.spanX, c.spanY, c.shape, c.t, c.rise, c.stilt);
+  if (c.solid !== undefined) {
+    // Above the level where a slice springing on the pocket is two thicknesses wide, every slice of that web is a
+    // sliver that carries no thrust: there would be no corner thrust to place.
+    const top = (w: WebArc) => w.zc + w.r * Math.cos(Math.asin((2 * c.t + w.c) / (w.r - w.h)));
+    const limit = Math.min(top(webs.x), top(webs.y));
+    if (c.solid >= limit) {
+      throw new RangeError(`cross_vault: solid_level must be below ${limit.toFixed(2)} m, where a slice springing on the pocket is still two thicknesses wide (above it every slice is a sliver that carries no thrust), got ${c.solid} m`);
+    }
+  }
   const loadsAt = (z0: number) => sliceLoads(z0, c.plan, c.fillLevel, c.fillWeight);
   // The least solid pocket: the deepest slice of each web (by the face arch), cut at the groin or higher,
   // holds a line of thrust for cuts at φ ≤ φ*.

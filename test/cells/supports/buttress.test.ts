@@ -165,6 +165,19 @@ describe('buttress under a vertical load alone, and a middle third failed on the
     expect(r.middle_third).toBe(false); // x_inner = 0.107 m < 0.15 m: outside the kern on the inner side
   });
 
+  it('buttress({T: 0}) failing the middle third at 0.45 m: the least width is the larger root of the statics of the widened wall, not a width below 0.45 m', () => {
+    const r = buttress({ ...wall, T: 0 });
+    // Widened to b: x_inner = (γHb²/2 + V·x_V)/(γHb + V) ≥ b/3  ⇔  γH·b²/6 − V·b/3 + V·x_V ≥ 0 (statics of a rigid block).
+    const a2 = (20e3 * 3) / 6, a1 = -60e3 / 3, a0 = 60e3 * 0.05;
+    const root = (-a1 + Math.sqrt(a1 * a1 - 4 * a2 * a0)) / (2 * a2); // 1.837 m
+    expectClose(n(r.width_min_third), root, 1e-12);
+    expect(n(r.width_min_third)).toBeGreaterThan(0.45);
+    // Within the base (outer edge: x_inner ≤ b ⇔ γH·b²/2 + V·b − V·x_V ≥ 0) it stays down to 0.049 m, where the
+    // load 0.05 m from the inner face is about to hang beyond the outer one.
+    const c2 = (20e3 * 3) / 2, c1 = 60e3, c0 = -60e3 * 0.05;
+    expectClose(n(r.width_min_base), (-c1 + Math.sqrt(c1 * c1 - 4 * c2 * c0)) / (2 * c2), 1e-9);
+  });
+
   it('buttress: a wall that fails the middle third on the inner side gets a least width wider than itself, which puts the resultant on the inner third point', () => {
     const r = buttress({ ...wall, T: 0.5e3, z_T: 3 });
     expect(r.middle_third).toBe(false);

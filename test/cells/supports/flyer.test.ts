@@ -52,6 +52,45 @@ describe('flying_buttress', () => {
     expectClose(f.V_wall * L + f.H_min * (z0 - zL), W * L - Wx, 2e-3);
   });
 
+  it('an arched flyer\'s H_min and H_max agree with an independent search: for each H, does a straight line fit between z_i + M/H and z_e + M/H?', () => {
+    // Independent of the kernel's linear programme: with H fixed, z(x) = z0 + s·x − M(x)/H lies within the bar
+    // iff the straight line z0 + s·x fits between L = z_i + M/H and U = z_e + M/H. The gap
+    // g(s) = min(U − s·x) − max(L − s·x) is concave in s, so its maximum is found by ternary search; the
+    // feasible H form an interval (projection of a convex set), found by bisection from both sides.
+    const o = { shape: 'arched', span: 4.5, rise: 2, sag: 0.5, thickness: 0.45, unit_weight: 22e3 } as const;
+    const f = flyingButtress(o);
+    const m = (f as unknown as { model: { xs: number[]; zi: number[]; ze: number[] } }).model;
+    const { xs, zi, ze } = m;
+    // M(x) = ∫₀ˣ (x − ξ)·w(ξ) dξ, w = γ·(z_e − z_i) per metre of span, by Simpson's rule on each interval of a finer grid.
+    const depthAt = (x: number) => {
+      const i = Math.min(xs.length - 2, Math.floor((x / o.span) * (xs.length - 1)));
+      const u = (x - xs[i]!) / (xs[i + 1]! - xs[i]!);
+      return (1 - u) * (ze[i]! - zi[i]!) + u * (ze[i + 1]! - zi[i + 1]!);
+    };
+    const M = xs.map((x) => {
+      const n = 200, hh = x / n;
+      let sum = 0;
+      for (let k = 0; k <= n; k++) {
+        const xi = k * hh, wk = k === 0 || k === n ? 1 : k % 2 ? 4 : 2;
+        sum += wk * (x - xi) * o.unit_weight * depthAt(xi);
+      }
+      return (sum * hh) / 3;
+    });
+    const gap = (H: number) => {
+      const g = (s: number) => Math.min(...xs.map((x, i) => ze[i]! + M[i]! / H - s * x)) - Math.max(...xs.map((x, i) => zi[i]! + M[i]! / H - s * x));
+      let lo = -10, hi = 10;
+      for (let k = 0; k < 200; k++) { const a = lo + (hi - lo) / 3, b = hi - (hi - lo) / 3; if (g(a) < g(b)) lo = a; else hi = b; }
+      return g((lo + hi) / 2);
+    };
+    const fits = (H: number) => gap(H) >= 0;
+    // A thrust that fits, found by scanning: 1 … 1000 kN.
+    const inside = [1, 2, 5, 10, 20, 50, 100, 200, 500, 1000].map((k) => k * 1e3).find(fits)!;
+    expect(inside).toBeDefined();
+    const edge = (lo: number, hi: number) => { for (let k = 0; k < 60; k++) { const mid = (lo + hi) / 2; if (fits(mid) === fits(hi)) hi = mid; else lo = mid; } return (lo + hi) / 2; };
+    expectClose(f.H_min, edge(1, inside), 1e-5); // 26.10 kN
+    expectClose(f.H_max, edge(inside, 1e8), 1e-5); // 1193 kN
+  });
+
   it('H_crush = f·b·t·cos α for a straight bar (uniform stress along it); not available without strength', () => {
     const f = flyingButtress({ span: 4, rise: 3, thickness: 0.4, width: 0.6, unit_weight: 2e4, strength: 4e6 });
     expectClose(f.H_crush as number, 4e6 * 0.6 * 0.4 * (4 / 5), 1e-12);

@@ -56,3 +56,13 @@ describe('fields that are not available pass through the cell wrapper unchanged 
     expect(b.sf_overturning).toBe(Infinity);
   });
 });
+
+describe('tie in a document: a bar the thread table cannot serve (issue 15)', () => {
+  it('tie({..., diameter: 70 mm}) is an error on its line, in the document\'s units (kernel/domain), not a number', async () => {
+    const { evaluateDocument } = await import('../../../engine/index.js');
+    const doc = ['```given', 'T = 100 kN', 'f_y = 235 MPa', 'f_u = 360 MPa', '```', '', '```calc', 'b = tie({T: T, f_y: f_y, f_u: f_u, diameter: 70 mm})', '```', ''].join('\n');
+    const { summary } = await evaluateDocument(doc, { file: 'calc.md' });
+    expect(summary.diagnostics.map((d) => [d.line, d.ruleId])).toEqual([[8, 'kernel/domain']]);
+    expect(summary.diagnostics[0]!.message).toMatch(/diameter .*less than 68 mm.*got 70 mm/);
+  });
+});

@@ -69,6 +69,42 @@ describe('tie: bar and threaded ends', () => {
     expect(r.utilization_bar).toBeLessThanOrEqual(1);
   });
 
+  it('a 32 mm S355 bar at 0.74 on its gross section fails at its M30 thread, 1.07 (EN 1993-1-8 Table 3.4; S355 f_y = 355, f_u = 490 MPa, EN 1993-1-1 Table 3.1, from memory)', () => {
+    // Issue 15's case: "a 32 mm bar shows 0.74 where its M30 thread would be about 1.06". That 1.06 is 0.74 × A/A_s
+    // = 0.74 × 804/561, the bar's stress put on the thread's area. By EN 1993-1-8 the thread resists
+    // 0.9·f_u/γ_M2 on A_s instead of f_y/γ_M0 on A: for S235 that is 259 MPa > 235 MPa, so the same 0.74 gives
+    // 0.96 (test above); for S355, 353 MPa < 355 MPa, it gives 1.07, as below (hand computation).
+    const A = (Math.PI * 32 ** 2) / 4; // mm²
+    const T = 0.74 * A * 355; // N: the bar at 0.74
+    const r = tie({ T, f_y: 355e6, f_u: 490e6, diameter: 0.032 });
+    expectClose(r.utilization_bar, 0.74, 1e-12);
+    const hand = T / ((0.9 * 490 * 561) / 1.25); // 1.068
+    expectClose(r.utilization_thread as number, hand, 1e-12);
+    expect(r.utilization as number).toBeGreaterThan(1);
+    expect(r.governs).toBe('thread');
+  });
+
+  it('a bar between two thread sizes carries the smaller (31 mm → M30, A_s = 561 mm²); a bar beyond the table (M64) is refused by name, not given a thread it could not carry', () => {
+    const r = tie({ T: 100e3, ...S235, diameter: 0.031 });
+    expect(r.thread).toBe('M30');
+    expectClose(r.thread_area, 561e-6, 1e-12);
+    expectClose(r.utilization_thread as number, 100e3 / ((0.9 * 360e6 * 561e-6) / 1.25), 1e-12);
+    // 64 mm and up to (not including) the next coarse size M68 (ISO 261, from memory) still take M64.
+    expect(tie({ T: 100e3, ...S235, diameter: 0.066 }).thread).toBe('M64');
+    expect(() => tie({ T: 100e3, ...S235, diameter: 0.07 })).toThrow(/diameter must be.*less than 68 mm.*got 0\.07 m/);
+    expect(() => tie({ T: 100e3, ...S235, diameter: 0.068 })).toThrow(RangeError);
+  });
+
+  it('utilization is the greater of the two also when the bar governs (γ_M0 = 1.25 chosen here only to reach that branch: a cut thread is otherwise the weaker)', () => {
+    // 20 mm bar, M20 thread: bar 235·314.16/1.25 = 59.06 kN; thread 0.9·360·245/1.25 = 63.50 kN (hand computation).
+    const r = tie({ T: 50e3, ...S235, gamma_M: 1.25, diameter: 0.02 });
+    expectClose(r.N_bar_Rd, (235e6 * Math.PI * 0.01 ** 2) / 1.25, 1e-12);
+    expectClose(r.N_thread_Rd as number, (0.9 * 360e6 * 245e-6) / 1.25, 1e-12);
+    expect(r.governs).toBe('bar');
+    expect(r.utilization).toBe(r.utilization_bar);
+    expect(r.utilization_bar).toBeGreaterThan(r.utilization_thread as number);
+  });
+
   it('gamma_M2 scales the thread resistance', () => {
     const a = tie({ T: 50e3, ...S235, diameter: 0.025 }), b = tie({ T: 50e3, ...S235, diameter: 0.025, gamma_M2: 1.5 });
     expectClose((b.utilization_thread as number) / (a.utilization_thread as number), 1.5 / 1.25, 1e-12);

@@ -156,6 +156,14 @@ describe('dome_limit: lunes with hoop compression and no hoop tension', () => {
     expect(isNotAvailable(L.H_min) && L.H_min.reason).toMatch(/not safe/);
   });
 
+  it('dome_limit refuses a shell given no self-weight (g = 0) instead of returning a thrust of 0 as if it stood', () => {
+    // The lune programme is scaled by the shell's own weight; a weightless shell under a plan load alone has no
+    // such scale (before this check: t_min 0, gsf ∞, H_min 0 for a hemisphere under 1.5 kPa on plan).
+    expect(() => domeLimit(dome({ radius: 8, half_angle: Math.PI / 2, thickness: 0.3, g: 0, p: 1500 }))).toThrow(/dome_limit: .*self-weight/);
+    // g above zero with a thickness is a weight: it is analysed.
+    expect(domeLimit(dome({ radius: 8, half_angle: Math.PI / 2, thickness: 0.6, g: 12e3 })).safe).toBe(true);
+  });
+
   it('an oculus lightens the crown: a hemisphere open at 30° needs less thickness than a closed one', () => {
     const closed = domeLimit(dome({ radius: 10, half_angle: Math.PI / 2, thickness: 0.6, unit_weight: 20e3 }));
     const open = domeLimit(dome({ radius: 10, half_angle: Math.PI / 2, thickness: 0.6, unit_weight: 20e3, oculus_angle: 30 * deg }));
