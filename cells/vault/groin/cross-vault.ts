@@ -206,14 +206,15 @@ export function crossVault(o: CrossVaultOptions): CrossVault {
   const why = 'a slice holds no line of thrust: build the pockets solid higher (see fill_needed) or thicken the webs';
   // The quarter's slice reactions on its groin: the own web's slices push with H at height z_k and load W/2 at
   // plan x_k; the crossing web's slices load W/2 at their plane v. Height of the horizontal thrust's resultant:
-  const height = (dir: 'x' | 'y', which: 'min' | 'max'): number => {
+  const height = (dir: 'x' | 'y', which: 'min' | 'max'): number | NotAvailable => {
     let H = 0, M = 0;
     for (const sl of slices) {
       if (sl.web !== dir) continue;
       const h = which === 'min' ? sl.H_min : sl.H_max;
       H += h; M += h * (which === 'min' ? sl.z_min : sl.z_max);
     }
-    return M / H;
+    // No horizontal thrust at all (every slice of the web a sliver on its pocket): no height to give.
+    return H > 0 ? M / H : notAvailable(`the ${dir}-web's slices deliver no horizontal thrust to the corner, so its thrust has no height`);
   };
   // Arm of the vertical reaction's resultant inside the corner's vertical plane:
   const arm = (dir: 'x' | 'y', which: 'min' | 'max'): number => {
