@@ -182,9 +182,16 @@ export function placeLabels(body: string, width: number, height: number): string
  * @example wrapLines('least base width: 1.40 m (middle third), 0.85 m (in base)', 60) // two lines
  */
 export function wrapLines(content: string, maxWidth: number, size = TEXT_SIZE): string[] {
+  // A number keeps the word after it (its unit) on its line: "6.01 kN" is never split, so the sheet can still
+  // read it as one quantity (engine/render/figure-units.ts) and so can the reader (common practice).
+  const words: string[] = [];
+  for (const w of content.split(/\s+/)) {
+    if (words.length && /\d$/.test(words[words.length - 1]!) && /^[A-Za-z°µ]/.test(w)) words[words.length - 1] += ` ${w}`;
+    else words.push(w);
+  }
   const lines: string[] = [];
   let line = '';
-  for (const word of content.split(/\s+/)) {
+  for (const word of words) {
     const next = line ? `${line} ${word}` : word;
     if (line && textWidth(next, size) > maxWidth) {
       lines.push(line);

@@ -7,7 +7,7 @@ import { el, esc, num, pathData, svgDocument } from '../../../cells/figures/svg.
 import { boundsOf, fitFrame, niceStep } from '../../../cells/figures/frame.js';
 import { isFigure, markFigure } from '../../../cells/figures/registry.js';
 import { dimension, factLines, label, scaleBar } from '../../../cells/figures/marks.js';
-import { placeLabels } from '../../../cells/figures/labels.js';
+import { placeLabels, wrapLines } from '../../../cells/figures/labels.js';
 import { expectClose } from '../../helpers/close.js';
 
 describe('SVG toolkit', () => {
@@ -85,6 +85,16 @@ describe('labels and facts', () => {
     expect(body.match(/<text /g)!.length).toBe(3);
     expect(body.match(/font-size="2.9"/g)!.length).toBe(3);
     expect(y).toBeCloseTo(29 + 3 * 3.6 + 2 * 1.2, 9);
+  });
+
+  it('wrapLines(text) never parts a number from its unit, so each quantity stays one text (figure-units converts it whole)', () => {
+    const fact = 'least-thrust state: wall 6.01 kN, pier 18.9 kN vertical';
+    // The room of flyer_figure's facts, 52 mm: 29 characters at 2.9 mm × 0.55 fit it, so without the rule
+    // "least-thrust state: wall 6.01" would be a line and "kN," begin the next.
+    const lines = wrapLines(fact, 52, 2.9);
+    expect(lines.join(' ')).toBe(fact);
+    expect(lines.filter((l) => /\d$/.test(l))).toEqual([]);
+    expect(lines[1]).toMatch(/^6\.01 kN,/);
   });
 
   it('placeLabels steps a dimension label off its line when the arrowheads of a short dimension reach into it, keeping it centred', () => {
