@@ -45,7 +45,9 @@ export function panel(box: Box, xr: [number, number], yr: [number, number], xLab
   const x = (v: number) => box.left + ((v - x0) / (x1 - x0)) * box.width;
   const y = (v: number) => box.top + ((y1 - v) / (y1 - y0)) * box.height;
   let frame = el('rect', { x: box.left, y: box.top, width: box.width, height: box.height, stroke: INK, 'stroke-width': 0.25 });
-  frame += el('g', { stroke: '#d9dee3', 'stroke-width': 0.15 }, ty.values.map((v) => el('line', { x1: box.left, y1: y(v), x2: box.left + box.width, y2: y(v) })).join('')
+  // The grid: pale hairlines under everything, marked so that a measure of the printed sheet can tell them from
+  // the drawing (a label's halo may lie over them; it must not lie over a drawn line).
+  frame += el('g', { class: 'vb-grid', stroke: '#d9dee3', 'stroke-width': 0.15 }, ty.values.map((v) => el('line', { x1: box.left, y1: y(v), x2: box.left + box.width, y2: y(v) })).join('')
     + tx.values.filter((v) => v >= x0 && v <= x1).map((v) => el('line', { x1: x(v), y1: box.top, x2: x(v), y2: box.top + box.height })).join(''));
   frame += el('line', { x1: box.left, y1: y(0), x2: box.left + box.width, y2: y(0), stroke: INK, 'stroke-width': 0.35 });
   frame += el('g', { fill: MUTED, 'font-size': SMALL_TEXT }, ty.values.map((v) => text(box.left - 1.2, y(v) + 0.8, tickText(v, ty.step), { 'text-anchor': 'end' })).join('')

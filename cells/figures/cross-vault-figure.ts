@@ -6,12 +6,16 @@
  */
 import type { CrossVault } from '../vault/groin/cross-vault.js';
 import { webU, webZ, type WebArc } from '../vault/groin/cross-webs.js';
-import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
+import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, type P } from './svg.js';
 import { fitFrame } from './frame.js';
-import { arrow, dimension, kilonewtons, label, metres, scaleBar } from './marks.js';
+import { arrow, dimension, factLines, kilonewtons, metres, scaleBar } from './marks.js';
+import { wrapLines } from './labels.js';
 import { markFigure } from './registry.js';
 
 const RED = '#a3162b', BLUE = '#2c4a6b';
+const WIDTH = 170;
+/** Where the elevations stand: right of the plan, each drawing in a box this high under its heading (mm). */
+const ELEV = { left: 90, width: 76, height: 34 };
 
 /** The web's middle surface offset by d, left springing to right. */
 function webOutline(w: WebArc, d: number): P[] {
@@ -31,13 +35,27 @@ function webOutline(w: WebArc, d: number): P[] {
 export function crossVaultFigure(c: CrossVault): string {
   const { x: wx, y: wy, slices } = c.model;
   const ex = wx.e, ey = wy.e, reach = Math.max(ex, ey) * 0.5;
+  const views = [
+    { w: wx, name: 'x', H: c.H_x_min, z: c.z_x_min, clear: c.span_x },
+    { w: wy, name: 'y', H: c.H_y_min, z: c.z_y_min, clear: c.span_y },
+  ].map((view) => {
+    const thrust = typeof view.H === 'number' && typeof view.z === 'number'
+      ? `H_${view.name},min = ${kilonewtons(view.H)} at z = ${metres(view.z)}${view.z < 0 ? ' (below the springing)' : ''}`
+      : 'a slice holds no line of thrust';
+    // Each elevation's heading, wrapped to the elevation's width: the drawing stands under it, not through it.
+    const title = wrapLines(`across the ${view.name}-span (${view.w.shape}): ${thrust}`, ELEV.width, SMALL_TEXT);
+    return { ...view, title, outline: [...webOutline(view.w, view.w.h), ...webOutline(view.w, -view.w.h).reverse()] };
+  });
+  // Plan left, the two elevations stacked right; one scale for all three. An elevation's ground line
+  // stands 6 mm above its box's foot, room for the clear span's dimension under it.
   const planBox = { left: 8, top: 14, width: 72, height: 72 };
   const frameP = fitFrame({ xMin: -ex - reach, xMax: ex + reach, yMin: -ey - reach, yMax: ey + reach }, planBox);
-  const elevBox = (k: number) => ({ left: 90, top: 14 + k * 40, width: 76, height: 34 });
-  const frameE = fitFrame({ xMin: -Math.max(ex, ey) - reach, xMax: Math.max(ex, ey) + reach, yMin: -0.1 * ex, yMax: c.crown + wx.h + 0.1 * ex }, elevBox(0));
-  const scale = Math.min(frameP.scale, frameE.scale);
+  const top = Math.max(...views.flatMap((v) => v.outline.map((p) => p.y)));
+  const scale = Math.min(frameP.scale, ELEV.width / (2 * (Math.max(ex, ey) + reach)), (ELEV.height - 6) / top);
   const pl = (p: P): P => ({ x: planBox.left + planBox.width / 2 + p.x * scale, y: planBox.top + planBox.height / 2 - p.y * scale });
-  let body = text(8, 6, 'PLAN: slice planes', { fill: INK, 'font-weight': 'bold' }) + text(90, 6, 'ELEVATIONS: slices\u2019 springings, solid pocket, corner thrust', { fill: INK, 'font-weight': 'bold' });
+  let body = text(8, 6, 'PLAN: slice planes', { fill: INK, 'font-weight': 'bold' });
+  const heading = wrapLines('ELEVATIONS: slices\u2019 springings, solid pocket, corner thrust', WIDTH - ELEV.left - 2);
+  body += heading.map((line, i) => text(ELEV.left, 6 + i * 3.6, line, { fill: INK, 'font-weight': 'bold' })).join('');
   const corners = [{ x: ex, y: ey }, { x: -ex, y: ey }, { x: -ex, y: -ey }, { x: ex, y: -ey }];
   body += el('path', { d: pathData(corners.map(pl), true), fill: '#f1f3f5', stroke: INK, 'stroke-width': 0.45 });
   // Slice planes: an x-web slice at y = ±v spans x between the groins at ±u; a y-web slice at x = ±v.
@@ -59,20 +77,14 @@ export function crossVaultFigure(c: CrossVault): string {
   }
   body += dimension(pl({ x: -c.span_x / 2, y: -ey }), pl({ x: c.span_x / 2, y: -ey }), -4, `clear ${metres(c.span_x)} (x)`);
   body += dimension(pl({ x: -ex, y: c.span_y / 2 }), pl({ x: -ex, y: -c.span_y / 2 }), -(reach * 0.8 * scale + 4), `clear ${metres(c.span_y)} (y)`);
-  const views = [
-    { w: wx, name: 'x', H: c.H_x_min, z: c.z_x_min, clear: c.span_x },
-    { w: wy, name: 'y', H: c.H_y_min, z: c.z_y_min, clear: c.span_y },
-  ];
-  views.forEach((view, k) => {
-    const base = elevBox(k).top + elevBox(k).height - 5;
-    const ev = (p: P): P => ({ x: 90 + 38 + p.x * scale, y: base - p.y * scale });
+  // Each elevation under its heading; y is where the next begins.
+  let y = 6 + 3.6 * heading.length;
+  for (const view of views) {
+    body += view.title.map((line, i) => text(ELEV.left, y + 1 + i * 3.4, line, { fill: typeof view.H === 'number' ? MUTED : RED, 'font-size': SMALL_TEXT })).join('');
+    const base = y + 3.4 * view.title.length + ELEV.height - 6;
+    const ev = (p: P): P => ({ x: ELEV.left + ELEV.width / 2 + p.x * scale, y: base - p.y * scale });
     const w = view.w;
-    const thrust = typeof view.H === 'number' && typeof view.z === 'number'
-      ? `H_${view.name},min = ${kilonewtons(view.H)} at z = ${metres(view.z)}${view.z < 0 ? ' (below the springing)' : ''}`
-      : 'a slice holds no line of thrust';
-    body += text(90, elevBox(k).top + 1, `across the ${view.name}-span (${w.shape}): ${thrust}`, { fill: typeof view.H === 'number' ? MUTED : RED, 'font-size': 2.2 });
-    const outline = [...webOutline(w, w.h), ...webOutline(w, -w.h).reverse()];
-    body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
+    body += el('path', { d: pathData(view.outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
     if (c.solid_level > 0) {
       const a = ev({ x: -w.e - w.h, y: c.solid_level }), b = ev({ x: w.e + w.h, y: c.solid_level });
       body += el('line', { x1: a.x, y1: a.y, x2: b.x, y2: b.y, stroke: BLUE, 'stroke-width': 0.3, 'stroke-dasharray': '1.5 1' });
@@ -80,16 +92,20 @@ export function crossVaultFigure(c: CrossVault): string {
     for (const s of slices.filter((sl) => sl.web === view.name && sl.H_min > 0)) {
       for (const side of [-1, 1]) body += el('circle', { cx: ev({ x: side * s.x_min, y: s.z_min }).x, cy: ev({ x: side * s.x_min, y: s.z_min }).y, r: 0.45, fill: RED });
     }
-    const ground = ev({ x: 0, y: 0 }).y;
-    body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
+    body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: base, x2: ev({ x: w.e + reach, y: 0 }).x, y2: base, stroke: INK, 'stroke-width': 0.3 });
     body += dimension(ev({ x: -view.clear / 2, y: 0 }), ev({ x: view.clear / 2, y: 0 }), -2.5, `clear ${metres(view.clear)}`);
     if (typeof view.H === 'number' && typeof view.z === 'number' && view.z >= 0) {
       const cpt = ev({ x: w.e, y: view.z });
       body += arrow(cpt, { x: cpt.x + len(view.H), y: cpt.y }, '', RED) + el('circle', { cx: cpt.x, cy: cpt.y, r: 0.8, fill: RED });
     }
-  });
-  const facts = `solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? kilonewtons(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`;
-  body += text(8, 97, facts, { fill: MUTED, 'font-size': 2.2 });
-  body += scaleBar(scale, { x: 8, y: 91 }, 30);
-  return markFigure(svgDocument(170, 100, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body));
+    y = base + 6 + 3;
+  }
+  // Under the plan its scale bar; under everything the facts of the pocket and the corner, with room above them
+  // for the last clear span's label to step off its line.
+  const bar = planBox.top + planBox.height + 4;
+  body += scaleBar(scale, { x: 8, y: bar }, 30);
+  const facts = factLines([[`solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? kilonewtons(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`, { fill: MUTED }]],
+    { x: 8, y: Math.max(bar + 10, y + 1.5) }, WIDTH - 16);
+  body += facts.body;
+  return markFigure(svgDocument(WIDTH, facts.y, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body));
 }

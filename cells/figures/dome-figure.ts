@@ -10,7 +10,7 @@ import { membraneForces } from '../vault/dome/meridian.js';
 import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
 import { panel } from './axes.js';
-import { dimension, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { dimension, factLines, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
 import { markFigure } from './registry.js';
 
 const WIDTH = 170;
@@ -45,7 +45,8 @@ export function domeFigure(d: Dome, limit?: DomeLimit): string {
   const intr = face(-t / 2), extr = face(t / 2), mid = face(0);
   const b = boundsOf([both(extr), both(intr)], 0.08 * a);
   b.yMin = Math.min(b.yMin, -0.12 * a);
-  const frame = fitFrame(b, { left: 10, top: 10, width: 86, height: 58 });
+  // The section left of x = 90: its height dimension stands outside the shell, right of it, clear of the facts at 100.
+  const frame = fitFrame(b, { left: 10, top: 10, width: 80, height: 58 });
   const at = (p: P) => frame.at(p);
   let body = text(10, 5, 'Dome: meridian section, hoop-tension zone and thrust surface; membrane forces along the meridian', { fill: INK, 'font-weight': 'bold' });
   if (t > 0) {
@@ -74,7 +75,8 @@ export function domeFigure(d: Dome, limit?: DomeLimit): string {
   body += el('line', { x1: frame.x(-rb - t) - 4, y1: frame.y(0), x2: frame.x(rb + t) + 4, y2: frame.y(0), stroke: MUTED, 'stroke-width': 0.2, 'stroke-dasharray': '1 0.8' });
   const ri = (a - t / 2) * Math.sin(m.phiBase) - c;
   body += dimension(at({ x: -ri, y: 0 }), at({ x: ri, y: 0 }), 4, `clear span ${metres(2 * ri)}`);
-  body += dimension(at({ x: rb, y: 0 }), at({ x: rb, y: d.height }), 4, `${metres(d.height)}`);
+  const re = (a + t / 2) * Math.sin(m.phiBase) - c;
+  body += dimension(at({ x: re, y: 0 }), at({ x: re, y: d.height }), -4, `${metres(d.height)}`);
   // The least-thrust line of a lune, drawn on both halves.
   const facts: Array<[string, string]> = [
     [`middle surface: radius ${metres(a)}, half-angle ${deg(m.phiBase).toFixed(1)}°${m.open ? `, oculus at ${deg(m.phiTop).toFixed(1)}°` : ''}`, INK],
@@ -89,18 +91,21 @@ export function domeFigure(d: Dome, limit?: DomeLimit): string {
     facts.push([`lunes, no hoop tension: t_min ${typeof limit.t_min === 'number' ? metres(limit.t_min) : 'none fits'}, gsf ${Number.isFinite(limit.gsf) ? limit.gsf.toFixed(2) : '∞'}`, limit.gsf < 1 ? RED : INK]);
     if (typeof limit.H_min === 'number') facts.push([`base thrust from ${kilonewtons(limit.H_min, 'kN/m')} to ${Number.isFinite(limit.H_max as number) ? kilonewtons(limit.H_max as number, 'kN/m') : '∞'}`, INK]);
   }
-  body += facts.map(([f, col], i) => text(100, 16 + i * 4.6, f, { fill: col, 'font-size': 2.3 })).join('');
-  body += legendItem({ x: 100, y: 16 + facts.length * 4.6 + 2 }, STYLES.zone, 'hoop tension in the membrane state');
-  if (limit) body += legendItem({ x: 100, y: 16 + facts.length * 4.6 + 6.5 }, STYLES.thrust, 'least-thrust line of a lune');
+  // The legend, then each fact wrapped to the room right of the section.
+  body += legendItem({ x: 100, y: 14 }, STYLES.zone, 'hoop tension in the membrane state');
+  if (limit) body += legendItem({ x: 100, y: 18.5 }, STYLES.thrust, 'least-thrust line of a lune');
+  const written = factLines(facts.map(([f, col]) => [f, { fill: col }]), { x: 100, y: limit ? 25 : 20.5 }, WIDTH - 100 - 2);
+  body += written.body;
   body += scaleBar(frame.scale, { x: 12, y: 80 }, 30);
-  // Forces along the meridian.
+  // Forces along the meridian, under the section and the facts, whichever reaches lower.
+  const down = Math.max(0, written.y - 86);
   const nphi = samples.map((p): [number, number] => [deg(p), membraneForces(m, p).N_phi / 1000]);
   const nth = samples.map((p): [number, number] => [deg(p), membraneForces(m, p).N_theta / 1000]);
   const ys = [...nphi, ...nth].map(([, y]) => y);
-  const pl = panel({ left: 26, top: 96, width: 134, height: 44 }, [deg(m.phiTop), deg(m.phiBase)], [Math.min(...ys), Math.max(...ys)],
+  const pl = panel({ left: 26, top: 96 + down, width: 134, height: 44 }, [deg(m.phiTop), deg(m.phiBase)], [Math.min(...ys), Math.max(...ys)],
     'angle from the crown φ (°), top edge to base', 'kN/m');
   body += pl.frame + pl.curve(nphi, STYLES.phi) + pl.curve(nth, STYLES.theta);
-  body += legendItem({ x: 28, y: 91 }, STYLES.phi, 'N_φ meridional') + legendItem({ x: 80, y: 91 }, STYLES.theta, 'N_θ hoop (tension above zero)');
+  body += legendItem({ x: 28, y: 91 + down }, STYLES.phi, 'N_φ meridional') + legendItem({ x: 80, y: 91 + down }, STYLES.theta, 'N_θ hoop (tension above zero)');
   if (typeof d.phi_hoop_tension === 'number') body += label(pl.x(deg(d.phi_hoop_tension)), pl.y(0) - 2, `${deg(d.phi_hoop_tension).toFixed(1)}°`, 'middle', { fill: RED });
-  return markFigure(svgDocument(WIDTH, 152, 'Dome meridian section with the hoop-tension zone and thrust line, and membrane forces along the meridian', body));
+  return markFigure(svgDocument(WIDTH, 152 + down, 'Dome meridian section with the hoop-tension zone and thrust line, and membrane forces along the meridian', body));
 }

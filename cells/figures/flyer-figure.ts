@@ -5,9 +5,10 @@
 import type { Flyer } from '../supports/flyer.js';
 import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
-import { dimension, kilonewtons, legendItem, metres, scaleBar } from './marks.js';
+import { dimension, factLines, kilonewtons, legendItem, metres, scaleBar } from './marks.js';
 import { markFigure } from './registry.js';
 
+const WIDTH = 170;
 const RED = '#a3162b';
 const LEAST = { stroke: RED, 'stroke-width': 0.6 };
 const MOST = { stroke: '#2c4a6b', 'stroke-width': 0.6, 'stroke-dasharray': '2.4 1.2' };
@@ -41,8 +42,10 @@ export function flyerFigure(f: Flyer): string {
     `least-thrust state: wall ${kilonewtons(f.V_wall)}, pier ${kilonewtons(f.V_pier)} vertical`,
     ...(typeof f.H_crush === 'number' ? [`crushing at a thrust of ${kilonewtons(f.H_crush)}`] : []),
   ];
-  body += facts.map((t, i) => text(116, 18 + i * 4.6, t, { fill: INK, 'font-size': 2.3 })).join('');
-  body += legendItem({ x: 116, y: 42 }, LEAST, 'line of least thrust') + legendItem({ x: 116, y: 46.5 }, MOST, 'line of greatest thrust');
+  // The legend, then each fact wrapped to the room right of the drawing.
+  body += legendItem({ x: 116, y: 18 }, LEAST, 'line of least thrust') + legendItem({ x: 116, y: 22.5 }, MOST, 'line of greatest thrust');
+  const written = factLines(facts.map((t) => [t, { fill: INK }]), { x: 116, y: 29 }, WIDTH - 116 - 2);
+  body += written.body;
   body += scaleBar(frame.scale, { x: 12, y: 80 }, 30);
-  return markFigure(svgDocument(170, 88, 'Flying buttress in elevation with its lines of least and greatest thrust', body));
+  return markFigure(svgDocument(WIDTH, Math.max(88, written.y + 2), 'Flying buttress in elevation with its lines of least and greatest thrust', body));
 }

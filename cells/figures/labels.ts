@@ -109,7 +109,9 @@ function candidates(t: Text): P[] {
   const { hw, hh, u } = t.box;
   const out: P[] = [{ x: 0, y: 0 }];
   if (t.place === 'along') {
-    // A dimension's label slides along its line.
+    // A dimension's label first steps a little off its line (clear of the arrowheads of a dimension hardly
+    // longer than its label), then slides along it.
+    for (const d of [0.6, 1.2]) for (const s of [1, -1]) out.push({ x: -u.y * d * s, y: u.x * d * s });
     for (const f of [0.6, 1.2, 1.8, 2.4, 3]) for (const s of [1, -1]) out.push({ x: u.x * hw * f * s, y: u.y * hw * f * s });
     return out;
   }
@@ -129,7 +131,12 @@ function candidates(t: Text): P[] {
  */
 export function placeLabels(body: string, width: number, height: number): string {
   const segs: Seg[] = [];
-  for (const m of body.matchAll(/<line [^>]*\/>/g)) segs.push({ a: { x: N(m[0], 'x1'), y: N(m[0], 'y1') }, b: { x: N(m[0], 'x2'), y: N(m[0], 'y2') } });
+  // A panel's grid (axes.ts) lies under everything: a label goes over a grid line rather than over the drawing.
+  const grids = [...body.matchAll(/<g class="vb-grid"[^>]*>.*?<\/g>/gs)].map((g) => ({ from: g.index!, to: g.index! + g[0].length }));
+  const grid: Seg[] = [];
+  for (const m of body.matchAll(/<line [^>]*\/>/g)) {
+    (grids.some((g) => m.index! > g.from && m.index! < g.to) ? grid : segs).push({ a: { x: N(m[0], 'x1'), y: N(m[0], 'y1') }, b: { x: N(m[0], 'x2'), y: N(m[0], 'y2') } });
+  }
   for (const m of body.matchAll(/<path [^>]*\/>/g)) segs.push(...pathSegments(ATTR(m[0], 'd') ?? ''));
   for (const m of body.matchAll(/<rect [^>]*\/>/g)) {
     const x = N(m[0], 'x'), y = N(m[0], 'y'), w = N(m[0], 'width'), h = N(m[0], 'height');
@@ -147,7 +154,8 @@ export function placeLabels(body: string, width: number, height: number): string
   const fixed = texts.filter((t) => !t.place).map((t) => t.box);
   const placed: Box[] = [];
   const inside = (b: Box) => edges(b).every((e) => e.a.x >= 0 && e.a.x <= width && e.a.y >= 0 && e.a.y <= height);
-  const clash = (b: Box) => segs.filter((s) => crosses(s, b)).length + [...fixed, ...placed].filter((o) => overlaps(b, o)).length;
+  const clash = (b: Box) => segs.filter((s) => crosses(s, b)).length + [...fixed, ...placed].filter((o) => overlaps(b, o)).length
+    + 0.01 * grid.filter((s) => crosses(s, b)).length;
   let out = '';
   let at = 0;
   for (const t of texts) {
@@ -174,9 +182,16 @@ export function placeLabels(body: string, width: number, height: number): string
  * @example wrapLines('least base width: 1.40 m (middle third), 0.85 m (in base)', 60) // two lines
  */
 export function wrapLines(content: string, maxWidth: number, size = TEXT_SIZE): string[] {
+  // A number keeps the word after it (its unit) on its line: "6.01 kN" is never split, so the sheet can still
+  // read it as one quantity (engine/render/figure-units.ts) and so can the reader (common practice).
+  const words: string[] = [];
+  for (const w of content.split(/\s+/)) {
+    if (words.length && /\d$/.test(words[words.length - 1]!) && /^[A-Za-z°µ]/.test(w)) words[words.length - 1] += ` ${w}`;
+    else words.push(w);
+  }
   const lines: string[] = [];
   let line = '';
-  for (const word of content.split(/\s+/)) {
+  for (const word of words) {
     const next = line ? `${line} ${word}` : word;
     if (line && textWidth(next, size) > maxWidth) {
       lines.push(line);

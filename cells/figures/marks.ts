@@ -2,8 +2,9 @@
  * Drafting marks shared by every figure: dimension lines, a scale bar,
  * force arrows and labels with a white halo so they stay legible over lines.
  */
-import { el, num, text, INK, MUTED, TEXT_SIZE, type P } from './svg.js';
+import { el, num, text, INK, MUTED, SMALL_TEXT, TEXT_SIZE, type Attrs, type P } from './svg.js';
 import { niceStep } from './frame.js';
+import { wrapLines } from './labels.js';
 
 /**
  * A length in metres as a dimension label, to at least three significant figures so that a 0.215 m ring
@@ -89,4 +90,26 @@ export function arrow(tail: P, tip: P, content: string, colour = INK, anchor: 's
 /** A legend entry: a short sample of a line style and its words. */
 export function legendItem(at: P, style: Record<string, string | number>, content: string): string {
   return el('line', { x1: at.x, y1: at.y, x2: at.x + 8, y2: at.y, ...style }) + text(at.x + 10, at.y + 0.9, content, { fill: INK });
+}
+
+/**
+ * Facts written beside or under a drawing at the least print size, each wrapped to the room it has; the
+ * lines of one fact sit closer than two facts.
+ * @param facts each fact's words and its text attributes (fill, weight)
+ * @param at the first line's left end and baseline (mm)
+ * @param maxWidth the room to the right of `at` (mm)
+ * @returns the markup, and the baseline (mm) a next fact would take: the figure's height follows it
+ * @example factLines([['weight 24.9 kN', { fill: INK }]], { x: 116, y: 29 }, 52)
+ */
+export function factLines(facts: ReadonlyArray<readonly [string, Attrs]>, at: P, maxWidth: number): { body: string; y: number } {
+  let body = '';
+  let y = at.y;
+  for (const [words, attrs] of facts) {
+    for (const part of wrapLines(words, maxWidth, SMALL_TEXT)) {
+      body += text(at.x, y, part, { ...attrs, 'font-size': SMALL_TEXT });
+      y += 3.6;
+    }
+    y += 1.2;
+  }
+  return { body, y };
 }

@@ -8,6 +8,7 @@ import { el, svgDocument, text, INK, MUTED, SMALL_TEXT } from './svg.js';
 import { wrapLines } from './labels.js';
 import { panel } from './axes.js';
 import { markFigure } from './registry.js';
+import { label } from './marks.js';
 
 const WIDTH = 170;
 const CURVE = { stroke: '#2c4a6b', 'stroke-width': 0.6, fill: 'none' };
@@ -48,7 +49,8 @@ export function scanPlot(s: ArchScan): string {
     body += el('circle', { cx, cy, r: 1.1, fill: '#a3162b' });
     body += el('line', { x1: cx, y1: cy, x2: cx, y2: p.y(0), stroke: '#a3162b', 'stroke-width': 0.25, 'stroke-dasharray': '0.8 0.6' });
     const right = cx < 24 + 136 * 0.6;
-    body += text(cx + (right ? 2 : -2), cy + 4.2, `worst: λ = ${s.lambda_min.toFixed(2)} at x = ${s.x_worst.toFixed(2)} m`, { 'text-anchor': right ? 'start' : 'end', fill: '#a3162b', 'font-weight': 'bold' });
+    // A label: the placement pass moves it off the curve and the line λ = 1 when it lands on them.
+    body += label(cx + (right ? 2 : -2), cy + 4.2, `worst: λ = ${s.lambda_min.toFixed(2)} at x = ${s.x_worst.toFixed(2)} m`, right ? 'start' : 'end', { fill: '#a3162b', 'font-weight': 'bold' });
   } else {
     title += ' (no position causes collapse)';
   }

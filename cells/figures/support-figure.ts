@@ -6,11 +6,10 @@
  */
 import type { Buttress } from '../supports/buttress.js';
 import { buttressBlocks, type ButtressOptions } from '../supports/blocks.js';
-import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, type P } from './svg.js';
+import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { fitFrame } from './frame.js';
-import { arrow, dimension, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { arrow, dimension, factLines, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
 import { markFigure } from './registry.js';
-import { wrapLines } from './labels.js';
 
 const WIDTH = 170;
 const RED = '#a3162b';
@@ -89,15 +88,10 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
     ...(typeof b.sigma_max === 'number' ? [[`base pressure: max ${kilonewtons(b.sigma_max, 'kN/m²')}, min ${kilonewtons(typeof b.sigma_min === 'number' ? b.sigma_min : 0, 'kN/m²')}`, INK]] : []),
     ...(typeof b.sf_sliding === 'number' && Number.isFinite(b.sf_sliding) ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
   ] as Array<[string, string]>;
-  // Each fact wrapped to the room right of the drawing; a wrapped fact's lines sit closer than two facts.
-  let y = 30;
-  for (const [t, c] of lines) {
-    for (const part of wrapLines(t, WIDTH - 112 - 2, SMALL_TEXT)) {
-      body += text(112, y, part, { fill: c, 'font-weight': c === RED ? 'bold' : undefined, 'font-size': SMALL_TEXT });
-      y += 3.6;
-    }
-    y += 1.2;
-  }
+  // Each fact wrapped to the room right of the drawing.
+  const facts = factLines(lines.map(([t, c]) => [t, { fill: c, 'font-weight': c === RED ? 'bold' : undefined }]), { x: 112, y: 30 }, WIDTH - 112 - 2);
+  body += facts.body;
+  const y = facts.y;
   body += legendItem({ x: 112, y: 20 }, PATH, 'path of the resultant') + legendItem({ x: 112, y: 24.5 }, THIRD, 'middle third of each section');
   body += scaleBar(frame.scale, { x: 10, y: top + drawH + 12 }, 35);
   return markFigure(svgDocument(WIDTH, Math.max(top + drawH + 20, y + 2), 'Support in elevation with the path of the resultant and the middle third', body));

@@ -20,7 +20,8 @@ export function overflowsIn(page: Page): Promise<string[]> {
       if (!box) continue;
       const r = el.getBoundingClientRect();
       const b = box.getBoundingClientRect();
-      const what = `${el.tagName.toLowerCase()}.${String(el.className).split(' ')[0]} in .${box.className.split(' ')[0]}`;
+      // An SVG element's className is an object: its class attribute names it (an SVG text with its words).
+      const what = `${el.tagName.toLowerCase()}.${(el.getAttribute('class') ?? '').split(' ')[0]}${el instanceof SVGElement ? ` "${el.textContent}"` : ''} in .${box.className.split(' ')[0]}`;
       if (r.width > 0 && (r.right > b.right + 1 || r.left < b.left - 1)) out.push(`${what} by ${Math.round(Math.max(r.right - b.right, b.left - r.left))} px`);
       if (getComputedStyle(el).overflowX !== 'visible' && el.scrollWidth > el.clientWidth + 1) out.push(`${what} scrolls: ${el.scrollWidth} > ${el.clientWidth} px`);
     }
@@ -79,8 +80,9 @@ export function workingNumbers(page: Page): Promise<string[]> {
 }
 
 /**
- * Labels of figures (texts the placement pass moved, class vb-label) that a line, a path or another
- * text crosses, measured on the glyphs Chromium draws; and texts that stick out of their drawing.
+ * Texts of figures (labels the placement pass moved, headings, facts, legends, ticks) that a line, a path or
+ * another text crosses, measured on the glyphs Chromium draws, each pair of texts once; and texts that stick
+ * out of their drawing.
  */
 export function figureClashes(page: Page): Promise<string[]> {
   return page.evaluate(() => {
@@ -95,7 +97,9 @@ export function figureClashes(page: Page): Promise<string[]> {
       };
       // Points of every line and path, in the svg's own units.
       const polylines: DOMPoint[][] = [];
+      // A panel's pale grid (class vb-grid) lies under everything and may pass behind a label; every other line may not.
       for (const l of svg.querySelectorAll<SVGLineElement>('line')) {
+        if (l.closest('.vb-grid')) continue;
         const [x1, y1, x2, y2] = [l.x1.baseVal.value, l.y1.baseVal.value, l.x2.baseVal.value, l.y2.baseVal.value];
         const steps = Math.max(1, Math.ceil(Math.hypot(x2 - x1, y2 - y1) / 0.3));
         polylines.push(Array.from({ length: steps + 1 }, (_, i) => new DOMPoint(x1 + ((x2 - x1) * i) / steps, y1 + ((y2 - y1) * i) / steps)));
@@ -112,7 +116,6 @@ export function figureClashes(page: Page): Promise<string[]> {
         const m = root.inverse().multiply(t.getCTM()!);
         const corners = [[b.x, b.y], [b.x + b.width, b.y], [b.x, b.y + b.height], [b.x + b.width, b.y + b.height]].map(([x, y]) => new DOMPoint(x, y).matrixTransform(m));
         if (corners.some((c) => c.x < vb.x - 0.5 || c.y < vb.y - 0.5 || c.x > vb.x + vb.width + 0.5 || c.y > vb.y + vb.height + 0.5)) out.push(`figure ${f + 1}: "${t.textContent}" runs out of the drawing`);
-        if (!t.classList.contains('vb-label')) continue;
         const box = boxOf(t);
         const toText = m.inverse();
         const inBox = (p: DOMPoint) => { const q = p.matrixTransform(toText); return q.x > box.x0 && q.x < box.x1 && q.y > box.y0 && q.y < box.y1; };
@@ -123,7 +126,7 @@ export function figureClashes(page: Page): Promise<string[]> {
           const om = root.inverse().multiply(o.getCTM()!);
           const oc = [[ob.x + INSET, ob.y + INSET], [ob.x + ob.width - INSET, ob.y + INSET], [ob.x + INSET, ob.y + ob.height - INSET], [ob.x + ob.width - INSET, ob.y + ob.height - INSET], [ob.x + ob.width / 2, ob.y + ob.height / 2]]
             .map(([x, y]) => new DOMPoint(x, y).matrixTransform(om));
-          if (oc.some(inBox)) out.push(`figure ${f + 1}: "${o.textContent}" overlaps "${t.textContent}"`);
+          if (oc.some(inBox) && !out.includes(`figure ${f + 1}: "${t.textContent}" overlaps "${o.textContent}"`)) out.push(`figure ${f + 1}: "${o.textContent}" overlaps "${t.textContent}"`);
         }
       }
     }

@@ -190,7 +190,37 @@ describe('dome_figure, cross_vault_figure, flyer_figure (issue 15)', () => {
     const t = texts(crossVaultFigure(c));
     expect(t).toContain('clear 6.00 m (x)');
     expect(t).toContain('clear 4.20 m (y)');
-    expect(t.filter((x) => /: H_[xy],min = .* at z = /.test(x)).length).toBe(2);
+    // Each elevation's heading wraps to the elevation's width (text at least 8 pt), so it is read joined.
+    expect(t.join(' ').match(/across the [xy]-span \(pointed\): H_[xy],min = .*? at z = /g)?.length).toBe(2);
+  });
+
+  it('cross_vault_figure of an oblong 4.2 × 6.0 m bay draws both elevations and dimensions the clear spans, not the middle surface\'s 4.38 × 6.18 m', async () => {
+    const { crossVault } = await import('../../../cells/vault/groin/cross-vault.js');
+    const { crossVaultFigure } = await import('../../../cells/figures/cross-vault-figure.js');
+    const c = crossVault({ span_x: 4.2, span_y: 6.0, shape: 'pointed', thickness: 0.18, unit_weight: 18e3 });
+    // The middle surface springs half a thickness outside each face of the supports (geometry): 4.2 + 0.18 and 6.0 + 0.18.
+    expectClose(2 * c.model.x.e, 4.38, 1e-9);
+    expectClose(2 * c.model.y.e, 6.18, 1e-9);
+    const svg = crossVaultFigure(c);
+    const t = texts(svg);
+    expect(t).toEqual(expect.arrayContaining(['clear 4.20 m (x)', 'clear 6.00 m (y)', 'clear 4.20 m', 'clear 6.00 m']));
+    expect(t.filter((x) => /4\.38|6\.18/.test(x))).toEqual([]);
+    // Both elevations: a heading and a shell outline for each direction.
+    expect(t.join(' ')).toMatch(/across the x-span .*across the y-span/);
+    const root = parse(svg);
+    expect(root.querySelectorAll('path').filter((p) => p.getAttribute('fill') === '#e4e7ea').length).toBe(2);
+    // The dimension lines are drawn to the clear spans at the drawing's one scale: in plan 4.2 : 6.0 to each other and
+    // 4.2 : 4.38 to the bay's outline through the middle surface's springings.
+    const dims = root.querySelectorAll('g').filter((g) => g.getAttribute('stroke-width') === '0.18').map((g) => {
+      const l = g.querySelectorAll('line')[2]!;
+      return Math.hypot(num(l.getAttribute('x2')) - num(l.getAttribute('x1')), num(l.getAttribute('y2')) - num(l.getAttribute('y1')));
+    });
+    expect(dims.length).toBe(4); // plan x, plan y, elevation x, elevation y
+    expectClose(dims[0]! / dims[1]!, 4.2 / 6.0, 2e-3);
+    expectClose(dims[2]! / dims[3]!, 4.2 / 6.0, 2e-3);
+    const bay = root.querySelectorAll('path').find((p) => p.getAttribute('fill') === '#f1f3f5')!;
+    const xs = bay.getAttribute('d')!.match(/[ML](-?[\d.]+) /g)!.map((m) => Number(m.slice(1)));
+    expectClose(dims[0]! / (Math.max(...xs) - Math.min(...xs)), 4.2 / 4.38, 2e-3);
   });
 
   it('flyer_figure shows both lines for an arched flyer and ∞ for a straight one', async () => {

@@ -6,7 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { el, esc, num, pathData, svgDocument } from '../../../cells/figures/svg.js';
 import { boundsOf, fitFrame, niceStep } from '../../../cells/figures/frame.js';
 import { isFigure, markFigure } from '../../../cells/figures/registry.js';
-import { dimension, scaleBar } from '../../../cells/figures/marks.js';
+import { dimension, factLines, label, scaleBar } from '../../../cells/figures/marks.js';
+import { placeLabels, wrapLines } from '../../../cells/figures/labels.js';
 import { expectClose } from '../../helpers/close.js';
 
 describe('SVG toolkit', () => {
@@ -72,5 +73,43 @@ describe('figure registry', () => {
 
   it('markFigure refuses anything that is not an SVG string', () => {
     expect(() => markFigure('<div></div>')).toThrow(TypeError);
+  });
+});
+
+describe('labels and facts', () => {
+  const attr = (svg: string, content: string, name: string) => Number(new RegExp(`<text[^>]*\\s${name}="([^"]*)"[^>]*>${content}<`).exec(svg)![1]);
+
+  it('factLines(facts) wraps each fact to its room at the least print size and gives the next baseline', () => {
+    const { body, y } = factLines([['least thrust 9.92 kN (under its own weight)', { fill: '#000' }], ['weight 24.9 kN', { fill: '#000' }]], { x: 116, y: 29 }, 52);
+    // 43 characters at 2.9 mm × 0.55 are 69 mm: two lines in 52 mm; the second fact one line.
+    expect(body.match(/<text /g)!.length).toBe(3);
+    expect(body.match(/font-size="2.9"/g)!.length).toBe(3);
+    expect(y).toBeCloseTo(29 + 3 * 3.6 + 2 * 1.2, 9);
+  });
+
+  it('wrapLines(text) never parts a number from its unit, so each quantity stays one text (figure-units converts it whole)', () => {
+    const fact = 'least-thrust state: wall 6.01 kN, pier 18.9 kN vertical';
+    // The room of flyer_figure's facts, 52 mm: 29 characters at 2.9 mm × 0.55 fit it, so without the rule
+    // "least-thrust state: wall 6.01" would be a line and "kN," begin the next.
+    const lines = wrapLines(fact, 52, 2.9);
+    expect(lines.join(' ')).toBe(fact);
+    expect(lines.filter((l) => /\d$/.test(l))).toEqual([]);
+    expect(lines[1]).toMatch(/^6\.01 kN,/);
+  });
+
+  it('placeLabels steps a dimension label off its line when the arrowheads of a short dimension reach into it, keeping it centred', () => {
+    // A 20 mm dimension with a label about 19 mm wide: its arrowheads (2.2 mm long, 0.6 mm either side of the line) reach the label.
+    const svg = svgDocument(100, 30, 'short dimension', dimension({ x: 40, y: 10 }, { x: 60, y: 10 }, -4, 'clear 4.20 m'));
+    expect(attr(svg, 'clear 4.20 m', 'x')).toBe(50);
+    expect(attr(svg, 'clear 4.20 m', 'y')).toBeCloseTo(10 + 4 + 2 + 0.6, 9);
+  });
+
+  it('placeLabels puts a label over a pale grid line rather than over a drawn line', () => {
+    // A drawn line through the label where it is written; grid lines every millimetre everywhere else.
+    const grid = Array.from({ length: 31 }, (_, i) => i).filter((y) => y !== 19).map((y) => `<line x1="0" y1="${y}" x2="100" y2="${y}"/>`).join('');
+    const body = `<g class="vb-grid" stroke="#d9dee3">${grid}</g><line x1="0" y1="19" x2="100" y2="19" stroke="#000"/>${label(50, 20, 'abc')}`;
+    const y = attr(placeLabels(body, 100, 30), 'abc', 'y');
+    // The glyphs sit from 0.75 em above the baseline to 0.2 em below (labels.ts): clear of y = 19 either way.
+    expect(y - 0.75 * 2.9 > 19 || y + 0.2 * 2.9 < 19 ? 'clear of the drawn line' : `on it at y = ${y}`).toBe('clear of the drawn line');
   });
 });
