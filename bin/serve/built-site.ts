@@ -108,6 +108,17 @@ export function splitPage(html: string, css: string): { head: string; tail: stri
 }
 
 /**
+ * May this sheet be written into the page's HTML? It is the renderer's sheet (prose cleaned of scripts),
+ * but written into the page, unlike the page's own innerHTML, a <script> would run and a closing tag of
+ * the page's frame would break out of #lv-sheet: such a sheet goes by /__sheet instead.
+ */
+export function inlinable(html: string): boolean {
+  const count = (re: RegExp) => html.match(re)?.length ?? 0;
+  return html.startsWith('<article') && !/<\/?(?:script|body|html|head|noscript|template|plaintext|xmp|iframe|frameset)\b/i.test(html)
+    && count(/<main\b/gi) === count(/<\/main\b/gi); // the sheet's own <main> is closed inside it
+}
+
+/**
  * Serves a built page.
  * @param dir from buildSite
  * @param first the server-rendered sheet, served at /__sheet for the page's first paint
@@ -144,7 +155,8 @@ export function serveBuiltSite(dir: string, first?: FirstPaint): BuiltSite {
       if ((path === '/' || path === '/index.html') && page && req.method === 'GET') {
         res.writeHead(200, { 'Content-Type': TYPES['.html']!, 'Cache-Control': 'no-store', 'X-Content-Type-Options': 'nosniff' });
         res.write(page.head);
-        first!.get().then(({ html }) => res.end(html + page.tail), () => res.end(page.tail));
+        // Without a sheet (it could not be rendered, or is not one to write into a page) the page asks /__sheet itself.
+        first!.get().then(({ html }) => res.end((inlinable(html) ? html : '') + page.tail), () => res.end(page.tail));
         return true;
       }
       const file = files.get(path);

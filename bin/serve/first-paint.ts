@@ -43,7 +43,12 @@ export function firstPaint(file: string, shownName: string): FirstPaint {
     return { version, html: pointAssets(html) };
   };
   const get = () => {
-    const bytes = readDocumentBytesSync(file);
+    let bytes: Buffer;
+    try {
+      bytes = readDocumentBytesSync(file);
+    } catch (e) {
+      return Promise.reject(e as Error); // never a throw: callers answer a request with the failure
+    }
     const version = versionOf(bytes);
     if (last?.version !== version) last = { version, result: render(bytes, version) };
     return last.result;

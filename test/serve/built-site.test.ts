@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:
 import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { buildSite, sourceKey, splitPage } from '../../bin/serve/built-site.js';
+import { buildSite, inlinable, sourceKey, splitPage } from '../../bin/serve/built-site.js';
 import { pointAssets } from '../../bin/serve/first-paint.js';
 import { startServer, type ServeHandle } from '../../bin/serve/server.js';
 import { FIXTURES, rawRequest, tempCopy } from './helpers.js';
@@ -94,6 +94,14 @@ describe('the first paint', () => {
     const kept = '<img src="/__asset/x.png"><img src="data:image/png;base64,AA"><img src="https://example.org/x.png"><img src="#x">';
     expect(pointAssets(kept)).toBe(kept);
     expect(pointAssets('<p>src="fig.png" in text</p>')).toBe('<p>src="fig.png" in text</p>');
+  });
+
+  it('inlinable: the renderer\'s sheet is written into the page; one holding a script or a frame-closing tag is not', () => {
+    expect(inlinable('<article class="vb-sheet"><p>L = 4.8 m</p><style data-part="page-style">@page{}</style><main class="vb-main"><p>x</p></main></article>')).toBe(true);
+    expect(inlinable('<article class="vb-sheet"><script>alert(1)</script></article>')).toBe(false);
+    expect(inlinable('<article class="vb-sheet"><SCRIPT src=x></SCRIPT></article>')).toBe(false);
+    expect(inlinable('<article class="vb-sheet"></main><p>outside</p></article>')).toBe(false);
+    expect(inlinable('<p>not a sheet</p>')).toBe(false);
   });
 
   it('splitPage cuts the page inside #lv-sheet and refuses a page without it', () => {
