@@ -7,11 +7,12 @@
  *   painted, with its phases: spawn → listening (the address printed), page request → first byte,
  *   first byte → sheet painted. The command and page bundles are built and the command's code cache
  *   written by one untimed start first (they are built once, at install or first use).
+ *   Also the CPU time the serve process used by then (from /proc), which other processes disturb less than the wall time.
  * - in process: from calling startServer() (its modules already loaded) to the sheet painted, for the
  *   page built once and reused (the default) and for Vite's development server.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { copyFileSync, mkdtempSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
@@ -67,7 +68,18 @@ function stop(child: ChildProcess): Promise<void> {
   });
 }
 
-interface ColdRun { total: number; listening: number; firstByte: number; paint: number }
+interface ColdRun { total: number; listening: number; firstByte: number; paint: number; cpu: number | null }
+
+/** CPU time (user + system, ms) a process has used so far, from /proc; null where there is none. */
+function cpuMs(pid: number | undefined): number | null {
+  try {
+    // Fields 14 and 15 of /proc/PID/stat, after the command name in parentheses; in clock ticks (100 a second on Linux).
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').replace(/^.*\) /s, '').split(' ');
+    return (Number(fields[11]) + Number(fields[12])) * 10;
+  } catch {
+    return null;
+  }
+}
 
 async function coldStart(context: BrowserContext, file: string): Promise<ColdRun> {
   const page = await context.newPage();
@@ -79,12 +91,13 @@ async function coldStart(context: BrowserContext, file: string): Promise<ColdRun
     const t1 = Date.now();
     await page.goto(address, { waitUntil: 'commit' });
     const at = await painted(page);
+    const cpu = cpuMs(child.pid);
     // The page's own clock: when it asked for the document and when its first byte came.
     const nav = await page.evaluate(() => {
       const n = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
       return { request: performance.timeOrigin + n.requestStart, firstByte: performance.timeOrigin + n.responseStart };
     });
-    return { total: at - t0, listening: t1 - t0, firstByte: nav.firstByte - nav.request, paint: at - nav.firstByte };
+    return { total: at - t0, listening: t1 - t0, firstByte: nav.firstByte - nav.request, paint: at - nav.firstByte, cpu };
   } finally {
     await page.close();
     await stop(child);
@@ -113,6 +126,9 @@ export async function run(): Promise<string[]> {
     const total = median(cold.map((c) => c.total));
     lines.push(`serve-start: cold \`vaultbook serve\` process → sheet painted median ${s(total)} over ${COLD_RUNS} starts (target ≤ 2 s: ${total <= 2000 ? 'met' : 'NOT met'}; load ${load} before, ${loadavg()[0]!.toFixed(2)} after)`);
     lines.push(`serve-start:   phases (medians): spawn → listening ${s(median(cold.map((c) => c.listening)))}, page request → first byte ${s(median(cold.map((c) => c.firstByte)))}, first byte → sheet painted ${s(median(cold.map((c) => c.paint)))}; all starts ${cold.map((c) => (c.total / 1000).toFixed(2)).join(', ')} s`);
+    const cpu = cold.map((c) => c.cpu).filter((c): c is number => c !== null);
+    // Less sensitive to other processes than the wall time: what the serve process itself spent by the paint.
+    if (cpu.length) lines.push(`serve-start:   CPU time of the serve process by the paint (user + system, median): ${s(median(cpu))}`);
 
     for (const site of ['built', 'dev'] as const) {
       const times: number[] = [];
