@@ -44,5 +44,9 @@ if (!main) {
   register();
   ({ main } = await import('./cli.ts'));
 }
+// The cache is written once: when a command that keeps running (serve) says it has started, or at the end.
+let saved = false;
+const saveOnce = () => { if (!saved) { saved = true; saveCodeCache(); } };
+process.once('vaultbook:started', saveOnce);
 process.exitCode = await main(argv);
-saveCodeCache();
+saveOnce();

@@ -16,10 +16,13 @@ const panelEl = document.getElementById('lv-review')!;
 const statusEl = document.getElementById('lv-status')!;
 const fileEl = document.getElementById('lv-file')!;
 
-const style = document.createElement('style');
-style.id = 'lv-sheet-css';
-style.textContent = SHEET_CSS;
-document.head.prepend(style);
+// The built page's server writes the same style sheet into the page with its first paint.
+if (!document.getElementById('lv-sheet-css')) {
+  const style = document.createElement('style');
+  style.id = 'lv-sheet-css';
+  style.textContent = SHEET_CSS;
+  document.head.prepend(style);
+}
 
 const sheet = new LiveSheet(sheetEl, (el) => el.querySelector('input.lv-edit') !== null);
 let loaded: DocPayload = { text: '', version: '', file: '' };
@@ -243,12 +246,14 @@ declare global {
 
 /**
  * First paint: the built page's server renders the sheet when it starts; it is shown at once, marked
- * as waiting (not editable yet), until the live sheet, evaluated here, takes its place.
+ * as waiting (not editable yet), until the live sheet, evaluated here, takes its place. The server
+ * writes it into the page itself; /__sheet is asked only when it did not.
  */
 function paintFirst(): void {
   if (import.meta.hot) return; // the development server has no /__sheet
   document.body.classList.add('lv-waiting');
   showStatus('computing the sheet…');
+  if (sheetEl.firstElementChild) return;
   void fetch('/__sheet', { cache: 'no-store' }).then((r) => (r.ok ? r.json() as Promise<{ html: string }> : null)).then((first) => {
     if (first && document.body.classList.contains('lv-waiting')) {
       sheetEl.innerHTML = first.html;

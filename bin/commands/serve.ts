@@ -41,6 +41,8 @@ export async function serveCommand(args: string[], out: (s: string) => void, err
     return 2;
   }
   out(`vaultbook serve: ${file} at ${server.url}  (127.0.0.1 only; Ctrl-C stops)`);
+  // The launcher (bin/vaultbook.js) writes the command's code cache then, holding what a start runs.
+  void server.rendered.then(() => (process as NodeJS.EventEmitter).emit('vaultbook:started'));
   await untilStopped();
   await server.close();
   return 0;

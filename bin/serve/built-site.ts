@@ -11,6 +11,12 @@
  * by exact path; `/__events` is a server-sent event stream that tells the page
  * when the document changed on disk (the development server's websocket does
  * that otherwise).
+ *
+ * The page itself (`/`) is sent in two parts: at once, everything before the
+ * sheet (so the browser fetches the script and styles while the server is still
+ * rendering), then the server-rendered sheet (first-paint.ts) written into
+ * #lv-sheet, and the rest. The browser paints the sheet as soon as it arrives,
+ * without waiting for the page's script.
  */
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
@@ -86,6 +92,33 @@ export interface BuiltSite {
 }
 
 /**
+ * The built index.html cut where the server writes the sheet (inside #lv-sheet), with the sheet's
+ * style sheet in the head (where the page would add it) and the body marked as waiting for the page's
+ * own evaluation, as the page marks it itself.
+ */
+export function splitPage(html: string, css: string): { head: string; tail: string } | null {
+  const sheet = /<main id="lv-sheet"[^>]*>/.exec(html);
+  const head = /<head>/.exec(html);
+  if (!sheet || !head || !/<body>/.test(html) || css.includes('</')) return null;
+  const at = sheet.index + sheet[0].length;
+  const before = html.slice(0, at)
+    .replace('<body>', '<body class="lv-waiting">')
+    .replace(/<head>\n?/, (h) => `${h}  <style id="lv-sheet-css">${css}</style>\n`);
+  return { head: before, tail: html.slice(at) };
+}
+
+/**
+ * May this sheet be written into the page's HTML? It is the renderer's sheet (prose cleaned of scripts),
+ * but written into the page, unlike the page's own innerHTML, a <script> would run and a closing tag of
+ * the page's frame would break out of #lv-sheet: such a sheet goes by /__sheet instead.
+ */
+export function inlinable(html: string): boolean {
+  const count = (re: RegExp) => html.match(re)?.length ?? 0;
+  return html.startsWith('<article') && !/<\/?(?:script|body|html|head|noscript|template|plaintext|xmp|iframe|frameset)\b/i.test(html)
+    && count(/<main\b/gi) === count(/<\/main\b/gi); // the sheet's own <main> is closed inside it
+}
+
+/**
  * Serves a built page.
  * @param dir from buildSite
  * @param first the server-rendered sheet, served at /__sheet for the page's first paint
@@ -95,6 +128,7 @@ export function serveBuiltSite(dir: string, first?: FirstPaint): BuiltSite {
   for (const file of listFiles(dir)) files.set(`/${relative(dir, file).split(sep).join('/')}`, file);
   files.set('/', join(dir, 'index.html'));
   const streams = new Set<ServerResponse>();
+  const page = first ? splitPage(readFileSync(join(dir, 'index.html'), 'utf8'), first.css) : null;
   return {
     handle(req, res) {
       const url = req.url ?? '/';
@@ -116,6 +150,13 @@ export function serveBuiltSite(dir: string, first?: FirstPaint): BuiltSite {
           res.writeHead(500, { 'Content-Type': 'text/plain; charset=utf-8' });
           res.end(`cannot render the sheet: ${e.message}`);
         });
+        return true;
+      }
+      if ((path === '/' || path === '/index.html') && page && req.method === 'GET') {
+        res.writeHead(200, { 'Content-Type': TYPES['.html']!, 'Cache-Control': 'no-store', 'X-Content-Type-Options': 'nosniff' });
+        res.write(page.head);
+        // Without a sheet (it could not be rendered, or is not one to write into a page) the page asks /__sheet itself.
+        first!.get().then(({ html }) => res.end((inlinable(html) ? html : '') + page.tail), () => res.end(page.tail));
         return true;
       }
       const file = files.get(path);

@@ -1,18 +1,20 @@
 /**
- * startServer: the live sheet's server. Vite serves the app (site/) and the
- * engine, which run in the browser; this server adds the document itself:
+ * startServer: the live sheet's server. The app (site/) and the engine run in the browser: by default
+ * from the page built once and reused (built-site.ts), served by a plain Node server without loading
+ * Vite at all; with `site: 'dev'` (or when the page cannot be built) from Vite's development server.
+ * This server adds the document itself:
  *
  * - GET  /__doc           → {text, version, file} of the one document it was started with;
  * - POST /__write         → writes changed input values into that document (and nowhere else);
  * - GET  /__asset/<path>  → an image beside the document;
- * - a `vaultbook:doc` event on Vite's websocket whenever the file changes on disk.
+ * - a `doc` event on /__events (built page) or `vaultbook:doc` on Vite's websocket whenever the file changes on disk.
  *
- * It listens on 127.0.0.1 only, and a guard in front of Vite refuses every
- * path outside the allow list (see guard.ts).
+ * It listens on 127.0.0.1 only, and a guard in front of everything else refuses every
+ * path outside the allow list (see guard.ts); the built page serves nothing but its own files.
  */
 import { realpathSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import type { IncomingMessage, ServerResponse } from 'node:http';
+import { createServer as createHttpServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Plugin, ViteDevServer } from 'vite';
 import { siteConfig, REPO_ROOT } from './site-config.js';
@@ -23,7 +25,7 @@ import { replaceIfUnchanged, removeStaleTemps } from './atomic.js';
 import { watchDocument, type DocumentWatch } from './watch.js';
 import { versionOf } from './version.js';
 import { buildSite, serveBuiltSite, type BuiltSite } from './built-site.js';
-import { firstPaint } from './first-paint.js';
+import { firstPaint, type FirstPaint } from './first-paint.js';
 import { DocumentError, decodeDocument, readDocumentBytesSync } from '../document.js';
 import { sharedArchive } from '../git.js';
 
@@ -50,7 +52,12 @@ export interface ServeHandle {
   port: number;
   /** The document's real path. */
   file: string;
-  vite: ViteDevServer;
+  /** The listening server (its address is the one the page is served on). */
+  httpServer: Server;
+  /** The development server, only when the page comes from it (`site: 'dev'`, or the page could not be built). */
+  vite: ViteDevServer | null;
+  /** Settles once the sheet's first paint has been rendered (or failed); at once for the development server. */
+  rendered: Promise<void>;
   close(): Promise<void>;
 }
 
@@ -99,6 +106,30 @@ function roundTrips(bytes: Buffer, text: string): boolean {
 }
 
 /**
+ * Listens on 127.0.0.1, from `port` upwards while a port is taken (unless `strict`), as Vite's own server does.
+ * @returns the port listened on
+ */
+function listenLocal(server: Server, port: number, strict: boolean): Promise<number> {
+  return new Promise((ok, fail) => {
+    const attempt = (p: number) => {
+      const onError = (e: NodeJS.ErrnoException) => {
+        server.off('listening', onListening);
+        if (e.code === 'EADDRINUSE' && !strict && p !== 0 && p < 65535) attempt(p + 1);
+        else fail(e);
+      };
+      const onListening = () => {
+        server.off('error', onError);
+        ok((server.address() as AddressInfo).port);
+      };
+      server.once('error', onError);
+      server.once('listening', onListening);
+      server.listen(p, '127.0.0.1');
+    };
+    attempt(port);
+  });
+}
+
+/**
  * Starts the live sheet for one document.
  * @example const s = await startServer({file: 'calc.md', port: 0}); console.log(s.url); … await s.close()
  */
@@ -133,10 +164,10 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   let watcher: DocumentWatch | null = null;
   // The page from a built bundle when it can be built; else from the development server, as before.
   let site: BuiltSite | null = null;
+  let first: FirstPaint | null = null;
   if ((options.site ?? 'built') === 'built') {
     try {
-      const first = firstPaint(file, shownName);
-      void first.get().catch(() => undefined); // rendered while the browser connects
+      first = firstPaint(file, shownName);
       site = serveBuiltSite((await buildSite()).dir, first);
     } catch (e) {
       console.warn(`vaultbook serve: could not build the page (${(e as Error).message}); serving it from the development server`);
@@ -198,92 +229,116 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
     return sendJson(res, 200, { ok: true, version, changed: result.changed, notes: result.notes, text: result.text, archive: await archive(bytes) });
   };
 
-  const plugin: Plugin = {
-    name: 'vaultbook-serve',
-    configureServer(server) {
-      // Registered directly (not returned), so it runs before every Vite middleware.
-      server.middlewares.use((req, res, next) => {
-        const url = req.url ?? '/';
-        if (!hostOk(req.headers.host)) {
-          res.writeHead(403, { 'Content-Type': 'text/plain' }).end('refused: unexpected Host header');
-          return;
-        }
-        if (!fromThisPage(req)) {
-          res.writeHead(403, { 'Content-Type': 'text/plain', Vary: 'Origin, Sec-Fetch-Site' }).end('refused: only the live sheet itself may read from this server');
-          return;
-        }
-        if (site?.handle(req, res)) return;
-        const verdict = guardRequest(url, policy);
-        if (!verdict.ok) {
-          res.writeHead(verdict.status, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${verdict.reason}`);
-          return;
-        }
-        if (verdict.kind === 'app') return next();
-        if (verdict.kind === 'asset') {
-          const type = ASSET_TYPES[verdict.file.slice(verdict.file.lastIndexOf('.')).toLowerCase()]!;
-          let image: Buffer;
-          try {
-            image = readDocumentBytesSync(verdict.file);
-          } catch (e) {
-            res.writeHead(404, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${e instanceof DocumentError ? e.reason : 'cannot read the file'}`);
-            return;
-          }
-          res.writeHead(200, { 'Content-Type': type, 'X-Content-Type-Options': 'nosniff', 'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'", 'Cache-Control': 'no-store' });
-          res.end(image);
-          return;
-        }
-        if (verdict.name === 'doc') {
-          if (req.method !== 'GET' && req.method !== 'HEAD') return sendJson(res, 405, { ok: false, message: 'use GET' });
-          let d;
-          try {
-            d = readDoc();
-          } catch (e) {
-            if (e instanceof DocumentError) return sendJson(res, 422, { ok: false, message: e.message });
-            throw e;
-          }
-          // The same archive identification `vaultbook render` prints in the sheet's footer.
-          void archive(d.bytes).then((info) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive: info, ...(options.case !== undefined ? { case: options.case } : {}) }));
-          return;
-        }
-        write(req, res).catch((e) => sendJson(res, 500, { ok: false, message: `writing ${shownName} failed: ${(e as Error).message}; the file on disk is unchanged` }));
-      });
-    },
+  /** Every request passes here first: the Host and origin checks, the built page, then the guard. */
+  const handle = (req: IncomingMessage, res: ServerResponse, next: () => void): void => {
+    const url = req.url ?? '/';
+    if (!hostOk(req.headers.host)) {
+      res.writeHead(403, { 'Content-Type': 'text/plain' }).end('refused: unexpected Host header');
+      return;
+    }
+    if (!fromThisPage(req)) {
+      res.writeHead(403, { 'Content-Type': 'text/plain', Vary: 'Origin, Sec-Fetch-Site' }).end('refused: only the live sheet itself may read from this server');
+      return;
+    }
+    if (site?.handle(req, res)) return;
+    const verdict = guardRequest(url, policy);
+    if (!verdict.ok) {
+      res.writeHead(verdict.status, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${verdict.reason}`);
+      return;
+    }
+    if (verdict.kind === 'app') return next();
+    if (verdict.kind === 'asset') {
+      const type = ASSET_TYPES[verdict.file.slice(verdict.file.lastIndexOf('.')).toLowerCase()]!;
+      let image: Buffer;
+      try {
+        image = readDocumentBytesSync(verdict.file);
+      } catch (e) {
+        res.writeHead(404, { 'Content-Type': 'text/plain; charset=utf-8' }).end(`refused: ${e instanceof DocumentError ? e.reason : 'cannot read the file'}`);
+        return;
+      }
+      res.writeHead(200, { 'Content-Type': type, 'X-Content-Type-Options': 'nosniff', 'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'", 'Cache-Control': 'no-store' });
+      res.end(image);
+      return;
+    }
+    if (verdict.name === 'doc') {
+      if (req.method !== 'GET' && req.method !== 'HEAD') return sendJson(res, 405, { ok: false, message: 'use GET' });
+      let d;
+      try {
+        d = readDoc();
+      } catch (e) {
+        if (e instanceof DocumentError) return sendJson(res, 422, { ok: false, message: e.message });
+        throw e;
+      }
+      // The same archive identification `vaultbook render` prints in the sheet's footer.
+      void archive(d.bytes).then((info) => sendJson(res, 200, { text: d.text, version: d.version, file: shownName, name: basename(file), archive: info, ...(options.case !== undefined ? { case: options.case } : {}) }));
+      return;
+    }
+    write(req, res).catch((e) => sendJson(res, 500, { ok: false, message: `writing ${shownName} failed: ${(e as Error).message}; the file on disk is unchanged` }));
   };
 
-  const base = siteConfig();
-  // Loaded only when serving: the command bundle keeps vite outside and every other command starts without it.
-  const { createServer } = await import('vite');
-  const vite = await createServer({
-    ...base,
-    configFile: false,
-    logLevel: options.logLevel ?? 'warn',
-    plugins: [...(base.plugins ?? []), plugin],
-    server: {
-      ...base.server,
-      host: '127.0.0.1',
-      // No CORS headers at all: the page reads only from its own origin, which needs none.
-      cors: false,
-      port: options.port ?? 4780,
-      strictPort: options.strictPort ?? false,
-      open: false,
-    },
-  });
-  await vite.listen();
-  port = (vite.httpServer!.address() as AddressInfo).port;
+  let vite: ViteDevServer | null = null;
+  let httpServer: Server;
+  let rendered = Promise.resolve();
+  if (site) {
+    // The built page: a plain server. Anything the guard lets through that is not one of the page's
+    // own files (the sources Vite would serve) is not served at all.
+    httpServer = createHttpServer((req, res) => handle(req, res, () => {
+      res.writeHead(404, { 'Content-Type': 'text/plain; charset=utf-8' }).end('refused: not part of the built page');
+    }));
+    port = await listenLocal(httpServer, options.port ?? 4780, options.strictPort ?? false);
+    // Rendered now that the address is known: a browser connecting meanwhile gets the page's head at once.
+    rendered = first!.get().then(() => undefined, () => undefined);
+  } else {
+    const plugin: Plugin = {
+      name: 'vaultbook-serve',
+      configureServer(server) {
+        // Registered directly (not returned), so it runs before every Vite middleware.
+        server.middlewares.use(handle);
+      },
+    };
+    const base = siteConfig();
+    // Loaded only for the development server: the built page, and every other command, start without it.
+    const { createServer } = await import('vite');
+    vite = await createServer({
+      ...base,
+      configFile: false,
+      logLevel: options.logLevel ?? 'warn',
+      plugins: [...(base.plugins ?? []), plugin],
+      server: {
+        ...base.server,
+        host: '127.0.0.1',
+        // No CORS headers at all: the page reads only from its own origin, which needs none.
+        cors: false,
+        port: options.port ?? 4780,
+        strictPort: options.strictPort ?? false,
+        open: false,
+      },
+    });
+    await vite.listen();
+    httpServer = vite.httpServer as Server;
+    port = (httpServer.address() as AddressInfo).port;
+  }
   const initial = readDoc();
   watcher = watchDocument(file, initial.version, (_bytes, version) => {
-    vite.ws.send({ type: 'custom', event: 'vaultbook:doc', data: { version } });
+    vite?.ws.send({ type: 'custom', event: 'vaultbook:doc', data: { version } });
     site?.notify(version);
   }, options.watch);
   return {
     url: `http://127.0.0.1:${port}/`,
     port,
     file,
+    httpServer,
     vite,
+    rendered,
     close: async () => {
       watcher?.close();
       site?.close();
-      await vite.close();
+      if (vite) await vite.close();
+      else {
+        const closed = new Promise<void>((ok) => httpServer.close(() => ok()));
+        httpServer.closeAllConnections();
+        await closed;
+      }
     },
   };
 }

@@ -3,7 +3,8 @@ import { mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:
 import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { buildSite, sourceKey } from '../../bin/serve/built-site.js';
+import { buildSite, inlinable, sourceKey, splitPage } from '../../bin/serve/built-site.js';
+import { pointAssets } from '../../bin/serve/first-paint.js';
 import { startServer, type ServeHandle } from '../../bin/serve/server.js';
 import { FIXTURES, rawRequest, tempCopy } from './helpers.js';
 
@@ -49,6 +50,15 @@ describe('serve from the built page', () => {
     expect([js.status, js.headers['content-type']]).toEqual([200, 'text/javascript; charset=utf-8']);
   });
 
+  it('GET / carries the sheet rendered by the server inside #lv-sheet, with its style sheet, before the page\'s script runs', async () => {
+    const page = (await rawRequest(server.port, '/')).body;
+    const sheet = JSON.parse((await rawRequest(server.port, '/__sheet')).body) as { html: string };
+    expect(page).toContain(`<main id="lv-sheet" class="lv-page" aria-label="calc sheet">${sheet.html}</main>`);
+    expect(page).toContain('<body class="lv-waiting">');
+    expect(page.match(/<style id="lv-sheet-css">/g)?.length).toBe(1);
+    expect(page.indexOf('<style id="lv-sheet-css">')).toBeLessThan(page.indexOf('</head>'));
+  });
+
   it('GET /__sheet is the sheet rendered by the server, for the page to paint at once', async () => {
     const r = await rawRequest(server.port, '/__sheet');
     expect(r.status).toBe(200);
@@ -74,5 +84,32 @@ describe('serve from the built page', () => {
       setTimeout(() => fail(new Error('no event within 5 s')), 5000);
     });
     expect(got).toMatch(/event: doc\ndata: \{"version":"[0-9a-f]+"\}/);
+  });
+});
+
+describe('the first paint', () => {
+  it('pointAssets points relative image sources at /__asset/ and leaves absolute, data and fragment ones', () => {
+    // The rule of site/main.ts pointAssets, restated: a src without a scheme, a leading / or # is a file beside the document.
+    expect(pointAssets('<p><img alt="a" src="fig.png"><img src="./sub/b.jpg" alt="b"></p>')).toBe('<p><img alt="a" src="/__asset/fig.png"><img src="/__asset/sub/b.jpg" alt="b"></p>');
+    const kept = '<img src="/__asset/x.png"><img src="data:image/png;base64,AA"><img src="https://example.org/x.png"><img src="#x">';
+    expect(pointAssets(kept)).toBe(kept);
+    expect(pointAssets('<p>src="fig.png" in text</p>')).toBe('<p>src="fig.png" in text</p>');
+  });
+
+  it('inlinable: the renderer\'s sheet is written into the page; one holding a script or a frame-closing tag is not', () => {
+    expect(inlinable('<article class="vb-sheet"><p>L = 4.8 m</p><style data-part="page-style">@page{}</style><main class="vb-main"><p>x</p></main></article>')).toBe(true);
+    expect(inlinable('<article class="vb-sheet"><script>alert(1)</script></article>')).toBe(false);
+    expect(inlinable('<article class="vb-sheet"><SCRIPT src=x></SCRIPT></article>')).toBe(false);
+    expect(inlinable('<article class="vb-sheet"></main><p>outside</p></article>')).toBe(false);
+    expect(inlinable('<p>not a sheet</p>')).toBe(false);
+  });
+
+  it('splitPage cuts the page inside #lv-sheet and refuses a page without it', () => {
+    const html = '<!doctype html>\n<html>\n<head>\n  <title>t</title>\n</head>\n<body>\n  <main id="lv-sheet" class="lv-page"></main>\n</body>\n</html>\n';
+    const cut = splitPage(html, '.a{}')!;
+    expect(cut.head).toBe('<!doctype html>\n<html>\n<head>\n  <style id="lv-sheet-css">.a{}</style>\n  <title>t</title>\n</head>\n<body class="lv-waiting">\n  <main id="lv-sheet" class="lv-page">');
+    expect(cut.tail).toBe('</main>\n</body>\n</html>\n');
+    expect(splitPage(html.replace('id="lv-sheet"', 'id="other"'), '.a{}')).toBeNull();
+    expect(splitPage(html, '.a{} </style><script>')).toBeNull();
   });
 });

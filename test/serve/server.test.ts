@@ -8,35 +8,39 @@ import { FIXTURES, REPO, rawRequest, tempCopy } from './helpers.js';
 
 const SECRET = 'TOP-SECRET-MARKER-4f1c';
 
-let server: ServeHandle;
-let tmp: ReturnType<typeof tempCopy>;
+// Both ways of serving the page: the built page (a plain server, the default) and Vite's development
+// server behind the same guard. Every refusal below must hold for each.
+describe.each(['built', 'dev'] as const)('startServer (%s page)', (site) => {
+  let server: ServeHandle;
+  let tmp: ReturnType<typeof tempCopy>;
 
-beforeAll(async () => {
-  // calc.md sits in <tmp>/doc; a secret sits beside that folder and is linked from inside it.
-  tmp = tempCopy(join(FIXTURES, 'barrel.md'), 'seed.md');
-  mkdirSync(join(tmp.dir, 'doc'));
-  writeFileSync(join(tmp.dir, 'doc', 'calc.md'), readFileSync(tmp.file));
-  writeFileSync(join(tmp.dir, 'secret.png'), SECRET);
-  writeFileSync(join(tmp.dir, 'secret.txt'), SECRET);
-  writeFileSync(join(tmp.dir, 'doc', 'figure.png'), 'PNGDATA');
-  writeFileSync(join(tmp.dir, 'doc', '.hidden.png'), SECRET);
-  symlinkSync(join(tmp.dir, 'secret.png'), join(tmp.dir, 'doc', 'leak.png'));
-  symlinkSync(tmp.dir, join(tmp.dir, 'doc', 'up'));
-  server = await startServer({ file: join(tmp.dir, 'doc', 'calc.md'), port: 0, logLevel: 'silent' });
-});
+  beforeAll(async () => {
+    // calc.md sits in <tmp>/doc; a secret sits beside that folder and is linked from inside it.
+    tmp = tempCopy(join(FIXTURES, 'barrel.md'), 'seed.md');
+    mkdirSync(join(tmp.dir, 'doc'));
+    writeFileSync(join(tmp.dir, 'doc', 'calc.md'), readFileSync(tmp.file));
+    writeFileSync(join(tmp.dir, 'secret.png'), SECRET);
+    writeFileSync(join(tmp.dir, 'secret.txt'), SECRET);
+    writeFileSync(join(tmp.dir, 'doc', 'figure.png'), 'PNGDATA');
+    writeFileSync(join(tmp.dir, 'doc', '.hidden.png'), SECRET);
+    symlinkSync(join(tmp.dir, 'secret.png'), join(tmp.dir, 'doc', 'leak.png'));
+    symlinkSync(tmp.dir, join(tmp.dir, 'doc', 'up'));
+    server = await startServer({ file: join(tmp.dir, 'doc', 'calc.md'), port: 0, logLevel: 'silent', site });
+  }, 120_000);
 
-afterAll(async () => {
-  await server?.close();
-  tmp?.cleanup();
-});
+  afterAll(async () => {
+    await server?.close();
+    tmp?.cleanup();
+  });
 
-describe('startServer', () => {
   it('startServer listens on 127.0.0.1 only: the listening socket\'s own address, and a loopback connection answers', async () => {
     // Read from the socket itself: no traffic to any other address is needed to know where it listens.
-    const address = server.vite.httpServer!.address();
+    const address = server.httpServer.address();
     expect(address).toMatchObject({ address: '127.0.0.1', family: 'IPv4', port: server.port });
     expect(server.url).toBe(`http://127.0.0.1:${server.port}/`);
     expect((await rawRequest(server.port, '/__doc')).status).toBe(200);
+    // Vite runs only for the development server.
+    expect(server.vite === null).toBe(site === 'built');
   });
 
   it('GET /__doc gives the text, the version of its bytes and the file name', async () => {
@@ -48,10 +52,12 @@ describe('startServer', () => {
     expect(r.headers['cache-control']).toBe('no-store');
   });
 
-  it('serves the app, the engine through /@fs/ and an image beside the document', async () => {
+  it(site === 'dev' ? 'serves the app, the engine through /@fs/ and an image beside the document' : 'serves the page and an image beside the document, and no source file', async () => {
     expect((await rawRequest(server.port, '/')).status).toBe(200);
-    expect((await rawRequest(server.port, '/main.ts')).status).toBe(200);
-    expect((await rawRequest(server.port, `/@fs${REPO}/engine/index.ts`)).status).toBe(200);
+    // The built page needs none of the sources the development server compiles on request.
+    const sources = site === 'dev' ? 200 : 404;
+    expect((await rawRequest(server.port, '/main.ts')).status).toBe(sources);
+    expect((await rawRequest(server.port, `/@fs${REPO}/engine/index.ts`)).status).toBe(sources);
     const img = await rawRequest(server.port, '/__asset/figure.png');
     expect([img.status, img.body, img.headers['content-type']]).toEqual([200, 'PNGDATA', 'image/png']);
   });
