@@ -6,6 +6,7 @@
  * The server starts this render as soon as it listens.
  */
 import { compile, startSession } from '../../engine/index.js';
+import { findCase } from '../../engine/cases/index.js';
 import { renderSheet, SHEET_CSS } from '../../engine/render/index.js';
 import { archiveInfo } from '../commands/render.js';
 import { versionOf } from './version.js';
@@ -30,13 +31,24 @@ export function pointAssets(html: string): string {
 
 /**
  * @param file the document's real path
+ * @param caseName `serve --case NAME`: the first paint shows that case's values, as the live sheet will
+ *   (a name the document does not have is painted as written; the live sheet reports it)
  * @example const first = firstPaint(file); const {html} = await first.get();
  */
-export function firstPaint(file: string, shownName: string): FirstPaint {
+export function firstPaint(file: string, shownName: string, caseName?: string): FirstPaint {
   let last: { version: string; result: Promise<{ version: string; html: string }> } | null = null;
   const render = async (bytes: Buffer, version: string) => {
-    const doc = compile(bytes.toString('utf8'), { file: shownName });
-    const session = startSession(doc);
+    const text = bytes.toString('utf8');
+    let doc = compile(text, { file: shownName });
+    let session = startSession(doc);
+    if (caseName !== undefined) {
+      const shown = await findCase(doc, session, caseName);
+      if ('case' in shown) {
+        session.dispose();
+        doc = compile(text, { file: shownName, overrides: shown.case.overrides });
+        session = startSession(doc);
+      }
+    }
     const [states, archive] = await Promise.all([session.settle(), archiveInfo(file, bytes)]);
     const html = renderSheet({ doc, states, warnings: session.warnings, options: { standalone: false, archive } });
     session.dispose();

@@ -167,7 +167,7 @@ export async function startServer(options: ServeOptions): Promise<ServeHandle> {
   let first: FirstPaint | null = null;
   if ((options.site ?? 'built') === 'built') {
     try {
-      first = firstPaint(file, shownName);
+      first = firstPaint(file, shownName, options.case);
       site = serveBuiltSite((await buildSite()).dir, first);
     } catch (e) {
       console.warn(`vaultbook serve: could not build the page (${(e as Error).message}); serving it from the development server`);
