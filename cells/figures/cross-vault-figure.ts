@@ -8,7 +8,8 @@ import type { CrossVault } from '../vault/groin/cross-vault.js';
 import { webU, webZ, type WebArc } from '../vault/groin/cross-webs.js';
 import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { fitFrame } from './frame.js';
-import { arrow, dimension, kilonewtons, label, metres, scaleBar } from './marks.js';
+import { arrow, dimension, label, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 
 const RED = '#a3162b', BLUE = '#2c4a6b';
@@ -28,7 +29,8 @@ function webOutline(w: WebArc, d: number): P[] {
  * @returns an SVG string, recorded as a figure
  * @example cross_vault_figure(c)
  */
-export function crossVaultFigure(c: CrossVault): string {
+export function crossVaultFigure(c: CrossVault, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const { x: wx, y: wy, slices } = c.model;
   const ex = wx.e, ey = wy.e, reach = Math.max(ex, ey) * 0.5;
   const planBox = { left: 8, top: 14, width: 72, height: 72 };
@@ -57,8 +59,8 @@ export function crossVaultFigure(c: CrossVault): string {
     body += el('rect', { x: q.x - 1.3, y: q.y - 1.3, width: 2.6, height: 2.6, fill: INK });
     body += arrow(q, { x: q.x + Math.sign(k.x) * len(Hx), y: q.y }, '', BLUE) + arrow(q, { x: q.x, y: q.y - Math.sign(k.y) * len(Hy) }, '', BLUE);
   }
-  body += dimension(pl({ x: -c.span_x / 2, y: -ey }), pl({ x: c.span_x / 2, y: -ey }), -4, `clear ${metres(c.span_x)} (x)`);
-  body += dimension(pl({ x: -ex, y: c.span_y / 2 }), pl({ x: -ex, y: -c.span_y / 2 }), -(reach * 0.8 * scale + 4), `clear ${metres(c.span_y)} (y)`);
+  body += dimension(pl({ x: -c.span_x / 2, y: -ey }), pl({ x: c.span_x / 2, y: -ey }), -4, `clear ${say.length(c.span_x)} (x)`);
+  body += dimension(pl({ x: -ex, y: c.span_y / 2 }), pl({ x: -ex, y: -c.span_y / 2 }), -(reach * 0.8 * scale + 4), `clear ${say.length(c.span_y)} (y)`);
   const views = [
     { w: wx, name: 'x', H: c.H_x_min, z: c.z_x_min, clear: c.span_x },
     { w: wy, name: 'y', H: c.H_y_min, z: c.z_y_min, clear: c.span_y },
@@ -68,7 +70,7 @@ export function crossVaultFigure(c: CrossVault): string {
     const ev = (p: P): P => ({ x: 90 + 38 + p.x * scale, y: base - p.y * scale });
     const w = view.w;
     const thrust = typeof view.H === 'number' && typeof view.z === 'number'
-      ? `H_${view.name},min = ${kilonewtons(view.H)} at z = ${metres(view.z)}${view.z < 0 ? ' (below the springing)' : ''}`
+      ? `H_${view.name},min = ${say.force(view.H)} at z = ${say.length(view.z)}${view.z < 0 ? ' (below the springing)' : ''}`
       : 'a slice holds no line of thrust';
     body += text(90, elevBox(k).top + 1, `across the ${view.name}-span (${w.shape}): ${thrust}`, { fill: typeof view.H === 'number' ? MUTED : RED, 'font-size': 2.2 });
     const outline = [...webOutline(w, w.h), ...webOutline(w, -w.h).reverse()];
@@ -82,14 +84,14 @@ export function crossVaultFigure(c: CrossVault): string {
     }
     const ground = ev({ x: 0, y: 0 }).y;
     body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
-    body += dimension(ev({ x: -view.clear / 2, y: 0 }), ev({ x: view.clear / 2, y: 0 }), -2.5, `clear ${metres(view.clear)}`);
+    body += dimension(ev({ x: -view.clear / 2, y: 0 }), ev({ x: view.clear / 2, y: 0 }), -2.5, `clear ${say.length(view.clear)}`);
     if (typeof view.H === 'number' && typeof view.z === 'number' && view.z >= 0) {
       const cpt = ev({ x: w.e, y: view.z });
       body += arrow(cpt, { x: cpt.x + len(view.H), y: cpt.y }, '', RED) + el('circle', { cx: cpt.x, cy: cpt.y, r: 0.8, fill: RED });
     }
   });
-  const facts = `solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? kilonewtons(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`;
+  const facts = `solid pocket to ${say.length(c.solid_level)} (needed ${say.length(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? say.force(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`;
   body += text(8, 97, facts, { fill: MUTED, 'font-size': 2.2 });
-  body += scaleBar(scale, { x: 8, y: 91 }, 30);
-  return markFigure(svgDocument(170, 100, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body));
+  body += scaleBar(scale, { x: 8, y: 91 }, 30, say.unit('length'), say.perSI('length'));
+  return markFigure(svgDocument(170, 100, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body), units, (u) => crossVaultFigure(c, u));
 }
