@@ -50,8 +50,10 @@ describe('section(ring, limit, loads) draws what was analysed', () => {
     expect(texts.some((t) => t.startsWith('gsf: loads as built'))).toBe(true);
   });
 
-  it('no two labels overlap', () => {
-    const boxes = labelBoxes(svg).filter((b) => !b.rotated);
+  // In US customary units the labels are longer ("t = 1.115 ft", "9.01 kip"): placed as well.
+  const usUnits = { sigfigs: 4, units: { length: 'ft', force: 'kip', 'force per length': 'kip/ft', pressure: 'psf', 'unit weight': 'pcf' } };
+  it.each([['SI', svg], ['US customary', section(ring, a, loads, usUnits)]])('no two labels overlap (%s units)', (_, drawn) => {
+    const boxes = labelBoxes(drawn).filter((b) => !b.rotated);
     expect(boxes.length).toBeGreaterThan(6);
     for (let i = 0; i < boxes.length; i++) {
       for (let j = i + 1; j < boxes.length; j++) {
