@@ -118,8 +118,10 @@ export function vaultPlan(v: GroinVault, units: FigureUnits = SI_FIGURE_UNITS): 
     body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
     body += dimension(ev({ x: -w.clear / 2, y: 0 }), ev({ x: w.clear / 2, y: 0 }), -2.5, `clear ${say.length(w.clear)}`);
     body += dimension(ev({ x: -w.e, y: 0 }), ev({ x: -w.e, y: w.z }), len(w.H) + 3, '');
-    // The crown height left of the centre line: the corner thrust is labelled on the right.
-    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), 3, `crown ${say.length(v.crown)}`);
+    // The crown height left of the centre line: the corner thrust is labelled on the right. Labelled with its
+    // number alone, as the dome figure labels its height: "crown 1.851 m" is longer than the line and ran onto
+    // the clear span's label.
+    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), 3, say.length(v.crown));
   });
   body += scaleBar(scale, { x: 8, y: 92 }, 40, say.unit('length'), say.perSI('length'));
   body += wrapLines('Clear spans between the supports; corners at the springing of the middle surface; thrust per corner.', WIDTH - 90 - 2, SMALL_TEXT)
