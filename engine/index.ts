@@ -130,7 +130,7 @@ export async function evaluateDocument(source: string, options: EvaluateOptions 
 }
 
 export { formatDiagnostic } from './diagnostic.js';
-export { formatValue, formatNumber, formatUtilization } from './values/format.js';
+export { formatValue, formatNumber, formatUtilization, documentUnitSystem, type UnitSystem } from './values/format.js';
 export { toJsonValue } from './values/json.js';
 export { expandCases, judgeCases } from './cases/index.js';
 export type { Session } from './runtime/bind.js';

@@ -5,6 +5,7 @@
 import type { CellKind, CellState, CheckResult, CompiledDocument } from './types.js';
 import type { Diagnostic } from './diagnostic.js';
 import { toJsonValue, type JsonValue } from './values/json.js';
+import { documentUnitSystem } from './values/format.js';
 
 export interface ValueEntry extends JsonValue {
   kind: CellKind;
@@ -63,6 +64,8 @@ export interface Summary {
 /** Collects a settled document into the JSON contract. */
 export function summarise(doc: CompiledDocument, states: Map<string, CellState>, warnings: Map<string, Diagnostic>): Summary {
   const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : 4;
+  // Results without units of their own are given in the document's system (kip, psf … for a calc in US units).
+  const units = documentUnitSystem(doc, states);
   const values: Record<string, ValueEntry> = {};
   const checks: CheckEntry[] = [];
   const diagnostics: Diagnostic[] = [...doc.diagnostics];
@@ -87,7 +90,7 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
     }
     if (!cell.name) continue;
     const json = state.status === 'ok'
-      ? toJsonValue(state.value, { sigfigs }, cell.displayUnit)
+      ? toJsonValue(state.value, { sigfigs, units }, cell.displayUnit)
       : { value: null, unit: null, text: state.status === 'blocked' ? state.note ?? `not computed because ${state.by} failed` : state.status === 'error' ? `error: ${state.diagnostic.message}` : 'pending' };
     values[cell.name] = {
       ...json, kind: cell.kind, line: cell.span.start.line,

@@ -8,6 +8,7 @@ import { enableEditing, markEditable } from './editor.js';
 import { changeBadge, compareToDocument, flipTone, inputChanges, renderReviewPanel, type PanelModel, type ResultChange } from './review.js';
 import { fetchDocument, onDocumentChanged, writeInputs, type DocPayload } from './doc-client.js';
 import { SHEET_CSS } from './sheet.js';
+import { documentUnitSystem } from '../engine/index.js';
 import { LiveCases } from './cases.js';
 import { LiveDrivers } from './drivers.js';
 
@@ -43,7 +44,7 @@ function showChange(id: string): void {
   const el = sheet.cellElement(id);
   if (!cell || !el || cell.kind === 'given') return;
   // Evaluating in a worker: the worker compares each result it sends; one it never sent is as loaded.
-  const change = sheet.worker && sheet.workerChange(id) !== undefined ? sheet.workerChange(id)! : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs());
+  const change = sheet.worker && sheet.workerChange(id) !== undefined ? sheet.workerChange(id)! : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs(), documentUnitSystem(sheet.doc, sheet.baseline));
   if (change) changes.set(id, change); else changes.delete(id);
   const html = changeBadge(change);
   let badge = el.querySelector<HTMLElement>(':scope > .lv-badge');

@@ -8,7 +8,7 @@
  */
 import type { Unit } from 'mathjs';
 import { formatNumber, formatUtilization, formatValue, toJsonValue } from '../engine/index.js';
-import type { Cell, CellState, CheckResult, CompiledDocument } from '../engine/index.js';
+import type { Cell, CellState, CheckResult, CompiledDocument, UnitSystem } from '../engine/index.js';
 
 /** A given input whose value differs from the document's. */
 export interface InputChange {
@@ -63,7 +63,7 @@ function percentText(diff: number, before: number): string | null {
 }
 
 /** The difference of two plain numbers or same-dimension quantities, or null when they cannot be compared. */
-function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined, before: unknown, after: unknown, sigfigs: number): Extract<ResultChange, { kind: 'quantity' }> | null | undefined {
+function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined, before: unknown, after: unknown, sigfigs: number, units: UnitSystem): Extract<ResultChange, { kind: 'quantity' }> | null | undefined {
   if (typeof before === 'number' && typeof after === 'number') {
     const diff = after - before;
     if (Math.abs(diff) <= SAME * Math.max(Math.abs(before), Math.abs(after))) return null;
@@ -78,11 +78,11 @@ function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined
   const diffSI = siB - siA;
   if (Math.abs(diffSI) <= SAME * Math.max(Math.abs(siA), Math.abs(siB))) return null;
   // Shown in the unit the sheet shows the result in.
-  const unit = toJsonValue(after, { sigfigs }, displayUnit).unit;
+  const unit = toJsonValue(after, { sigfigs, units }, displayUnit).unit;
   const diff = unit ? after.toNumber(unit) - before.toNumber(unit) : diffSI;
   const diffText = `${formatNumber(diff, sigfigs)}${unit ? ` ${unit}` : ''}`;
   return {
-    kind: 'quantity', id, before: formatValue(before, { sigfigs }, unit), after: formatValue(after, { sigfigs }, unit),
+    kind: 'quantity', id, before: formatValue(before, { sigfigs, units }, unit), after: formatValue(after, { sigfigs, units }, unit),
     delta: signedText(diffSI, diffText), percent: percentText(diffSI, siA), sign: diffSI > 0 ? 1 : -1,
   };
 }
@@ -94,10 +94,11 @@ function isUnit(v: unknown): v is Unit {
 /**
  * How one cell's current state differs from the document's.
  * @returns null when nothing changed (within round-off)
+ * @param units the document's system of units: results are compared in the unit the sheet shows them in
  * @example compareToDocument(cell, {status:'ok', value: 72 kN/m}, {status:'ok', value: 80 kN/m}, 4)
  *          // {kind:'quantity', delta:'+8 kN/m', percent:'+11.1 %', …}
  */
-export function compareToDocument(cell: Cell, before: CellState | undefined, after: CellState | undefined, sigfigs = 4): ResultChange | null {
+export function compareToDocument(cell: Cell, before: CellState | undefined, after: CellState | undefined, sigfigs = 4, units: UnitSystem = 'si'): ResultChange | null {
   if (cell.kind === 'check') {
     const x = before?.status === 'ok' && isCheck(before.value) ? before.value : null;
     const y = after?.status === 'ok' && isCheck(after.value) ? after.value : null;
@@ -111,15 +112,15 @@ export function compareToDocument(cell: Cell, before: CellState | undefined, aft
     if (before?.status === after?.status && (before?.status !== 'blocked' || (before as { by: string }).by === (after as { by: string }).by)) return null;
     return { kind: 'state', id: cell.id, before: stateWord(before), after: stateWord(after) };
   }
-  const q = quantityChange(cell.id, cell.displayUnit, before.value, after.value, sigfigs);
+  const q = quantityChange(cell.id, cell.displayUnit, before.value, after.value, sigfigs, units);
   if (q !== undefined) return q;
   // Figures redraw themselves; records are compared field by field; lists and text by how they read.
   if (typeof after.value === 'string' && after.value.startsWith('<svg')) return null;
   if (isRecord(before.value) && isRecord(after.value)) {
-    const fields = recordChanges(before.value, after.value, sigfigs);
+    const fields = recordChanges(before.value, after.value, sigfigs, units);
     return fields.length ? { kind: 'record', id: cell.id, fields } : null;
   }
-  const tb = formatValue(before.value, { sigfigs }), ta = formatValue(after.value, { sigfigs });
+  const tb = formatValue(before.value, { sigfigs, units }), ta = formatValue(after.value, { sigfigs, units });
   return tb === ta ? null : { kind: 'text', id: cell.id, before: tb, after: ta };
 }
 
@@ -128,18 +129,18 @@ function isRecord(v: unknown): v is Record<string, unknown> {
 }
 
 /** The fields of a record that moved, in the record's order (fields new or gone included). */
-function recordChanges(before: Record<string, unknown>, after: Record<string, unknown>, sigfigs: number): FieldChange[] {
+function recordChanges(before: Record<string, unknown>, after: Record<string, unknown>, sigfigs: number, units: UnitSystem): FieldChange[] {
   const names = [...new Set([...Object.keys(after), ...Object.keys(before)])];
   const out: FieldChange[] = [];
   for (const name of names) {
     const [b, a] = [before[name], after[name]];
-    const q = quantityChange(name, undefined, b, a, sigfigs);
+    const q = quantityChange(name, undefined, b, a, sigfigs, units);
     if (q === null) continue;
     if (q) {
       out.push({ name, before: q.before, after: q.after, delta: q.delta, percent: q.percent });
       continue;
     }
-    const tb = b === undefined ? 'absent' : formatValue(b, { sigfigs }), ta = a === undefined ? 'absent' : formatValue(a, { sigfigs });
+    const tb = b === undefined ? 'absent' : formatValue(b, { sigfigs, units }), ta = a === undefined ? 'absent' : formatValue(a, { sigfigs, units });
     if (tb !== ta) out.push({ name, before: tb, after: ta, delta: null, percent: null });
   }
   return out;

@@ -24,7 +24,7 @@ describe('public surface', () => {
 
   it('engine/index.ts exports the stage entry points and formatters', () => {
     expect(Object.keys(engine).sort()).toEqual([
-      'compile', 'evaluateDocument', 'expandCases', 'formatDiagnostic', 'formatNumber', 'formatUtilization', 'formatValue', 'judgeCases', 'startSession', 'toJsonValue',
+      'compile', 'documentUnitSystem', 'evaluateDocument', 'expandCases', 'formatDiagnostic', 'formatNumber', 'formatUtilization', 'formatValue', 'judgeCases', 'startSession', 'toJsonValue',
     ]);
   });
 

@@ -8,8 +8,9 @@ import type { CrossVault } from '../vault/groin/cross-vault.js';
 import { webU, webZ, type WebArc } from '../vault/groin/cross-webs.js';
 import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, type P } from './svg.js';
 import { fitFrame } from './frame.js';
-import { arrow, dimension, factLines, kilonewtons, metres, scaleBar } from './marks.js';
+import { arrow, dimension, factLines, scaleBar } from './marks.js';
 import { wrapLines } from './labels.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 
 const RED = '#a3162b', BLUE = '#2c4a6b';
@@ -32,7 +33,8 @@ function webOutline(w: WebArc, d: number): P[] {
  * @returns an SVG string, recorded as a figure
  * @example cross_vault_figure(c)
  */
-export function crossVaultFigure(c: CrossVault): string {
+export function crossVaultFigure(c: CrossVault, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const { x: wx, y: wy, slices } = c.model;
   const ex = wx.e, ey = wy.e, reach = Math.max(ex, ey) * 0.5;
   const views = [
@@ -40,7 +42,7 @@ export function crossVaultFigure(c: CrossVault): string {
     { w: wy, name: 'y', H: c.H_y_min, z: c.z_y_min, clear: c.span_y },
   ].map((view) => {
     const thrust = typeof view.H === 'number' && typeof view.z === 'number'
-      ? `H_${view.name},min = ${kilonewtons(view.H)} at z = ${metres(view.z)}${view.z < 0 ? ' (below the springing)' : ''}`
+      ? `H_${view.name},min = ${say.force(view.H)} at z = ${say.length(view.z)}`
       : 'a slice holds no line of thrust';
     // Each elevation's heading, wrapped to the elevation's width: the drawing stands under it, not through it.
     const title = wrapLines(`across the ${view.name}-span (${view.w.shape}): ${thrust}`, ELEV.width, SMALL_TEXT);
@@ -75,8 +77,8 @@ export function crossVaultFigure(c: CrossVault): string {
     body += el('rect', { x: q.x - 1.3, y: q.y - 1.3, width: 2.6, height: 2.6, fill: INK });
     body += arrow(q, { x: q.x + Math.sign(k.x) * len(Hx), y: q.y }, '', BLUE) + arrow(q, { x: q.x, y: q.y - Math.sign(k.y) * len(Hy) }, '', BLUE);
   }
-  body += dimension(pl({ x: -c.span_x / 2, y: -ey }), pl({ x: c.span_x / 2, y: -ey }), -4, `clear ${metres(c.span_x)} (x)`);
-  body += dimension(pl({ x: -ex, y: c.span_y / 2 }), pl({ x: -ex, y: -c.span_y / 2 }), -(reach * 0.8 * scale + 4), `clear ${metres(c.span_y)} (y)`);
+  body += dimension(pl({ x: -c.span_x / 2, y: -ey }), pl({ x: c.span_x / 2, y: -ey }), -4, `clear ${say.length(c.span_x)} (x)`);
+  body += dimension(pl({ x: -ex, y: c.span_y / 2 }), pl({ x: -ex, y: -c.span_y / 2 }), -(reach * 0.8 * scale + 4), `clear ${say.length(c.span_y)} (y)`);
   // Each elevation under its heading; y is where the next begins.
   let y = 6 + 3.6 * heading.length;
   for (const view of views) {
@@ -93,7 +95,7 @@ export function crossVaultFigure(c: CrossVault): string {
       for (const side of [-1, 1]) body += el('circle', { cx: ev({ x: side * s.x_min, y: s.z_min }).x, cy: ev({ x: side * s.x_min, y: s.z_min }).y, r: 0.45, fill: RED });
     }
     body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: base, x2: ev({ x: w.e + reach, y: 0 }).x, y2: base, stroke: INK, 'stroke-width': 0.3 });
-    body += dimension(ev({ x: -view.clear / 2, y: 0 }), ev({ x: view.clear / 2, y: 0 }), -2.5, `clear ${metres(view.clear)}`);
+    body += dimension(ev({ x: -view.clear / 2, y: 0 }), ev({ x: view.clear / 2, y: 0 }), -2.5, `clear ${say.length(view.clear)}`);
     if (typeof view.H === 'number' && typeof view.z === 'number' && view.z >= 0) {
       const cpt = ev({ x: w.e, y: view.z });
       body += arrow(cpt, { x: cpt.x + len(view.H), y: cpt.y }, '', RED) + el('circle', { cx: cpt.x, cy: cpt.y, r: 0.8, fill: RED });
@@ -103,9 +105,9 @@ export function crossVaultFigure(c: CrossVault): string {
   // Under the plan its scale bar; under everything the facts of the pocket and the corner, with room above them
   // for the last clear span's label to step off its line.
   const bar = planBox.top + planBox.height + 4;
-  body += scaleBar(scale, { x: 8, y: bar }, 30);
-  const facts = factLines([[`solid pocket to ${metres(c.solid_level)} (needed ${metres(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? kilonewtons(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`, { fill: MUTED }]],
+  body += scaleBar(scale, { x: 8, y: bar }, 30, say.unit('length'), say.perSI('length'));
+  const facts = factLines([[`solid pocket to ${say.length(c.solid_level)} (needed ${say.length(c.fill_needed)}); V = ${typeof c.V_corner === 'number' ? say.force(c.V_corner) : 'not available'} per corner; ${c.slices} slices per web`, { fill: MUTED }]],
     { x: 8, y: Math.max(bar + 10, y + 1.5) }, WIDTH - 16);
   body += facts.body;
-  return markFigure(svgDocument(WIDTH, facts.y, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body));
+  return markFigure(svgDocument(WIDTH, facts.y, 'Cross vault by slicing: slice planes in plan, both elevations with the slices\u2019 springings and the corner thrust', body), units, (u) => crossVaultFigure(c, u));
 }

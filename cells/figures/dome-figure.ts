@@ -10,7 +10,8 @@ import { membraneForces } from '../vault/dome/meridian.js';
 import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
 import { panel } from './axes.js';
-import { dimension, factLines, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { dimension, factLines, label, legendItem, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 
 const WIDTH = 170;
@@ -29,7 +30,8 @@ const STYLES = {
  * @returns an SVG string, recorded as a figure
  * @example dome_figure(d, dome_limit(d))
  */
-export function domeFigure(d: Dome, limit?: DomeLimit): string {
+export function domeFigure(d: Dome, limit?: DomeLimit, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const m = d.model, { a, c, t } = m;
   const zb = a * Math.cos(m.phiBase);
   const deg = (p: number) => (p * 180) / Math.PI;
@@ -74,38 +76,38 @@ export function domeFigure(d: Dome, limit?: DomeLimit): string {
   const rb = a * Math.sin(m.phiBase) - c;
   body += el('line', { x1: frame.x(-rb - t) - 4, y1: frame.y(0), x2: frame.x(rb + t) + 4, y2: frame.y(0), stroke: MUTED, 'stroke-width': 0.2, 'stroke-dasharray': '1 0.8' });
   const ri = (a - t / 2) * Math.sin(m.phiBase) - c;
-  body += dimension(at({ x: -ri, y: 0 }), at({ x: ri, y: 0 }), 4, `clear span ${metres(2 * ri)}`);
+  body += dimension(at({ x: -ri, y: 0 }), at({ x: ri, y: 0 }), 4, `clear span ${say.length(2 * ri)}`);
   const re = (a + t / 2) * Math.sin(m.phiBase) - c;
-  body += dimension(at({ x: re, y: 0 }), at({ x: re, y: d.height }), -4, `${metres(d.height)}`);
+  body += dimension(at({ x: re, y: 0 }), at({ x: re, y: d.height }), -4, `${say.length(d.height)}`);
   // The least-thrust line of a lune, drawn on both halves.
   const facts: Array<[string, string]> = [
-    [`middle surface: radius ${metres(a)}, half-angle ${deg(m.phiBase).toFixed(1)}°${m.open ? `, oculus at ${deg(m.phiTop).toFixed(1)}°` : ''}`, INK],
-    [typeof d.phi_hoop_tension === 'number' ? `hoop tension (membrane) from ${deg(d.phi_hoop_tension).toFixed(1)}° to the base, largest ${kilonewtons(d.N_theta_max, 'kN/m')}` : 'hoop in compression everywhere (membrane)', typeof d.phi_hoop_tension === 'number' ? RED : INK],
-    [`base: N_φ ${kilonewtons(d.N_phi_base, 'kN/m')}, thrust ${kilonewtons(d.H_base, 'kN/m')}, ring ${kilonewtons(d.ring_tension)}`, INK],
+    [`middle surface: radius ${say.length(a)}, half-angle ${deg(m.phiBase).toFixed(1)}°${m.open ? `, oculus at ${deg(m.phiTop).toFixed(1)}°` : ''}`, INK],
+    [typeof d.phi_hoop_tension === 'number' ? `hoop tension (membrane) from ${deg(d.phi_hoop_tension).toFixed(1)}° to the base, largest ${say.line(d.N_theta_max)}` : 'hoop in compression everywhere (membrane)', typeof d.phi_hoop_tension === 'number' ? RED : INK],
+    [`base: N_φ ${say.line(d.N_phi_base)}, thrust ${say.line(d.H_base)}, ring ${say.force(d.ring_tension)}`, INK],
   ];
   if (limit) {
     if (limit.safe && Array.isArray(limit.thrust_min)) {
       const pts = limit.thrust_min.map((p) => ({ x: p.r, y: p.z }));
       for (const side of [1, -1]) body += el('path', { d: pathData(pts.map((p) => at({ x: side * p.x, y: p.y }))), ...STYLES.thrust });
     }
-    facts.push([`lunes, no hoop tension: t_min ${typeof limit.t_min === 'number' ? metres(limit.t_min) : 'none fits'}, gsf ${Number.isFinite(limit.gsf) ? limit.gsf.toFixed(2) : '∞'}`, limit.gsf < 1 ? RED : INK]);
-    if (typeof limit.H_min === 'number') facts.push([`base thrust from ${kilonewtons(limit.H_min, 'kN/m')} to ${Number.isFinite(limit.H_max as number) ? kilonewtons(limit.H_max as number, 'kN/m') : '∞'}`, INK]);
+    facts.push([`lunes, no hoop tension: t_min ${typeof limit.t_min === 'number' ? say.length(limit.t_min) : 'none fits'}, gsf ${Number.isFinite(limit.gsf) ? limit.gsf.toFixed(2) : '∞'}`, limit.gsf < 1 ? RED : INK]);
+    if (typeof limit.H_min === 'number') facts.push([`base thrust from ${say.line(limit.H_min)} to ${Number.isFinite(limit.H_max as number) ? say.line(limit.H_max as number) : '∞'}`, INK]);
   }
   // The legend, then each fact wrapped to the room right of the section.
   body += legendItem({ x: 100, y: 14 }, STYLES.zone, 'hoop tension in the membrane state');
   if (limit) body += legendItem({ x: 100, y: 18.5 }, STYLES.thrust, 'least-thrust line of a lune');
   const written = factLines(facts.map(([f, col]) => [f, { fill: col }]), { x: 100, y: limit ? 25 : 20.5 }, WIDTH - 100 - 2);
   body += written.body;
-  body += scaleBar(frame.scale, { x: 12, y: 80 }, 30);
+  body += scaleBar(frame.scale, { x: 12, y: 80 }, 30, say.unit('length'), say.perSI('length'));
   // Forces along the meridian, under the section and the facts, whichever reaches lower.
   const down = Math.max(0, written.y - 86);
-  const nphi = samples.map((p): [number, number] => [deg(p), membraneForces(m, p).N_phi / 1000]);
-  const nth = samples.map((p): [number, number] => [deg(p), membraneForces(m, p).N_theta / 1000]);
+  const nphi = samples.map((p): [number, number] => [deg(p), say.value('force per length', membraneForces(m, p).N_phi)]);
+  const nth = samples.map((p): [number, number] => [deg(p), say.value('force per length', membraneForces(m, p).N_theta)]);
   const ys = [...nphi, ...nth].map(([, y]) => y);
   const pl = panel({ left: 26, top: 96 + down, width: 134, height: 44 }, [deg(m.phiTop), deg(m.phiBase)], [Math.min(...ys), Math.max(...ys)],
-    'angle from the crown φ (°), top edge to base', 'kN/m');
+    'angle from the crown φ (°), top edge to base', say.unit('force per length'));
   body += pl.frame + pl.curve(nphi, STYLES.phi) + pl.curve(nth, STYLES.theta);
   body += legendItem({ x: 28, y: 91 + down }, STYLES.phi, 'N_φ meridional') + legendItem({ x: 80, y: 91 + down }, STYLES.theta, 'N_θ hoop (tension above zero)');
   if (typeof d.phi_hoop_tension === 'number') body += label(pl.x(deg(d.phi_hoop_tension)), pl.y(0) - 2, `${deg(d.phi_hoop_tension).toFixed(1)}°`, 'middle', { fill: RED });
-  return markFigure(svgDocument(WIDTH, 152 + down, 'Dome meridian section with the hoop-tension zone and thrust line, and membrane forces along the meridian', body));
+  return markFigure(svgDocument(WIDTH, 152 + down, 'Dome meridian section with the hoop-tension zone and thrust line, and membrane forces along the meridian', body), units, (u) => domeFigure(d, limit, u));
 }

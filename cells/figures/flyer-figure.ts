@@ -5,7 +5,8 @@
 import type { Flyer } from '../supports/flyer.js';
 import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
-import { dimension, factLines, kilonewtons, legendItem, metres, scaleBar } from './marks.js';
+import { dimension, factLines, legendItem, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 
 const WIDTH = 170;
@@ -19,7 +20,8 @@ const MOST = { stroke: '#2c4a6b', 'stroke-width': 0.6, 'stroke-dasharray': '2.4 
  * @returns an SVG string, recorded as a figure
  * @example flyer_figure(f)
  */
-export function flyerFigure(f: Flyer): string {
+export function flyerFigure(f: Flyer, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const { xs, zi, ze } = f.model;
   const top = xs.map((x, i) => ({ x, y: ze[i]! })), bottom = xs.map((x, i) => ({ x, y: zi[i]! }));
   const L = xs[xs.length - 1]!;
@@ -34,18 +36,18 @@ export function flyerFigure(f: Flyer): string {
   }
   body += el('path', { d: pathData(f.thrust_min.map((p) => frame.at({ x: p.x, y: p.z }))), ...LEAST });
   if (f.thrust_max.length > 0) body += el('path', { d: pathData(f.thrust_max.map((p) => frame.at({ x: p.x, y: p.z }))), ...MOST });
-  body += dimension(frame.at({ x: 0, y: b.yMin + 0.05 * L }), frame.at({ x: L, y: b.yMin + 0.05 * L }), -2, `span ${metres(L)}`);
+  body += dimension(frame.at({ x: 0, y: b.yMin + 0.05 * L }), frame.at({ x: L, y: b.yMin + 0.05 * L }), -2, `span ${say.length(L)}`);
   const facts = [
-    `weight ${kilonewtons(f.W)}`,
-    `least thrust ${kilonewtons(f.H_min)} (under its own weight)`,
-    `greatest thrust ${Number.isFinite(f.H_max) ? kilonewtons(f.H_max) : '∞ (a straight line fits; crushing governs)'}`,
-    `least-thrust state: wall ${kilonewtons(f.V_wall)}, pier ${kilonewtons(f.V_pier)} vertical`,
-    ...(typeof f.H_crush === 'number' ? [`crushing at a thrust of ${kilonewtons(f.H_crush)}`] : []),
+    `weight ${say.force(f.W)}`,
+    `least thrust ${say.force(f.H_min)} (under its own weight)`,
+    `greatest thrust ${Number.isFinite(f.H_max) ? say.force(f.H_max) : '∞ (a straight line fits; crushing governs)'}`,
+    `least-thrust state: wall ${say.force(f.V_wall)}, pier ${say.force(f.V_pier)} vertical`,
+    ...(typeof f.H_crush === 'number' ? [`crushing at a thrust of ${say.force(f.H_crush)}`] : []),
   ];
   // The legend, then each fact wrapped to the room right of the drawing.
   body += legendItem({ x: 116, y: 18 }, LEAST, 'line of least thrust') + legendItem({ x: 116, y: 22.5 }, MOST, 'line of greatest thrust');
   const written = factLines(facts.map((t) => [t, { fill: INK }]), { x: 116, y: 29 }, WIDTH - 116 - 2);
   body += written.body;
-  body += scaleBar(frame.scale, { x: 12, y: 80 }, 30);
-  return markFigure(svgDocument(WIDTH, Math.max(88, written.y + 2), 'Flying buttress in elevation with its lines of least and greatest thrust', body));
+  body += scaleBar(frame.scale, { x: 12, y: 80 }, 30, say.unit('length'), say.perSI('length'));
+  return markFigure(svgDocument(WIDTH, Math.max(88, written.y + 2), 'Flying buttress in elevation with its lines of least and greatest thrust', body), units, (u) => flyerFigure(f, u));
 }

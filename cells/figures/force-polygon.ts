@@ -10,7 +10,8 @@ import type { ArchLimit, ArchLoads, ArchRing } from '../vault/arch/types.js';
 import { voussoirLoads } from '../vault/arch/voussoir-loads.js';
 import { checkLoads } from '../vault/arch/check-loads.js';
 import { el, svgDocument, text, INK, MUTED, type P } from './svg.js';
-import { kilonewtons, label, scaleBar } from './marks.js';
+import { label, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 
 const WIDTH = 170;
@@ -23,7 +24,8 @@ const GROUPS = 12;
  * @returns an SVG string, recorded as a figure
  * @example force_polygon(r, a)
  */
-export function forcePolygon(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}): string {
+export function forcePolygon(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const { H_min: H, V_left: Vl, V_right: Vr } = limit;
   if (typeof H !== 'number' || typeof Vl !== 'number' || typeof Vr !== 'number') {
     throw new RangeError('force_polygon: no line of thrust fits within this ring, so there is no force polygon to draw');
@@ -54,16 +56,16 @@ export function forcePolygon(ring: ArchRing, limit: ArchLimit, loads: ArchLoads 
   body += el('line', { x1: pole.x, y1: pole.y, x2: lineX, y2: pole.y, stroke: INK, 'stroke-width': 0.45, 'stroke-dasharray': '1.5 0.8' });
   body += el('circle', { cx: pole.x, cy: pole.y, r: 0.9, fill: INK });
   body += label(pole.x - 2, pole.y + 0.9, 'pole O', 'end');
-  body += label((pole.x + lineX) / 2, pole.y - 1.4, `H = ${kilonewtons(H)}`);
+  body += label((pole.x + lineX) / 2, pole.y - 1.4, `H = ${say.force(H)}`);
   const Rl = Math.hypot(H, Vl), Rr = Math.hypot(H, Vr);
   const deg = (v: number) => `${((Math.atan2(v, H) * 180) / Math.PI).toFixed(1)}°`;
-  body += label((pole.x + lineX) / 2 - 3, (pole.y + top) / 2 - 1.5, `R_left = ${kilonewtons(Rl)} at ${deg(Vl)}`, 'end', { fill: '#a3162b' });
-  body += label((pole.x + lineX) / 2 - 3, (pole.y + on(total).y) / 2 + 3.5, `R_right = ${kilonewtons(Rr)} at ${deg(Vr)}`, 'end', { fill: '#a3162b' });
-  body += label(lineX + 3, (top + pole.y) / 2 + 0.9, `V_left = ${kilonewtons(Vl)}`, 'start');
-  body += label(lineX + 3, (pole.y + on(total).y) / 2 + 0.9, `V_right = ${kilonewtons(Vr)}`, 'start');
-  body += label(lineX + 3, on(total).y + 4.5, `ΣW = ${kilonewtons(total)}`, 'start', { fill: MUTED });
+  body += label((pole.x + lineX) / 2 - 3, (pole.y + top) / 2 - 1.5, `R_left = ${say.force(Rl)} at ${deg(Vl)}`, 'end', { fill: '#a3162b' });
+  body += label((pole.x + lineX) / 2 - 3, (pole.y + on(total).y) / 2 + 3.5, `R_right = ${say.force(Rr)} at ${deg(Vr)}`, 'end', { fill: '#a3162b' });
+  body += label(lineX + 3, (top + pole.y) / 2 + 0.9, `V_left = ${say.force(Vl)}`, 'start');
+  body += label(lineX + 3, (pole.y + on(total).y) / 2 + 0.9, `V_right = ${say.force(Vr)}`, 'start');
+  body += label(lineX + 3, on(total).y + 4.5, `ΣW = ${say.force(total)}`, 'start', { fill: MUTED });
   const height = top + total * scale + 22;
   const notes = text(10, 6, `Force polygon of the line of least thrust: loads in ${cuts.length - 1} parts of the ring, left to right (top to bottom).`, { fill: INK });
-  body += scaleBar(scale, { x: 10, y: height - 9 }, 40, 'kN', 0.001);
-  return markFigure(svgDocument(WIDTH, height, 'Force polygon of the line of least thrust', notes + body));
+  body += scaleBar(scale, { x: 10, y: height - 9 }, 40, say.unit('force'), say.perSI('force'));
+  return markFigure(svgDocument(WIDTH, height, 'Force polygon of the line of least thrust', notes + body), units, (u) => forcePolygon(ring, limit, loads, u));
 }

@@ -1,26 +1,11 @@
 /**
  * Drafting marks shared by every figure: dimension lines, a scale bar,
  * force arrows and labels with a white halo so they stay legible over lines.
+ * The quantities they write come from readout.ts (the document's units and significant figures).
  */
 import { el, num, text, INK, MUTED, SMALL_TEXT, TEXT_SIZE, type Attrs, type P } from './svg.js';
 import { niceStep } from './frame.js';
 import { wrapLines } from './labels.js';
-
-/**
- * A length in metres as a dimension label, to at least three significant figures so that a 0.215 m ring
- * is not labelled 0.21 m: "0.215 m", "6.40 m", "12.5 m".
- */
-export function metres(x: number): string {
-  const a = Math.abs(x);
-  return `${a < 1 && a > 0 ? String(+x.toPrecision(3)) : a < 10 ? x.toFixed(2) : a < 100 ? x.toFixed(1) : x.toFixed(0)} m`;
-}
-
-/** A force in kN with three significant figures, for arrow labels. */
-export function kilonewtons(n: number, unit = 'kN'): string {
-  const k = n / 1000;
-  const a = Math.abs(k);
-  return `${(a >= 100 ? k.toFixed(0) : a >= 10 ? k.toFixed(1) : k.toFixed(2)).replace(/^-/, '−')} ${unit}`;
-}
 
 /** A label with a white halo. */
 export function label(x: number, y: number, content: string, anchor: 'start' | 'middle' | 'end' = 'middle', extra: Record<string, string | number> = {}): string {
@@ -59,7 +44,7 @@ export function dimension(a: P, b: P, offset: number, content: string): string {
  * @param scale paper mm per world unit (per m for drawings, per N for force diagrams)
  * @param at left end of the bar (mm)
  * @param maxWidth longest bar allowed (mm)
- * @param unit the unit written, and how many of it make one world unit (kN: 0.001 per N)
+ * @param unit the unit written, and how many of it make one world unit (kN: 0.001 per N; ft: 1/0.3048 per m)
  */
 export function scaleBar(scale: number, at: P, maxWidth = 40, unit = 'm', perWorld = 1): string {
   const step = niceStep((maxWidth / scale / 4) * perWorld);

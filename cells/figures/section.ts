@@ -12,7 +12,8 @@ import { ringPoint } from '../vault/arch/ring-point.js';
 import { extradosAngle } from '../vault/arch/extrados-angle.js';
 import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, TEXT_SIZE, type P } from './svg.js';
 import { boundsOf, fitFrame } from './frame.js';
-import { arrow, dimension, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { arrow, dimension, label, legendItem, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 import { wrapLines } from './labels.js';
 
@@ -72,7 +73,8 @@ class Labels {
  * @returns an SVG string, recorded as a figure
  * @example section(archRing({...}), archLimit(ring)) // '<svg …'
  */
-export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}): string {
+export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {}, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const fig = archFigure(ring, loads);
   const hinges = hingePoints(ring, Array.isArray(limit.hinges) ? limit.hinges : [], fig.thrust_min, 'hinges');
   const mechanismHinges = Array.isArray(limit.mechanism) ? limit.mechanism : [];
@@ -131,10 +133,10 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
   const loadRow = frame.y(loadTop);
   if (loads.dead) {
     body += el('rect', { x: frame.x(-s - abutment), y: surfaceY - 1.2, width: frame.x(s + abutment) - frame.x(-s - abutment), height: 1.2, fill: '#d9cfb8', stroke: LOAD, 'stroke-width': 0.15 });
-    labels.place(frame.x(-s - abutment), surfaceY - 1.8, `dead ${(loads.dead / 1000).toFixed(2)} kN/m² on plan`, 'start', -3.2, { fill: LOAD });
+    labels.place(frame.x(-s - abutment), surfaceY - 1.8, `dead ${say.pressure(loads.dead)} on plan`, 'start', -3.2, { fill: LOAD });
   }
   if (fillLevel !== undefined) {
-    labels.place(frame.x(s + abutment), surfaceY - 1.8, `fill level ${metres(fillLevel)}, ${(loads.fill_unit_weight! / 1000).toFixed(1)} kN/m³`, 'end', -3.2, { fill: LOAD });
+    labels.place(frame.x(s + abutment), surfaceY - 1.8, `fill level ${say.length(fillLevel)}, ${say.weight(loads.fill_unit_weight!)}`, 'end', -3.2, { fill: LOAD });
   }
   if (loads.live) {
     const a = frame.x(loads.live_from === undefined ? -s - abutment : -s + loads.live_from);
@@ -145,7 +147,7 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
       const x = a + ((b - a) * k) / Math.max(2, Math.round((b - a) / 4));
       body += arrow({ x, y: y0 }, { x, y: surfaceY - 1.4 }, '', LOAD);
     }
-    labels.place((a + b) / 2, y0 - 1.2, `live ${(loads.live / 1000).toFixed(2)} kN/m² (× λ)`, 'middle', -3.2, { fill: LOAD });
+    labels.place((a + b) / 2, y0 - 1.2, `live ${say.pressure(loads.live)} (× λ)`, 'middle', -3.2, { fill: LOAD });
   }
   const reach = ringPoint(ring.centreline, Math.min(ring.centreline.phiSpringing, Math.PI / 2), t / 2).x;
   wheels.forEach((w) => {
@@ -156,7 +158,7 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
     const th0 = off ? null : extradosAngle(ring.centreline, x, t / 2);
     const onTop = th0 === null ? surface : Math.max(fillLevel ?? -Infinity, ringPoint(ring.centreline, th0, t / 2).y);
     body += arrow({ x: X, y: loadRow }, { x: X, y: frame.y(onTop) - 0.2 }, '', off ? MUTED : LOAD);
-    labels.place(X, loadRow - 1.2, `${kilonewtons(w.W)}${off ? ' (off the ring)' : ''}`, 'middle', -3.2, { fill: off ? MUTED : LOAD, 'font-weight': 'bold' });
+    labels.place(X, loadRow - 1.2, `${say.force(w.W)}${off ? ' (off the ring)' : ''}`, 'middle', -3.2, { fill: off ? MUTED : LOAD, 'font-weight': 'bold' });
     // Spread through the fill to the extrados, as analysed.
     const th = off ? null : extradosAngle(ring.centreline, x, t / 2);
     if (th !== null && (loads.spread ?? 0) > 0 && fillLevel !== undefined) {
@@ -192,14 +194,14 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
   }).join('');
   // Dimensions: span along the springing line, rise at the crown, thickness at the crown.
   const base = top + drawH;
-  body += dimension(at({ x: -s, y: 0 }), at({ x: s, y: 0 }), -(base - frame.y(0) + 5), `span ${metres(ring.span)}`);
-  body += dimension(at({ x: 0, y: 0 }), at({ x: 0, y: ring.rise }), -4, `rise ${metres(ring.rise)}`);
-  labels.place(frame.x(crownTop.x) + 2, frame.y(crownTop.y) - 2.2, `t = ${metres(t)}`, 'start', -3.2);
+  body += dimension(at({ x: -s, y: 0 }), at({ x: s, y: 0 }), -(base - frame.y(0) + 5), `span ${say.length(ring.span)}`);
+  body += dimension(at({ x: 0, y: 0 }), at({ x: 0, y: ring.rise }), -4, `rise ${say.length(ring.rise)}`);
+  labels.place(frame.x(crownTop.x) + 2, frame.y(crownTop.y) - 2.2, `t = ${say.length(t)}`, 'start', -3.2);
   // Legend, above the drawing.
   let legend = '';
   let y = 5;
-  if (fig.thrust_min) { legend += legendItem({ x: 10, y }, LEAST, `line of least thrust${typeof limit.H_min === 'number' ? `, H_min = ${kilonewtons(limit.H_min)}` : ''}`); y += 4; }
-  if (fig.thrust_max) { legend += legendItem({ x: 10, y }, GREATEST, `line of greatest thrust${typeof limit.H_max === 'number' && Number.isFinite(limit.H_max) ? `, H_max = ${kilonewtons(limit.H_max)}` : ''}`); y += 4; }
+  if (fig.thrust_min) { legend += legendItem({ x: 10, y }, LEAST, `line of least thrust${typeof limit.H_min === 'number' ? `, H_min = ${say.force(limit.H_min)}` : ''}`); y += 4; }
+  if (fig.thrust_max) { legend += legendItem({ x: 10, y }, GREATEST, `line of greatest thrust${typeof limit.H_max === 'number' && Number.isFinite(limit.H_max) ? `, H_max = ${say.force(limit.H_max)}` : ''}`); y += 4; }
   if (!fig.thrust_min) { legend += text(10, y + 0.9, 'no line of thrust fits within the ring: NOT SAFE', { fill: '#a3162b', 'font-weight': 'bold' }); y += 4; }
   if (hinges.length) { legend += el('circle', { cx: 14, cy: y, r: 1.1, fill: '#fff', stroke: INK, 'stroke-width': 0.4 }) + text(20, y + 0.9, 'hinge of the least-thrust line (tick: into the ring from its face)', { fill: INK }); y += 4; }
   if (mechanism.length && typeof limit.load_factor === 'number') {
@@ -213,13 +215,13 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {})
   const footY = base + 12.6;
   let footLines = 0;
   if (mechanism.length) {
-    const items = mechanismHinges.map((h, i) => `${i + 1} ${h.face} x ${h.x.toFixed(2)} m`);
+    const items = mechanismHinges.map((h, i) => `${i + 1} ${h.face} x ${say.length(h.x)}`);
     // At the least print size, wrapped to the drawing's width; two lines fit above the scale bar, which moves down for more.
     const lines = wrapLines(`mechanism: ${items.join(' · ')} (x from the left springing)`, WIDTH - 20, SMALL_TEXT);
     footer += lines.map((line, i) => text(10, footY + i * 3.4, line, { fill: INK, 'font-size': SMALL_TEXT })).join('');
     footLines = lines.length;
   }
   const height = base + (mechanism.length ? 26 + Math.max(0, footLines - 2) * 3.4 : 22);
-  body += scaleBar(frame.scale, { x: 10, y: height - 9 });
-  return markFigure(svgDocument(WIDTH, height, `Section of the ${ring.shape} ring with its loads and lines of thrust`, legend + body + labels.out + footer));
+  body += scaleBar(frame.scale, { x: 10, y: height - 9 }, 40, say.unit('length'), say.perSI('length'));
+  return markFigure(svgDocument(WIDTH, height, `Section of the ${ring.shape} ring with its loads and lines of thrust`, legend + body + labels.out + footer), units, (u) => section(ring, limit, loads, u));
 }

@@ -8,7 +8,8 @@ import type { Buttress } from '../supports/buttress.js';
 import { buttressBlocks, type ButtressOptions } from '../supports/blocks.js';
 import { el, pathData, svgDocument, text, INK, MUTED, type P } from './svg.js';
 import { fitFrame } from './frame.js';
-import { arrow, dimension, factLines, kilonewtons, label, legendItem, metres, scaleBar } from './marks.js';
+import { arrow, dimension, factLines, label, legendItem, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits, type Readout } from './readout.js';
 import { markFigure } from './registry.js';
 
 const WIDTH = 170;
@@ -17,8 +18,8 @@ const PATH = { stroke: RED, 'stroke-width': 0.6 };
 const THIRD = { stroke: '#2c4a6b', 'stroke-width': 0.3, 'stroke-dasharray': '1.6 1' };
 
 /** A least width, or "any" when every width keeps the resultant inside. */
-function widthText(w: number | { reason: string }): string {
-  return typeof w === 'number' ? metres(w) : 'any';
+function widthText(w: number | { reason: string }, say: Readout): string {
+  return typeof w === 'number' ? say.length(w) : 'any';
 }
 
 /**
@@ -28,7 +29,8 @@ function widthText(w: number | { reason: string }): string {
  * @returns an SVG string, recorded as a figure
  * @example support_figure(b, opts)
  */
-export function supportFigure(b: Buttress, o: ButtressOptions): string {
+export function supportFigure(b: Buttress, o: ButtressOptions, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const blocks = buttressBlocks(o);
   const B = blocks[0]!.b;
   const height = blocks[blocks.length - 1]!.z0 + blocks[blocks.length - 1]!.h;
@@ -65,27 +67,27 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
   if (o.T > 0 && o.z_T !== undefined) {
     const tHead = at(0, o.z_T);
     body += arrow({ x: tHead.x - len(o.T), y: tHead.y }, tHead, '', INK);
-    body += label(tHead.x - len(o.T) / 2, tHead.y - 1.6, `T = ${kilonewtons(o.T)}`);
+    body += label(tHead.x - len(o.T) / 2, tHead.y - 1.6, `T = ${say.force(o.T)}`);
   }
   if (o.V) {
     const v = at(o.x_V ?? 0, height);
-    body += arrow({ x: v.x, y: v.y - len(o.V) }, v, '', INK) + label(v.x + 1.5, v.y - len(o.V) / 2, `V = ${kilonewtons(o.V)}`, 'start');
+    body += arrow({ x: v.x, y: v.y - len(o.V) }, v, '', INK) + label(v.x + 1.5, v.y - len(o.V) / 2, `V = ${say.force(o.V)}`, 'start');
   }
   // The resultant on the base.
   const base = at(B - b.x_R, 0);
   body += arrow({ x: base.x, y: base.y - 9 }, { x: base.x, y: base.y + 0.2 }, '', RED);
-  body += label(base.x + 1.5, base.y - 5, `N = ${kilonewtons(b.N)}`, 'start', { fill: RED });
-  body += dimension(at(0, 0), at(B, 0), -9, `base ${metres(B)}`);
-  body += dimension(at(B, 0), at(B, height), -(B * 0.1 * frame.scale + 6), `height ${metres(height)}`);
-  if (o.T > 0 && o.z_T !== undefined) body += dimension(at(0, 0), at(0, o.z_T), 5, `z_T ${metres(o.z_T)}`);
+  body += label(base.x + 1.5, base.y - 5, `N = ${say.force(b.N)}`, 'start', { fill: RED });
+  body += dimension(at(0, 0), at(B, 0), -9, `base ${say.length(B)}`);
+  body += dimension(at(B, 0), at(B, height), -(B * 0.1 * frame.scale + 6), `height ${say.length(height)}`);
+  if (o.T > 0 && o.z_T !== undefined) body += dimension(at(0, 0), at(0, o.z_T), 5, `z_T ${say.length(o.z_T)}`);
   // Verdicts and the legend, on the right.
   const lines = [
-    [`resultant at the base: ${metres(b.x_R)} from the outer toe,`, INK],
-    [`eccentricity e = ${metres(b.e)} from the centre of the base`, INK],
+    [`resultant at the base: ${say.length(b.x_R)} from the outer toe,`, INK],
+    [`eccentricity e = ${say.length(b.e)} from the centre of the base`, INK],
     [b.middle_third ? 'within the middle third of the base' : b.in_base ? 'OUTSIDE the middle third: part of the base lifts' : 'OUTSIDE the base: the support overturns', b.middle_third ? INK : RED],
     [`overturning: safety factor ${Number.isFinite(b.sf_overturning) ? b.sf_overturning.toFixed(2) : '∞ (no thrust)'}`, b.sf_overturning < 1 ? RED : INK],
-    [`least base width: ${widthText(b.width_min_third)} (middle third), ${widthText(b.width_min_base)} (in base)`, INK],
-    ...(typeof b.sigma_max === 'number' ? [[`base pressure: max ${kilonewtons(b.sigma_max, 'kN/m²')}, min ${kilonewtons(typeof b.sigma_min === 'number' ? b.sigma_min : 0, 'kN/m²')}`, INK]] : []),
+    [`least base width: ${widthText(b.width_min_third, say)} (middle third), ${widthText(b.width_min_base, say)} (in base)`, INK],
+    ...(typeof b.sigma_max === 'number' ? [[`base pressure: max ${say.pressure(b.sigma_max)}, min ${say.pressure(typeof b.sigma_min === 'number' ? b.sigma_min : 0)}`, INK]] : []),
     ...(typeof b.sf_sliding === 'number' && Number.isFinite(b.sf_sliding) ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
   ] as Array<[string, string]>;
   // Each fact wrapped to the room right of the drawing.
@@ -93,6 +95,6 @@ export function supportFigure(b: Buttress, o: ButtressOptions): string {
   body += facts.body;
   const y = facts.y;
   body += legendItem({ x: 112, y: 20 }, PATH, 'path of the resultant') + legendItem({ x: 112, y: 24.5 }, THIRD, 'middle third of each section');
-  body += scaleBar(frame.scale, { x: 10, y: top + drawH + 12 }, 35);
-  return markFigure(svgDocument(WIDTH, Math.max(top + drawH + 20, y + 2), 'Support in elevation with the path of the resultant and the middle third', body));
+  body += scaleBar(frame.scale, { x: 10, y: top + drawH + 12 }, 35, say.unit('length'), say.perSI('length'));
+  return markFigure(svgDocument(WIDTH, Math.max(top + drawH + 20, y + 2), 'Support in elevation with the path of the resultant and the middle third', body), units, (u) => supportFigure(b, o, u));
 }

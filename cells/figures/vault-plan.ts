@@ -8,7 +8,8 @@ import type { GroinVault } from '../vault/groin/groin-vault.js';
 import type { BarrelSection } from '../vault/groin/sections.js';
 import { el, pathData, svgDocument, text, INK, MUTED, SMALL_TEXT, type P } from './svg.js';
 import { fitFrame } from './frame.js';
-import { arrow, dimension, kilonewtons, label, metres, scaleBar } from './marks.js';
+import { arrow, dimension, label, scaleBar } from './marks.js';
+import { readout, SI_FIGURE_UNITS, type FigureUnits } from './readout.js';
 import { markFigure } from './registry.js';
 import { wrapLines } from './labels.js';
 
@@ -33,7 +34,8 @@ function arch(sec: BarrelSection, d: number, n = 36): P[] {
  * @returns an SVG string, recorded as a figure
  * @example vault_plan(v)
  */
-export function vaultPlan(v: GroinVault): string {
+export function vaultPlan(v: GroinVault, units: FigureUnits = SI_FIGURE_UNITS): string {
+  const say = readout(units);
   const { x: sx, y: sy } = v.model;
   const ex = sx.section.e, ey = sy.section.e, h = sx.section.h;
   const reach = Math.max(ex, ey) * 0.55;
@@ -83,12 +85,12 @@ export function vaultPlan(v: GroinVault): string {
     body += arrow(q, r, '', RED);
   }
   const q = pl(corners[0]!);
-  body += label(q.x + len(v.H_corner_x) + 1, q.y - len(v.H_corner_y) - 1.5, `H = ${kilonewtons(v.H_corner)}`, 'end', { fill: RED, 'font-weight': 'bold' });
+  body += label(q.x + len(v.H_corner_x) + 1, q.y - len(v.H_corner_y) - 1.5, `H = ${say.force(v.H_corner)}`, 'end', { fill: RED, 'font-weight': 'bold' });
   // The components are labelled in the elevations, where they act (in the plan H_x ran into the elevation drawing).
   // Clear spans between the faces of the supports (the corners stand half a thickness further out).
   const cx = v.model.input.spanX / 2, cy = v.model.input.spanY / 2;
-  body += dimension(pl({ x: -cx, y: -ey }), pl({ x: cx, y: -ey }), -4, `clear ${metres(2 * cx)} (x)`);
-  body += dimension(pl({ x: -ex, y: cy }), pl({ x: -ex, y: -cy }), -(reach * 0.85 * scale + 4), `clear ${metres(2 * cy)} (y)`);
+  body += dimension(pl({ x: -cx, y: -ey }), pl({ x: cx, y: -ey }), -4, `clear ${say.length(2 * cx)} (x)`);
+  body += dimension(pl({ x: -ex, y: cy }), pl({ x: -ex, y: -cy }), -(reach * 0.85 * scale + 4), `clear ${say.length(2 * cy)} (y)`);
   // Elevations: each barrel's shell, the piers, the thrust at its height and the corner load.
   const views = [
     { sec: sx.section, e: ex, H: v.H_corner_x, z: v.z_thrust, name: 'x', clear: v.model.input.spanX },
@@ -97,7 +99,7 @@ export function vaultPlan(v: GroinVault): string {
   views.forEach((w, k) => {
     const ev = evAt(k);
     // The thrust's height in the title: a dimension of a few mm has no room for its label.
-    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span; thrust at z = ${metres(w.z)}`, { fill: MUTED, 'font-size': SMALL_TEXT });
+    body += text(90, elevBox(k).top + 1, `across the ${w.name}-span; thrust at z = ${say.length(w.z)}`, { fill: MUTED, 'font-size': SMALL_TEXT });
     const outline = [...arch(w.sec, h), ...arch(w.sec, -h).reverse()];
     body += el('path', { d: pathData(outline.map(ev), true), fill: '#e4e7ea', stroke: INK, 'stroke-width': 0.35 });
     const ground = ev({ x: 0, y: 0 }).y;
@@ -109,20 +111,22 @@ export function vaultPlan(v: GroinVault): string {
       body += arrow(c, tip, '', RED) + el('circle', { cx: c.x, cy: c.y, r: 0.8, fill: RED });
       body += arrow({ x: c.x, y: ground + 0.8 }, { x: c.x, y: ground + 5 }, '', INK);
       if (side > 0) {
-        body += label(c.x + 1, c.y + 3.8, `H_${w.name} = ${kilonewtons(w.H)}`, 'start', { fill: RED });
-        body += label(c.x + 1.5, ground + 4.5, `V = ${kilonewtons(v.V_corner)}`, 'start');
+        body += label(c.x + 1, c.y + 3.8, `H_${w.name} = ${say.force(w.H)}`, 'start', { fill: RED });
+        body += label(c.x + 1.5, ground + 4.5, `V = ${say.force(v.V_corner)}`, 'start');
       }
     }
     body += el('line', { x1: ev({ x: -w.e - reach, y: 0 }).x, y1: ground, x2: ev({ x: w.e + reach, y: 0 }).x, y2: ground, stroke: INK, 'stroke-width': 0.3 });
-    body += dimension(ev({ x: -w.clear / 2, y: 0 }), ev({ x: w.clear / 2, y: 0 }), -2.5, `clear ${metres(w.clear)}`);
+    body += dimension(ev({ x: -w.clear / 2, y: 0 }), ev({ x: w.clear / 2, y: 0 }), -2.5, `clear ${say.length(w.clear)}`);
     body += dimension(ev({ x: -w.e, y: 0 }), ev({ x: -w.e, y: w.z }), len(w.H) + 3, '');
-    // The crown height left of the centre line: the corner thrust is labelled on the right.
-    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), 3, `crown ${metres(v.crown)}`);
+    // The crown height left of the centre line: the corner thrust is labelled on the right. Labelled with its
+    // number alone, as the dome figure labels its height: "crown 1.851 m" is longer than the line and ran onto
+    // the clear span's label.
+    if (k === 0) body += dimension(ev({ x: 0, y: 0 }), ev({ x: 0, y: v.crown }), 3, say.length(v.crown));
   });
-  body += scaleBar(scale, { x: 8, y: 92 }, 40);
+  body += scaleBar(scale, { x: 8, y: 92 }, 40, say.unit('length'), say.perSI('length'));
   body += wrapLines('Clear spans between the supports; corners at the springing of the middle surface; thrust per corner.', WIDTH - 90 - 2, SMALL_TEXT)
     .map((line, i) => text(90, 94 + i * 3.6, line, { fill: MUTED, 'font-size': SMALL_TEXT })).join('');
-  return markFigure(svgDocument(WIDTH, 102, 'Cross vault in plan and in both elevations with its corner thrusts', body));
+  return markFigure(svgDocument(WIDTH, 102, 'Cross vault in plan and in both elevations with its corner thrusts', body), units, (u) => vaultPlan(v, u));
 }
 
 /** Where a groin crosses a generator line: for web x the |y| of the groin at plan x, for web y the |x| at plan y. */

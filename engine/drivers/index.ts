@@ -17,6 +17,7 @@ import { summarise } from '../summary.js';
 import { suggestName } from '../graph/suggest.js';
 import { judgeCases, findCase, type Case } from '../cases/index.js';
 import { toJsonValue } from '../values/json.js';
+import { documentUnitSystem, type FormatOptions } from '../values/format.js';
 import { inputsOf } from './depends.js';
 import { stepsFor, type InputSteps } from './steps.js';
 import { elasticityOf, swingOf } from './measure.js';
@@ -110,7 +111,7 @@ function rank(list: Array<{ entry: InputDriver; size: number }>): InputDriver[] 
 }
 
 function driverOf(name: string, text: string, steps: InputSteps | { reason: string }, p: Perturbation | undefined,
-  isCheck: boolean, pass: boolean | null, sigfigs: number, unit: string | null): { entry: InputDriver; size: number } {
+  isCheck: boolean, pass: boolean | null, format: FormatOptions, unit: string | null): { entry: InputDriver; size: number } {
   if ('reason' in steps || !p) {
     const entry: InputDriver = {
       name, text, elasticity: null, u_minus: null, u_plus: null, kinked: false, elasticity_minus: null, elasticity_plus: null,
@@ -119,7 +120,7 @@ function driverOf(name: string, text: string, steps: InputSteps | { reason: stri
     return { entry, size: -1 };
   }
   const e = elasticityOf(p.samples, steps.absolute);
-  const text_ = (v: unknown) => (v === undefined || v === null ? null : toJsonValue(v, { sigfigs }, unit).text);
+  const text_ = (v: unknown) => (v === undefined || v === null ? null : toJsonValue(v, format, unit).text);
   const entry: InputDriver = {
     name, text, elasticity: clean(e.elasticity),
     u_minus: isCheck ? clean(p.samples.swing[0]) : null, u_plus: isCheck ? clean(p.samples.swing[1]) : null,
@@ -182,6 +183,8 @@ export async function explainDocument(source: string, options: ExplainOptions = 
   doc = prunedDocument(full, targets.map((t) => t.id));
   const session = startSession(doc);
   const written = new Map(await session.settle());
+  // Values in the document's units (kip, ft … for a calc written in US customary units).
+  const format: FormatOptions = { sigfigs, units: documentUnitSystem(doc, written) };
 
   // With cases, each check is explained in its governing case.
   const caseOf = new Map<string, Case | null>();
@@ -210,7 +213,7 @@ export async function explainDocument(source: string, options: ExplainOptions = 
       const cell = doc.graph.byId.get(id)!;
       const s = written.get(id);
       const value = c && id in c.values ? c.values[id] : s?.status === 'ok' ? s.value : undefined;
-      texts[gi]!.set(id, value === undefined ? 'not computed' : toJsonValue(value, { sigfigs }, cell.displayUnit).text);
+      texts[gi]!.set(id, value === undefined ? 'not computed' : toJsonValue(value, format, cell.displayUnit).text);
       const steps = value === undefined ? { reason: 'not computed as written: not varied' } : stepsFor(cell, value);
       if ('reason' in steps) refused[gi]!.set(id, steps.reason); else group.steps.set(id, steps);
     }
@@ -235,7 +238,7 @@ export async function explainDocument(source: string, options: ExplainOptions = 
       const r = group.base.get(t.id)!;
       const drivers = depends.get(t.id)!.map((id) => {
         const why = refused[gi]!.get(id);
-        return driverOf(id, texts[gi]!.get(id)!, why !== undefined ? { reason: why } : group.steps.get(id)!, moved[gi]!.get(id)?.get(t.id), t.isCheck, r.pass, sigfigs, unit);
+        return driverOf(id, texts[gi]!.get(id)!, why !== undefined ? { reason: why } : group.steps.get(id)!, moved[gi]!.get(id)?.get(t.id), t.isCheck, r.pass, format, unit);
       });
       // A part reports the inputs it moved; the first part also those that cannot be moved.
       sizes.set(t.id, drivers.map((d, k) => {
@@ -247,7 +250,7 @@ export async function explainDocument(source: string, options: ExplainOptions = 
       const name = cell.name ?? cell.id;
       const line = cell.span.start.line;
       if (t.isCheck) byId.set(t.id, { name, source: cell.source, line, utilization: clean(r.measure), pass: r.pass, case: caseName, inputs: ranked });
-      else byId.set(t.id, { name, line, text: r.value === undefined ? 'not computed' : toJsonValue(r.value, { sigfigs }, unit).text, case: caseName, inputs: ranked });
+      else byId.set(t.id, { name, line, text: r.value === undefined ? 'not computed' : toJsonValue(r.value, format, unit).text, case: caseName, inputs: ranked });
     }
   });
   for (const t of targets) {

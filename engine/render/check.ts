@@ -86,13 +86,13 @@ function differ(a: unknown, b: unknown): boolean {
 function sidesTex(r: CheckResult, ctx: RenderContext): [string, string] | null {
   let unit: string | null = null;
   if (math.isUnit(r.demand) && math.isUnit(r.capacity)) {
-    const d = splitQuantity(r.demand as Unit, readableUnit(r.demand as Unit));
+    const d = splitQuantity(r.demand as Unit, readableUnit(r.demand as Unit, ctx.units));
     try { (r.capacity as Unit).toNumber(d.unit); unit = d.unit; } catch { unit = null; }
   }
-  const show = (sf: number): [string, string] => [valueTex(r.demand, { sigfigs: sf, unit }) ?? '', valueTex(r.capacity, { sigfigs: sf, unit }) ?? ''];
+  const show = (sf: number): [string, string] => [valueTex(r.demand, { sigfigs: sf, unit, units: ctx.units }) ?? '', valueTex(r.capacity, { sigfigs: sf, unit, units: ctx.units }) ?? ''];
   const sigfigs = separatingSigfigs(show, ctx.sigfigs, differ(r.demand, r.capacity));
-  const a = valueTex(r.demand, { sigfigs, unit });
-  const b = valueTex(r.capacity, { sigfigs, unit });
+  const a = valueTex(r.demand, { sigfigs, unit, units: ctx.units });
+  const b = valueTex(r.capacity, { sigfigs, unit, units: ctx.units });
   return a !== null && b !== null ? [a, b] : null;
 }
 
@@ -132,7 +132,7 @@ function substitutedSigfigs(node: MathNode, ctx: RenderContext): number {
     const a = shownSide(c.args[0]!, ctx);
     const b = shownSide(c.args[1]!, ctx);
     if (!a || !b) return;
-    const show = (sf: number): [string, string] => [valueTex(a.value, { sigfigs: sf, unit: a.unit }) ?? '', valueTex(b.value, { sigfigs: sf, unit: b.unit }) ?? ''];
+    const show = (sf: number): [string, string] => [valueTex(a.value, { sigfigs: sf, unit: a.unit, units: ctx.units }) ?? '', valueTex(b.value, { sigfigs: sf, unit: b.unit, units: ctx.units }) ?? ''];
     sigfigs = Math.max(sigfigs, separatingSigfigs(show, ctx.sigfigs, differ(a.value, b.value)));
   });
   return sigfigs;

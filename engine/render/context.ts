@@ -8,7 +8,7 @@ import type { Cell, CellState, CompiledDocument } from '../types.js';
 import type { Diagnostic } from '../diagnostic.js';
 import type { TexScope } from './tex.js';
 import type { CaseRun } from '../cases/index.js';
-import { usesUsUnits } from './figure-units.js';
+import { documentUnitSystem, type UnitSystem } from '../values/format.js';
 
 /** Identification of the source for the archive footer. */
 export interface ArchiveInfo {
@@ -47,8 +47,8 @@ export interface RenderContext {
   firstCall: Map<string, string>;
   /** Every check in every case (engine/cases), when the document was evaluated with its cases. */
   cases?: CaseRun;
-  /** The document writes its inputs in US customary units (ft, kip, psf …): figures show theirs so too. */
-  usUnits: boolean;
+  /** The document's system of units: 'us' when it writes its inputs in ft, kip, psf …; results and figures are shown in it. */
+  units: UnitSystem;
 }
 
 type AnyNode = MathNode & { object?: AnyNode; index?: { dimensions: AnyNode[]; dotNotation?: boolean }; name?: string; value?: unknown };
@@ -96,8 +96,10 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
   }
   const sigfigs = sigfigsOf(doc, options);
   const defined = (name: string) => graph.byId.has(name) || graph.failed.has(name);
+  const units = documentUnitSystem(doc, states);
   const scope: TexScope = {
     sigfigs,
+    units,
     isDefined: defined,
     resolve: (path) => {
       const cell = graph.byId.get(path[0]!);
@@ -111,7 +113,7 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
       return { value, unit: path.length === 1 ? cell.displayUnit : null };
     },
   };
-  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall, usUnits: usesUsUnits(doc, states) };
+  return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall, units };
 }
 
 /** The state of a cell, pending when unknown. */

@@ -52,11 +52,11 @@ function resultHtml(cell: Cell, value: unknown, ctx: RenderContext): string {
   }
   // Text of several words is set as prose so it wraps in the output column (KaTeX never breaks a line inside \text).
   if (typeof value === 'string' && /\s/.test(value.trim()) && !value.startsWith('<svg') && cell.name) {
-    return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} =`)} ${valueHtml(value, { sigfigs: ctx.sigfigs })}</div>`;
+    return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} =`)} ${valueHtml(value, { sigfigs: ctx.sigfigs, units: ctx.units })}</div>`;
   }
-  const tex = valueTex(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit });
+  const tex = valueTex(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit, units: ctx.units });
   if (tex !== null && cell.name) return `<div class="vb-result">${typeset(`${symbolTex(cell.name)} = ${tex}`)}</div>`;
-  return `<div class="vb-result">${valueHtml(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit })}</div>`;
+  return `<div class="vb-result">${valueHtml(value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit, units: ctx.units })}</div>`;
 }
 
 /** Status-dependent notes under the working. */

@@ -3,13 +3,13 @@
  * value of a figure cell is shown as text.
  */
 import type { Cell, CellState } from '../types.js';
-import { isFigure } from '../../cells/figures/registry.js';
+import { figureIn, isFigure } from '../../cells/figures/registry.js';
 import { anchorId, descriptionHtml, escapeHtml } from './escape.js';
 import { stateOf, type RenderContext } from './context.js';
 import { blockedHtml, diagnosticHtml } from './diagnostics.js';
 import { typeset } from './katex.js';
 import { exprTex } from './tex.js';
-import { figureInUsUnits } from './figure-units.js';
+import { figureUnitsFor } from './figure-units.js';
 
 /**
  * The inner HTML of a figure's output region.
@@ -18,8 +18,8 @@ import { figureInUsUnits } from './figure-units.js';
 export function renderFigureOutput(cell: Cell, state: CellState, ctx: RenderContext): string {
   switch (state.status) {
     case 'ok':
-      // In the document's units: a calc in ft, kip and psf gets its figures' quantities in those.
-      if (isFigure(state.value)) return `<div class="vb-svg">${ctx.usUnits ? figureInUsUnits(state.value, ctx.sigfigs) : state.value}</div>`;
+      // In the document's units and significant figures: a calc in ft, kip and psf gets its figures' quantities in those.
+      if (isFigure(state.value)) return `<div class="vb-svg">${figureIn(state.value, figureUnitsFor(ctx.sigfigs, ctx.units))}</div>`;
       return `<div class="vb-diag vb-diag--error" role="note"><span class="vb-diag-word">NOT A FIGURE</span> this value was not drawn by a figure function, so it is shown as text:</div>`
         + `<pre class="vb-text">${escapeHtml(String(state.value))}</pre>`;
     case 'error': return diagnosticHtml(state.diagnostic);

@@ -78,7 +78,7 @@ export function renderKernelCall(cell: Cell, fn: string, value: unknown, ctx: Re
   const name = cell.name ?? cell.id;
   const rows = fields.map((f) => {
     const has = Object.prototype.hasOwnProperty.call(record, f);
-    const shown = has ? valueHtml(record[f], { sigfigs: ctx.sigfigs, engineering: true }) : '<span class="vb-none">not returned</span>';
+    const shown = has ? valueHtml(record[f], { sigfigs: ctx.sigfigs, engineering: true, units: ctx.units }) : '<span class="vb-none">not returned</span>';
     return `<tr><td class="vb-sym">${typeset(`${symbolTex(name)}{.}${fieldTex(f)}`)}</td><td class="vb-num">${shown}</td></tr>`;
   }).join('');
   return { work: work + notes, out: `<table class="vb-fields"><caption>results used</caption><tbody>${rows}</tbody></table>` };

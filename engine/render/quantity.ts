@@ -5,7 +5,7 @@
  */
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
-import { engineeringUnit, formatNumber, formatValue, readableUnit, splitQuantity } from '../values/format.js';
+import { engineeringUnit, formatNumber, formatValue, readableUnit, splitQuantity, type UnitSystem } from '../values/format.js';
 
 export { engineeringUnit, readableUnit } from '../values/format.js';
 import type { CheckResult } from '../types.js';
@@ -106,10 +106,12 @@ export interface ShowOptions {
   unit?: string | null;
   /** Show in the engineering unit for the dimension (kN, kN/m, kN/m²…) even when the value carries another. */
   engineering?: boolean;
+  /** The document's system of units (default 'si'): engineering units are kip, kip/ft, psf … in 'us'. */
+  units?: UnitSystem;
 }
 
 function unitFor(u: Unit, opts: ShowOptions): string {
-  return opts.unit ?? (opts.engineering ? engineeringUnit(u) : readableUnit(u));
+  return opts.unit ?? (opts.engineering ? engineeringUnit(u, opts.units) : readableUnit(u, opts.units));
 }
 
 function isCheck(v: unknown): v is CheckResult {
@@ -131,7 +133,7 @@ export function valueHtml(value: unknown, opts: ShowOptions): string {
   }
   if (typeof value === 'string') return value.startsWith('<svg') ? '[figure]' : `“${escapeHtml(value)}”`;
   if (Array.isArray(value) && value.length <= 6 && value.every((v) => typeof v === 'number' || math.isUnit(v))) {
-    return `[${value.map((v) => valueHtml(v, { sigfigs: opts.sigfigs, engineering: opts.engineering })).join(', ')}]`;
+    return `[${value.map((v) => valueHtml(v, { sigfigs: opts.sigfigs, engineering: opts.engineering, units: opts.units })).join(', ')}]`;
   }
   if (isCheck(value)) return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs }));
   return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs }));

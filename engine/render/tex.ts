@@ -7,6 +7,7 @@ import type { MathNode } from 'mathjs';
 import { isUnitName } from '../graph/build.js';
 import { numberTex, unitTex, valueTex, isNegativeValue, hasUnit } from './quantity.js';
 import { symbolTex, fieldTex } from './names.js';
+import type { UnitSystem } from '../values/format.js';
 import { texText } from './escape.js';
 
 /** What the converter needs to know about a document's names. */
@@ -16,6 +17,8 @@ export interface TexScope {
   /** The value behind a name or a field chain (`a.H_min` → ['a', 'H_min']); undefined when unknown. */
   resolve?(path: string[]): { value: unknown; unit: string | null } | undefined;
   sigfigs: number;
+  /** The document's system of units, for values shown in their engineering unit (default 'si'). */
+  units?: UnitSystem;
 }
 
 type AnyNode = MathNode & {
@@ -124,7 +127,7 @@ function substituted(path: string[], w: Walk): Piece | null {
   const found = w.scope.resolve(path);
   if (!found) return null;
   // Fields of kernel results come in SI base units: show them in engineering units.
-  const tex = valueTex(found.value, { sigfigs: w.scope.sigfigs, unit: found.unit, engineering: path.length > 1 });
+  const tex = valueTex(found.value, { sigfigs: w.scope.sigfigs, unit: found.unit, engineering: path.length > 1, units: w.scope.units });
   if (tex === null) return null;
   const negative = isNegativeValue(found.value);
   return { tex, prec: negative ? Prec.Unary : Prec.Atom, negative, quantity: hasUnit(found.value) };

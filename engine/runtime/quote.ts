@@ -2,11 +2,12 @@
  * Numbers in a kernel's message, said in the document's units. Kernels speak SI ("got -10000 N",
  * "got 0 rad"); the document wrote "-10 kN" and "0 deg". Each SI quantity in the message is replaced
  * by the value the document gave for it when one matches, else by the same quantity in the display
- * unit of its dimension; long plain numbers are rounded to the document's significant figures.
+ * unit of its dimension (in US customary units when the call's quantities were written so); long plain
+ * numbers are rounded to the document's significant figures.
  */
 import { fromSI } from '../../cells/units.js';
 import type { GivenQuantity } from '../../cells/define.js';
-import { formatNumber, formatValue } from '../values/format.js';
+import { formatNumber, formatValue, unitSystemOf } from '../values/format.js';
 
 /** A number, optionally followed by one of the SI units kernels write. */
 const QUANTITY = /(?<![\w.^])(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?)(?:\s(N\/m\^3|N\/m\^2|N\/m|N m|Pa|N|m|rad)(?![\w^/²³]))?(?![\w.])/g;
@@ -21,11 +22,12 @@ function sameNumber(a: number, b: number): boolean {
  * @example quoteInUserUnits('T must be positive, got -10000 N', [], 4) // 'T must be positive, got −10 kN'
  */
 export function quoteInUserUnits(message: string, given: GivenQuantity[], sigfigs = 4): string {
+  const units = unitSystemOf(given.map((g) => g.value));
   return message.replace(QUANTITY, (whole, digits: string, si: string | undefined) => {
     const x = Number(digits);
     if (!Number.isFinite(x)) return whole;
     if (!si) return digits.replace(/^-/, '').replace('.', '').replace(/^0+/, '').length > sigfigs + 2 ? formatNumber(x, sigfigs) : whole;
     const mine = given.find((g) => g.si === si && sameNumber(g.number, x));
-    return formatValue(mine ? mine.value : fromSI(x, si), { sigfigs });
+    return formatValue(mine ? mine.value : fromSI(x, si), { sigfigs, units });
   });
 }

@@ -3,11 +3,20 @@
  */
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
-import type { CheckResult } from '../types.js';
+import type { CellState, CheckResult, CompiledDocument } from '../types.js';
 import { isNotAvailable } from '../../cells/not-available.js';
+import { formatNumber } from '../../cells/format-number.js';
+
+/**
+ * The system of units a document is written in: 'us' when its inputs are in US customary units
+ * (ft, kip, psf …), else 'si'. Quantities whose own units are not kept are shown in the system's units.
+ */
+export type UnitSystem = 'si' | 'us';
+
+type Preferred = Array<[string, (v: number) => string]>;
 
 /** Preferred display unit for each SI dimension; a value's own unit wins when it was written by hand. */
-const PREFERRED: Array<[string, (v: number) => string]> = [
+const PREFERRED_SI: Preferred = [
   ['m', () => 'm'],
   ['m^2', () => 'm^2'],
   ['m^3', () => 'm^3'],
@@ -22,25 +31,73 @@ const PREFERRED: Array<[string, (v: number) => string]> = [
   ['m^3/m', () => 'm^3/m'],
   ['rad', () => 'deg'],
 ];
-const PREFERRED_UNITS = PREFERRED.map(([si, pick]) => [math.unit(1, si), pick] as const);
+
+/**
+ * The same dimensions in US customary units (common practice on US structural calcs: loads and soil
+ * pressures in psf, stresses from 1 MPa up in psi, as the SI list moves to MPa there).
+ */
+const PREFERRED_US: Preferred = [
+  ['m', () => 'ft'],
+  ['m^2', () => 'ft^2'],
+  ['m^3', () => 'ft^3'],
+  ['N', () => 'kip'],
+  ['N/m', () => 'kip/ft'],
+  ['Pa', (v) => (Math.abs(v) >= 1e6 ? 'psi' : 'psf')],
+  ['N/m^3', () => 'pcf'],
+  ['kg/m^3', () => 'lb/ft^3'],
+  ['N m', () => 'kip ft'],
+  ['N m/m', () => 'kip ft/ft'],
+  ['m^2/m', () => 'ft^2/ft'],
+  ['m^3/m', () => 'ft^3/ft'],
+  ['rad', () => 'deg'],
+];
+const PREFERRED_UNITS: Record<UnitSystem, ReadonlyArray<readonly [Unit, (v: number) => string]>> = {
+  si: PREFERRED_SI.map(([si, pick]) => [math.unit(1, si), pick] as const),
+  us: PREFERRED_US.map(([si, pick]) => [math.unit(1, si), pick] as const),
+};
 const IMPERIAL = new Set(['ft', 'inch', 'in', 'yd', 'mi', 'lbf', 'lb', 'lbm', 'kip', 'kips', 'psi', 'ksi', 'psf', 'pcf', 'plf', 'klf', 'kipft']);
 
-/** Magnitudes below this are floating-point noise in any quantity a vault calc shows. */
-export const NOISE = 1e-10;
+export { formatNumber, NOISE } from '../../cells/format-number.js';
+
+/** Units that mark a quantity as written in US customary units. */
+const US_WRITTEN = /\b(ft|in|inch|yd|kip|kips|ksi|ksf|psf|pcf|plf|klf|kipft|lbf|psi)\b/;
+
+/**
+ * The system of units of a document, from the values of its given inputs: 'us' when any is written
+ * in US customary units (L = 24 ft, w = 120 pcf), else 'si'.
+ * @example unitSystemOf([math.unit('24 ft')]) // "us"
+ */
+export function unitSystemOf(inputs: Iterable<unknown>): UnitSystem {
+  for (const v of inputs) if (math.isUnit(v) && US_WRITTEN.test((v as Unit).formatUnits())) return 'us';
+  return 'si';
+}
+
+/**
+ * The system of units a document is written in, from its given inputs' values.
+ * @example documentUnitSystem(doc, states) // "us" for a calc with `L = 24 ft`
+ */
+export function documentUnitSystem(doc: CompiledDocument, states: ReadonlyMap<string, CellState>): UnitSystem {
+  const inputs = doc.graph.cells.filter((c) => c.kind === 'given').map((c) => states.get(c.id)).flatMap((s) => (s?.status === 'ok' ? [s.value] : []));
+  return unitSystemOf(inputs);
+}
+
+/**
+ * The unit a dimension is shown in when the value's own are not kept.
+ * @param si an SI unit of the dimension ('m', 'N/m', 'Pa')
+ * @param magnitude the SI value (stress switches to MPa or psi from 1 MPa)
+ * @example displayUnitFor('N/m', 'us') // "kip/ft"
+ */
+export function displayUnitFor(si: string, system: UnitSystem = 'si', magnitude = 0): string {
+  const u = math.unit(1, si);
+  const found = PREFERRED_UNITS[system].find(([ref]) => u.equalBase(ref));
+  return found ? found[1](magnitude) : si;
+}
 
 export interface FormatOptions {
   /** Significant figures (default 4). */
   sigfigs?: number;
-}
-
-/** A number to `sigfigs` significant figures, without trailing zeros, exponent only for extreme values. */
-export function formatNumber(x: number, sigfigs = 4): string {
-  if (Number.isNaN(x)) return 'NaN';
-  if (!Number.isFinite(x)) return x > 0 ? '∞' : '−∞';
-  // Round-off from the kernel (a hinge at the crown at 1e-14 deg) is shown as the zero it is.
-  if (Math.abs(x) < NOISE) return '0';
-  const text = math.format(x, { precision: sigfigs, lowerExp: -4, upperExp: 9 });
-  return text.replace(/^-/, '−');
+  /** The document's system of units (default 'si'): the units a quantity is shown in when its own are not kept. */
+  units?: UnitSystem;
 }
 
 /** Compact unit text: 'kN / m' → 'kN/m'. */
@@ -52,12 +109,12 @@ export function compactUnit(text: string): string {
  * The unit a quantity is shown in: its own when written by hand or fixed by `to`,
  * else the engineering unit for its dimension.
  */
-export function displayUnitOf(u: Unit): string {
+export function displayUnitOf(u: Unit, system: UnitSystem = 'si'): string {
   const own = compactUnit(u.formatUnits());
   if ((u as Unit & { fixPrefix?: boolean }).fixPrefix || (u as Unit & { skipAutomaticSimplification?: boolean }).skipAutomaticSimplification) return own;
   if (u.units.some((part) => IMPERIAL.has(part.unit.name))) return compactUnit(u.toString().replace(/^[-\d.e+\s]+/, ''));
   const si = u.value === null ? 1 : (u.value as number);
-  for (const [ref, pick] of PREFERRED_UNITS) {
+  for (const [ref, pick] of PREFERRED_UNITS[system]) {
     if (u.equalBase(ref)) return pick(si);
   }
   const simplified = u.clone();
@@ -69,10 +126,10 @@ export function displayUnitOf(u: Unit): string {
  * kernel results come back in N, m, Pa and read better as kN, m, kN/m².
  * @example engineeringUnit(math.unit(17090, 'N')) // "kN"
  */
-export function engineeringUnit(u: Unit): string {
+export function engineeringUnit(u: Unit, system: UnitSystem = 'si'): string {
   const plain = u.clone();
   Object.assign(plain, { skipAutomaticSimplification: false, fixPrefix: false });
-  return displayUnitOf(plain);
+  return displayUnitOf(plain, system);
 }
 
 /** Bare SI units of force and stress, as kernels return them: shown in engineering units instead. */
@@ -84,14 +141,14 @@ const BARE_SI = /^(N|Pa|N\/m|N\/m\^2|N\/m\^3|N m|N m\/m)$/;
  * Every output (command line, JSON, sheet, live page) picks units through this function.
  * @example readableUnit(math.unit(17090, 'N')) // "kN"
  */
-export function readableUnit(u: Unit): string {
-  const own = displayUnitOf(u);
-  return BARE_SI.test(own) ? engineeringUnit(u) : own;
+export function readableUnit(u: Unit, system: UnitSystem = 'si'): string {
+  const own = displayUnitOf(u, system);
+  return BARE_SI.test(own) ? engineeringUnit(u, system) : own;
 }
 
 /** A quantity as {number, unit} in the unit asked for, else in its readable unit. */
-export function splitQuantity(u: Unit, unit?: string | null): { number: number; unit: string } {
-  const target = unit ?? readableUnit(u);
+export function splitQuantity(u: Unit, unit?: string | null, system: UnitSystem = 'si'): { number: number; unit: string } {
+  const target = unit ?? readableUnit(u, system);
   try {
     return { number: u.toNumber(target), unit: compactUnit(target) };
   } catch {
@@ -157,7 +214,7 @@ export function formatValue(value: unknown, opts: FormatOptions = {}, unit?: str
   if (typeof value === 'boolean') return value ? 'true' : 'false';
   if (typeof value === 'string') return value.startsWith('<svg') ? '[figure]' : value;
   if (math.isUnit(value)) {
-    const q = splitQuantity(value as Unit, unit);
+    const q = splitQuantity(value as Unit, unit, opts.units);
     return q.unit ? `${formatNumber(q.number, sf)} ${q.unit}` : formatNumber(q.number, sf);
   }
   if (isCheck(value)) {

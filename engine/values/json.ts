@@ -35,7 +35,7 @@ function isInfinity(x: number): boolean {
 /** A value as {value, unit, text}; objects become nested records of the same shape. */
 export function toJsonValue(value: unknown, opts: FormatOptions = {}, unit?: string | null): JsonValue {
   if (math.isUnit(value)) {
-    const q = splitQuantity(value as Unit, unit);
+    const q = splitQuantity(value as Unit, unit, opts.units);
     const text = formatValue(value, opts, unit);
     if (isInfinity(q.number)) return infinite(text, q.unit || null);
     return { value: Number.isFinite(q.number) ? clean(q.number) : String(q.number), unit: q.unit || null, text };

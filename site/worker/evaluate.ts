@@ -60,7 +60,7 @@ async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<vo
     const cell = c.doc.graph.byId.get(id);
     const state = c.session.states.get(id);
     if (!cell || !state) continue;
-    cells.push({ id, html: renderCellOutput(cell, state, c.ctx), change: cell.kind === 'given' ? null : compareToDocument(cell, c.baseline.get(id), state, c.sigfigs) });
+    cells.push({ id, html: renderCellOutput(cell, state, c.ctx), change: cell.kind === 'given' ? null : compareToDocument(cell, c.baseline.get(id), state, c.sigfigs, c.ctx.units) });
   }
   const { doc, ctx, session } = c;
   const parts: Array<[string, string]> = [

@@ -25,6 +25,12 @@ describe('quoteInUserUnits: kernel numbers in the document\'s units', () => {
     expect(quoteInUserUnits('rise/span = 0.33333333333333 is more than', [], 3)).toBe('rise/span = 0.333 is more than');
   });
 
+  it('quoteInUserUnits(a call written in ft and kip) quotes a quantity not given in kip', () => {
+    // 17.8 kN / 4.4482216152605 kN per kip = 4.0016 kip (NIST SP 811, Appendix B: 1 lbf = 4.4482216152605 N).
+    const given = [{ si: 'm', number: 6.096, value: math.unit(20, 'ft') }];
+    expect(quoteInUserUnits('H = 17800 N is more than the wall takes', given, 4)).toBe('H = 4.002 kip is more than the wall takes');
+  });
+
   it('quoteInUserUnits leaves clause numbers and N/mm² alone', () => {
     const text = 'f_b = 80 N/mm² is above 75 N/mm², the limit of EN 1996-1-1 3.6.1.2 (from memory)';
     expect(quoteInUserUnits(text, [], 3)).toBe(text);

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { compile, startSession } from '../../engine/index.js';
+import { compile, documentUnitSystem, startSession } from '../../engine/index.js';
 import { math } from '../../cells/math.js';
 import { compareToDocument, changeBadge, checkState, flipTone, inputChanges, renderReviewPanel } from '../../site/review.js';
 import { withDocumentUnit } from '../../site/editor.js';
@@ -31,6 +31,25 @@ describe('compareToDocument', () => {
     expect(h.kind === 'quantity' && h.percent).toBe('+52.7 %');
     expect(changes.get('W')).toBeNull(); // the wall does not depend on the span
     expect(changes.get('x_R')).toMatchObject({ kind: 'quantity', sign: -1 });
+  });
+
+  it('compareToDocument gives a kernel result of a calc in ft and pcf in kip (the units its sheet shows)', async () => {
+    // Fictional ring in US units; the change is compared in kip, as the sheet prints H (kip = 4448.2216152605 N, NIST SP 811).
+    const text = ['```given', 'L = 20 ft', 'f = 5 ft', 't = 1.25 ft', 'w = 120 pcf', '```',
+      '```calc', 'r = arch_ring({shape: "circular", span: L, rise: f, thickness: t, unit_weight: w, depth: 3 ft})', 'a = arch_limit(r)', 'H = a.H_min', '```', ''].join('\n');
+    const doc = compile(text, { file: 'us.md' });
+    const session = startSession(doc);
+    const baseline = new Map(await session.settle());
+    expect(session.setInput('L', '22 ft')).toBeNull();
+    const now = await session.settle();
+    const units = documentUnitSystem(doc, baseline);
+    const h = compareToDocument(doc.graph.byId.get('H')!, baseline.get('H'), now.get('H'), 3, units);
+    session.dispose();
+    expect(units).toBe('us');
+    expect(h).toMatchObject({ kind: 'quantity', sign: 1 });
+    const kip = (s: unknown) => +((s as { value: { toNumber(u: string): number } }).value.toNumber('N') / 4448.2216152605).toPrecision(3);
+    const shown = h?.kind === 'quantity' ? [h.before, h.after] : null;
+    expect(shown).toEqual([`${kip(baseline.get('H'))} kip`, `${kip(now.get('H'))} kip`]);
   });
 
   it('compareToDocument marks a check whose verdict flips, with both utilizations', async () => {

@@ -25,6 +25,8 @@ const ring = archRing({ shape: 'circular', span: 6.4, rise: 1.6, thickness: 0.34
 const limit = archLimit(ring);
 const texts = (svg: string) => parse(svg).querySelectorAll('text').map((t) => t.text);
 const num = (s: string | undefined) => Number(s);
+/** A value to four significant figures without trailing zeros, as a figure drawn with the sheet's default writes it. */
+const sf4 = (x: number) => String(+x.toPrecision(4)).replace('-', '−');
 
 describe('section(ring, limit)', () => {
   const svg = section(ring, limit);
@@ -47,11 +49,11 @@ describe('section(ring, limit)', () => {
 
   it('section writes H_min, H_max and the geometric factor of safety from the limit analysis', () => {
     const t = texts(svg);
-    expect(t).toContain(`line of least thrust, H_min = ${(numberField(limit.H_min) / 1000).toFixed(1)} kN`);
-    expect(t).toContain(`line of greatest thrust, H_max = ${(numberField(limit.H_max) / 1000).toFixed(1)} kN`);
+    expect(t).toContain(`line of least thrust, H_min = ${sf4(numberField(limit.H_min) / 1000)} kN`);
+    expect(t).toContain(`line of greatest thrust, H_max = ${sf4(numberField(limit.H_max) / 1000)} kN`);
     expect(t).toContain(`geometric factor of safety ${limit.gsf.toFixed(2)}`);
-    expect(t).toContain('span 6.40 m');
-    expect(t).toContain('rise 1.60 m');
+    expect(t).toContain('span 6.4 m');
+    expect(t).toContain('rise 1.6 m');
   });
 
   it('section refuses a limit computed with other loads than those drawn', () => {
@@ -77,7 +79,7 @@ describe('force_polygon(ring, limit)', () => {
   it('force_polygon puts the pole level with half the load for a symmetric ring (statics: V_left = V_right = W/2)', () => {
     const y1 = num(loadLine.getAttribute('y1')), y2 = num(loadLine.getAttribute('y2'));
     expectClose(num(thrust.getAttribute('y1')) - y1, (y2 - y1) / 2, 2e-3);
-    expect(texts(svg)).toContain(`ΣW = ${(ring.weight / 1000).toFixed(1)} kN`);
+    expect(texts(svg)).toContain(`ΣW = ${sf4(ring.weight / 1000)} kN`);
   });
 
   it('force_polygon refuses reactions that do not match the loads', () => {
@@ -112,7 +114,7 @@ describe('vault_plan(v)', () => {
     const t = texts(svg);
     expect(t).toContain('H_x = 57.6 kN');
     expect(t).toContain('H_y = 57.6 kN');
-    expect(t).toContain(`H = ${(57.6 * Math.SQRT2).toFixed(1)} kN`);
+    expect(t).toContain(`H = ${sf4(57.6 * Math.SQRT2)} kN`);
   });
 
   it('vault_plan draws four groins and a pier at each corner', () => {
@@ -132,7 +134,7 @@ describe('support_figure(b, options)', () => {
   it('support_figure ends the path of the resultant where it cuts the base', () => {
     expectClose(b.x_R, 0.75 - 60 / 180, 1e-9);
     // The facts beside the drawing wrap to its room (issue 16: text at least 8 pt), so they are read joined.
-    expect(texts(svg).join(' ')).toContain('resultant at the base: 0.417 m from the outer toe,'); // 0.4167 m to three significant figures
+    expect(texts(svg).join(' ')).toContain('resultant at the base: 0.4167 m from the outer toe,'); // 0.41667 m to four significant figures (the sheet's default)
     const path = parse(svg).querySelectorAll('path').find((p) => p.getAttribute('stroke') === '#a3162b' && !p.getAttribute('fill'))!;
     const pts = path.getAttribute('d')!.slice(1).split('L').map((s) => s.split(' ').map(Number));
     const [top, bottom] = [pts[0]!, pts[pts.length - 1]!];
@@ -159,10 +161,10 @@ describe('vault_plan(v) of an oblong bay (issue 15)', () => {
   const svg = vaultPlan(v);
   it('dimensions the clear spans 6.00 × 4.20 m (not the middle surface 6.18 × 4.38 m) and draws both elevations', () => {
     const t = texts(svg);
-    expect(t).toContain('clear 6.00 m (x)');
-    expect(t).toContain('clear 4.20 m (y)');
-    expect(t).toContain('clear 6.00 m');
-    expect(t).toContain('clear 4.20 m');
+    expect(t).toContain('clear 6 m (x)');
+    expect(t).toContain('clear 4.2 m (y)');
+    expect(t).toContain('clear 6 m');
+    expect(t).toContain('clear 4.2 m');
     expect(t.some((x) => x.startsWith('H_x = '))).toBe(true);
     expect(t.some((x) => x.startsWith('H_y = '))).toBe(true);
     expect(t.filter((x) => x.startsWith('across the ')).length).toBe(2);
@@ -188,8 +190,8 @@ describe('dome_figure, cross_vault_figure, flyer_figure (issue 15)', () => {
     const { crossVaultFigure } = await import('../../../cells/figures/cross-vault-figure.js');
     const c = crossVault({ span_x: 6, span_y: 4.2, shape: 'pointed', thickness: 0.25, unit_weight: 18e3 });
     const t = texts(crossVaultFigure(c));
-    expect(t).toContain('clear 6.00 m (x)');
-    expect(t).toContain('clear 4.20 m (y)');
+    expect(t).toContain('clear 6 m (x)');
+    expect(t).toContain('clear 4.2 m (y)');
     // Each elevation's heading wraps to the elevation's width (text at least 8 pt), so it is read joined.
     expect(t.join(' ').match(/across the [xy]-span \(pointed\): H_[xy],min = .*? at z = /g)?.length).toBe(2);
   });
@@ -203,7 +205,7 @@ describe('dome_figure, cross_vault_figure, flyer_figure (issue 15)', () => {
     expectClose(2 * c.model.y.e, 6.18, 1e-9);
     const svg = crossVaultFigure(c);
     const t = texts(svg);
-    expect(t).toEqual(expect.arrayContaining(['clear 4.20 m (x)', 'clear 6.00 m (y)', 'clear 4.20 m', 'clear 6.00 m']));
+    expect(t).toEqual(expect.arrayContaining(['clear 4.2 m (x)', 'clear 6 m (y)', 'clear 4.2 m', 'clear 6 m']));
     expect(t.filter((x) => /4\.38|6\.18/.test(x))).toEqual([]);
     // Both elevations: a heading and a shell outline for each direction.
     expect(t.join(' ')).toMatch(/across the x-span .*across the y-span/);

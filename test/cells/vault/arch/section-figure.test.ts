@@ -10,6 +10,8 @@ import { scanPlot } from '../../../../cells/figures/scan-plot.js';
 import { TEXT_SIZE } from '../../../../cells/figures/svg.js';
 
 const ring = archRing({ shape: 'circular', span: 6, rise: 1.5, thickness: 0.34, unit_weight: 18e3, voussoirs: 80 });
+/** A value to four significant figures without trailing zeros, as a figure drawn with the sheet's default writes it. */
+const sf4 = (x: number) => (Math.abs(x) < 1e-10 ? '0' : String(+x.toPrecision(4))); // a hinge at the springing is at round-off from 0
 const loads = { fill_unit_weight: 19e3, fill_level: 2.24, dead: 2.3e3, spread: 0.5, live: 4e3, live_from: 3, live_to: 6, axles: [{ W: 50e3, at: 2.2 }, { W: 50e3, at: 0.4 }] };
 
 /** Boxes of the text labels, from their position, anchor and length (the figure's own estimate of glyph width). */
@@ -29,10 +31,11 @@ describe('section(ring, limit, loads) draws what was analysed', () => {
   const texts = parse(svg).querySelectorAll('text').map((t) => t.text);
 
   it('fill level, dead load, live load and each axle with its value', () => {
-    expect(texts).toContain('fill level 2.24 m, 19.0 kN/m³');
-    expect(texts).toContain('dead 2.30 kN/m² on plan');
-    expect(texts).toContain('live 4.00 kN/m² (× λ)');
-    expect(texts.filter((t) => t === '50.0 kN').length).toBe(2);
+    // Written to the sheet's default 4 significant figures, trailing zeros dropped (engine/values/format.ts).
+    expect(texts).toContain('fill level 2.24 m, 19 kN/m³');
+    expect(texts).toContain('dead 2.3 kN/m² on plan');
+    expect(texts).toContain('live 4 kN/m² (× λ)');
+    expect(texts.filter((t) => t === '50 kN').length).toBe(2);
   });
 
   it('the line at collapse and one numbered marker per hinge of the mechanism, listed with its face', () => {
@@ -42,13 +45,15 @@ describe('section(ring, limit, loads) draws what was analysed', () => {
     const at = texts.findIndex((t) => t.startsWith('mechanism:'));
     expect(at).toBeGreaterThanOrEqual(0);
     const list = texts.slice(at, at + 3).join(' ');
-    for (const h of a.mechanism) expect(list).toContain(`${h.face} x ${h.x.toFixed(2)} m`);
+    for (const h of a.mechanism) expect(list).toContain(`${h.face} x ${sf4(h.x)} m`);
     expect(svg).toContain('0.9 0.7'); // the dash of the line at collapse
     expect(texts.some((t) => t.startsWith('gsf: loads as built'))).toBe(true);
   });
 
-  it('no two labels overlap', () => {
-    const boxes = labelBoxes(svg).filter((b) => !b.rotated);
+  // In US customary units the labels are longer ("t = 1.115 ft", "9.01 kip"): placed as well.
+  const usUnits = { sigfigs: 4, units: { length: 'ft', force: 'kip', 'force per length': 'kip/ft', pressure: 'psf', 'unit weight': 'pcf' } };
+  it.each([['SI', svg], ['US customary', section(ring, a, loads, usUnits)]])('no two labels overlap (%s units)', (_, drawn) => {
+    const boxes = labelBoxes(drawn).filter((b) => !b.rotated);
     expect(boxes.length).toBeGreaterThan(6);
     for (let i = 0; i < boxes.length; i++) {
       for (let j = i + 1; j < boxes.length; j++) {
@@ -65,7 +70,7 @@ describe('scan_plot(s)', () => {
     const s = archScan(ring, { fill_unit_weight: 19e3, fill_level: 2.24 }, { axles: [50e3, 50e3], spacing: [1.8], steps: 20 });
     const svg = scanPlot(s);
     const t = parse(svg).querySelectorAll('text').map((e) => e.text);
-    expect(t).toContain(`worst: λ = ${(s.lambda_min as number).toFixed(2)} at x = ${(s.x_worst as number).toFixed(2)} m`);
+    expect(t).toContain(`worst: λ = ${(s.lambda_min as number).toFixed(2)} at x = ${sf4(s.x_worst as number)} m`);
     expect(svg).not.toMatch(/NaN|undefined/);
   });
 });
