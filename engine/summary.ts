@@ -5,6 +5,7 @@
 import type { CellKind, CellState, CheckResult, CompiledDocument } from './types.js';
 import type { Diagnostic } from './diagnostic.js';
 import { toJsonValue, type JsonValue } from './values/json.js';
+import { withoutLimitMarker } from './cases/read.js';
 
 export interface ValueEntry extends JsonValue {
   kind: CellKind;
@@ -18,6 +19,7 @@ export interface ValueEntry extends JsonValue {
 export interface CheckEntry {
   name: string | null;
   source: string;
+  /** The check's comment, without a trailing `[in …]` limit marker (that is `judged_in`). */
   description: string;
   line: number;
   pass: boolean | null;
@@ -30,6 +32,8 @@ export interface CheckEntry {
   governing?: CaseVerdict;
   /** With cases: the check in each case it is judged in, in case order (the document as written first, as `case: null`). */
   cases?: CaseVerdict[];
+  /** A check limited by `[in NAME, …]`: the cases and families it is judged in, as the marker names them. */
+  judged_in?: string[];
 }
 
 /** A check in one case. */
@@ -78,9 +82,11 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
     const blockedBy = state.status === 'blocked' ? state.by : state.status === 'error' ? cell.id : undefined;
     if (cell.kind === 'check') {
       const result = state.status === 'ok' ? (state.value as CheckResult) : null;
+      const limit = doc.cases.limits.get(cell.id);
       checks.push({
-        name: cell.name, source: cell.source, description: cell.description, line: cell.span.start.line,
+        name: cell.name, source: cell.source, description: withoutLimitMarker(cell.description), line: cell.span.start.line,
         pass: result ? result.pass : null, utilization: result ? result.utilization : null,
+        ...(limit?.length ? { judged_in: [...limit] } : {}),
         ...(blockedBy ? { blocked_by: blockedBy } : {}),
         ...(state.status === 'blocked' && state.note ? { reason: state.note } : {}),
       });
