@@ -93,7 +93,7 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
     }
     if (!cell.name) continue;
     const json = state.status === 'ok'
-      ? toJsonValue(state.value, { sigfigs }, cell.displayUnit)
+      ? toJsonValue(state.value, { sigfigs, written: cell.kind === 'given' }, cell.displayUnit)
       : { value: null, unit: null, text: state.status === 'blocked' ? state.note ?? `not computed because ${state.by} failed` : state.status === 'error' ? `error: ${state.diagnostic.message}` : 'pending' };
     values[cell.name] = {
       ...json, kind: cell.kind, line: cell.span.start.line,
