@@ -4,7 +4,7 @@
  * holds every number the working shows, and the body text keeps its size on every page.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync } from 'node:fs';
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { CHROMIUM_PATH, launchPrinter, printPdf, type Printer } from '../../bin/pdf.js';
@@ -13,8 +13,9 @@ import { textSize, figureClashes, figureTextSizes, overflowsIn, pdfFontSizes, wo
 
 const haveTools = existsSync(CHROMIUM_PATH) && (() => { try { execFileSync('pdftohtml', ['-v'], { stdio: 'ignore' }); return true; } catch { return false; } })();
 const artifacts = fileURLToPath(new URL('../../test-artifacts/', import.meta.url));
-const SHEETS = ['templates/barrel-vault.md', 'templates/cross-vault.md', 'templates/arch-ring.md', 'templates/buttress.md', 'test/fixtures/sheets/long-formulas.md'];
 const repo = (p: string) => fileURLToPath(new URL(`../../${p}`, import.meta.url));
+/** Every template (a new one is measured without a line here), and the stress sheet. */
+const SHEETS = [...readdirSync(repo('templates')).filter((f) => f.endsWith('.md')).sort().map((f) => `templates/${f}`), 'test/fixtures/sheets/long-formulas.md'];
 /** A4 less the sheet's left and right margins (18 mm + 15 mm), in CSS px. */
 const PRINT_WIDTH = Math.floor((210 - 33) / 25.4 * 96);
 
