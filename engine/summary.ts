@@ -6,6 +6,7 @@ import type { CellKind, CellState, CheckResult, CompiledDocument } from './types
 import type { Diagnostic } from './diagnostic.js';
 import { toJsonValue, type JsonValue } from './values/json.js';
 import { documentUnitSystem } from './values/format.js';
+import { withoutLimitMarker } from './cases/read.js';
 
 export interface ValueEntry extends JsonValue {
   kind: CellKind;
@@ -19,6 +20,7 @@ export interface ValueEntry extends JsonValue {
 export interface CheckEntry {
   name: string | null;
   source: string;
+  /** The check's comment, without a trailing `[in …]` limit marker (that is `judged_in`). */
   description: string;
   line: number;
   pass: boolean | null;
@@ -31,6 +33,8 @@ export interface CheckEntry {
   governing?: CaseVerdict;
   /** With cases: the check in each case it is judged in, in case order (the document as written first, as `case: null`). */
   cases?: CaseVerdict[];
+  /** A check limited by `[in NAME, …]`: the cases and families it is judged in, as the marker names them. */
+  judged_in?: string[];
 }
 
 /** A check in one case. */
@@ -81,16 +85,18 @@ export function summarise(doc: CompiledDocument, states: Map<string, CellState>,
     const blockedBy = state.status === 'blocked' ? state.by : state.status === 'error' ? cell.id : undefined;
     if (cell.kind === 'check') {
       const result = state.status === 'ok' ? (state.value as CheckResult) : null;
+      const limit = doc.cases.limits.get(cell.id);
       checks.push({
-        name: cell.name, source: cell.source, description: cell.description, line: cell.span.start.line,
+        name: cell.name, source: cell.source, description: withoutLimitMarker(cell.description), line: cell.span.start.line,
         pass: result ? result.pass : null, utilization: result ? result.utilization : null,
+        ...(limit?.length ? { judged_in: [...limit] } : {}),
         ...(blockedBy ? { blocked_by: blockedBy } : {}),
         ...(state.status === 'blocked' && state.note ? { reason: state.note } : {}),
       });
     }
     if (!cell.name) continue;
     const json = state.status === 'ok'
-      ? toJsonValue(state.value, { sigfigs, units }, cell.displayUnit)
+      ? toJsonValue(state.value, { sigfigs, units, written: cell.kind === 'given' }, cell.displayUnit)
       : { value: null, unit: null, text: state.status === 'blocked' ? state.note ?? `not computed because ${state.by} failed` : state.status === 'error' ? `error: ${state.diagnostic.message}` : 'pending' };
     values[cell.name] = {
       ...json, kind: cell.kind, line: cell.span.start.line,

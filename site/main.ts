@@ -11,6 +11,7 @@ import { SHEET_CSS } from './sheet.js';
 import { documentUnitSystem } from '../engine/index.js';
 import { LiveCases } from './cases.js';
 import { LiveDrivers } from './drivers.js';
+import { withoutLimitMarker } from '../engine/cases/read.js';
 
 const sheetEl = document.getElementById('lv-sheet')!;
 const panelEl = document.getElementById('lv-review')!;
@@ -63,7 +64,7 @@ function showChange(id: string): void {
 }
 
 function renderPanel(): void {
-  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped && cases.judgesHere(c.id) ? [{ id: c.id, label: sheet.cell(c.id)?.description || c.id, before: c.before, after: c.after }] : []));
+  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped && cases.judgesHere(c.id) ? [{ id: c.id, label: withoutLimitMarker(sheet.cell(c.id)?.description ?? '') || c.id, before: c.before, after: c.after }] : []));
   const html = renderReviewPanel({
     file: loaded.file, inputs: inputChanges(sheet.doc, sheet.overrides), flips, changedResults: changes.size,
     dropped, message, writing,

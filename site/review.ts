@@ -8,6 +8,7 @@
  */
 import type { Unit } from 'mathjs';
 import { formatNumber, formatUtilization, formatValue, toJsonValue } from '../engine/index.js';
+import { sigfigsFor } from '../engine/values/format.js';
 import type { Cell, CellState, CheckResult, CompiledDocument, UnitSystem } from '../engine/index.js';
 
 /** A given input whose value differs from the document's. */
@@ -63,13 +64,15 @@ function percentText(diff: number, before: number): string | null {
 }
 
 /** The difference of two plain numbers or same-dimension quantities, or null when they cannot be compared. */
-function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined, before: unknown, after: unknown, sigfigs: number, units: UnitSystem): Extract<ResultChange, { kind: 'quantity' }> | null | undefined {
+function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined, before: unknown, after: unknown, sigfigs: number, units: UnitSystem, written = false): Extract<ResultChange, { kind: 'quantity' }> | null | undefined {
+  // A given input before and after reads with the digits it was written with, as the sheet shows it.
+  const shown = { sigfigs, units, written };
   if (typeof before === 'number' && typeof after === 'number') {
     const diff = after - before;
     if (Math.abs(diff) <= SAME * Math.max(Math.abs(before), Math.abs(after))) return null;
     const sign = diff > 0 ? 1 : -1;
     return {
-      kind: 'quantity', id, before: formatNumber(before, sigfigs), after: formatNumber(after, sigfigs),
+      kind: 'quantity', id, before: formatNumber(before, sigfigsFor(before, shown)), after: formatNumber(after, sigfigsFor(after, shown)),
       delta: signedText(diff, formatNumber(diff, sigfigs)), percent: percentText(diff, before), sign,
     };
   }
@@ -82,7 +85,7 @@ function quantityChange(id: string, displayUnit: Cell['displayUnit'] | undefined
   const diff = unit ? after.toNumber(unit) - before.toNumber(unit) : diffSI;
   const diffText = `${formatNumber(diff, sigfigs)}${unit ? ` ${unit}` : ''}`;
   return {
-    kind: 'quantity', id, before: formatValue(before, { sigfigs, units }, unit), after: formatValue(after, { sigfigs, units }, unit),
+    kind: 'quantity', id, before: formatValue(before, shown, unit), after: formatValue(after, shown, unit),
     delta: signedText(diffSI, diffText), percent: percentText(diffSI, siA), sign: diffSI > 0 ? 1 : -1,
   };
 }
@@ -112,7 +115,7 @@ export function compareToDocument(cell: Cell, before: CellState | undefined, aft
     if (before?.status === after?.status && (before?.status !== 'blocked' || (before as { by: string }).by === (after as { by: string }).by)) return null;
     return { kind: 'state', id: cell.id, before: stateWord(before), after: stateWord(after) };
   }
-  const q = quantityChange(cell.id, cell.displayUnit, before.value, after.value, sigfigs, units);
+  const q = quantityChange(cell.id, cell.displayUnit, before.value, after.value, sigfigs, units, cell.kind === 'given');
   if (q !== undefined) return q;
   // Figures redraw themselves; records are compared field by field; lists and text by how they read.
   if (typeof after.value === 'string' && after.value.startsWith('<svg')) return null;

@@ -10,6 +10,7 @@ import { parse, readOverrides, SET_OPTION, JSON_OPTION, CASE_OPTION, UsageError 
 import { availableParallelism } from 'node:os';
 import { loadAndEvaluate, hasErrors, type Loaded } from '../load.js';
 import type { CheckEntry } from '../../engine/summary.js';
+import { withoutLimitMarker } from '../../engine/cases/read.js';
 import { expandPatterns } from '../archive/glob.js';
 import { archiveCheck } from '../archive/check.js';
 import { summariesJson } from '../archive/report.js';
@@ -19,13 +20,17 @@ function notJudged(c: { cases?: unknown[] }): boolean {
   return c.cases !== undefined && c.cases.length === 0;
 }
 
-export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; cases?: unknown[]; reason?: string }, withCases = false): string {
+export function verdictLine(c: { pass: boolean | null; utilization: number | null; name: string | null; source: string; line: number; description: string; governing?: { case: string | null }; cases?: unknown[]; judged_in?: string[]; reason?: string }, withCases = false): string {
   const mark = notJudged(c) ? '  --  not judged in this case' : c.pass === null ? '  ??  NOT EVALUATED' : c.pass ? '  ok  holds        ' : '  !!  FAILS        ';
   const u = c.utilization === null ? '     ' : formatUtilization(c.utilization, c.pass).padStart(5);
   const label = c.name ? `${c.name}: ${c.source}` : c.source;
+  // The [in …] marker is said in words, as on the sheet ("judged in STR, axle only"), never printed raw.
+  const limit = c.judged_in?.length ? `judged in ${c.judged_in.join(', ')} only` : '';
   // A check that holds everywhere without utilizations to compare the cases by has no governing case.
-  const governs = !withCases ? '' : c.governing ? `  [governing: ${c.governing.case ?? 'as written'}]` : c.pass === true ? '  [holds in every case; no governing case]' : '';
-  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${c.description}` : ''}${governs}${c.reason ? `\n                     ${c.reason}` : ''}`;
+  const governs = !withCases ? (limit ? `  [${limit}]` : '')
+    : c.governing ? `  [governing: ${c.governing.case ?? 'as written'}${limit ? ` (${limit})` : ''}]`
+    : c.pass === true ? `  [holds in every case; no governing case${limit ? ` (${limit})` : ''}]` : limit ? `  [${limit}]` : '';
+  return `${mark} ${u}  ${label}  (line ${c.line})${c.description ? ` — ${withoutLimitMarker(c.description)}` : ''}${governs}${c.reason ? `\n                     ${c.reason}` : ''}`;
 }
 
 export function exitCodeFor(results: Loaded[]): number {

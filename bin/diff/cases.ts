@@ -16,14 +16,15 @@ export interface CaseCheckChange {
 
 export interface GoverningChange {
   check: string;
-  old: CaseVerdict;
-  new: CaseVerdict;
+  /** null: no governing case (the check holds everywhere without utilizations to compare, or the version has no cases). */
+  old: CaseVerdict | null;
+  new: CaseVerdict | null;
 }
 
 export interface CasesDiff {
   /** Per check and case, what changed (a case judged in only one version is added or removed). */
   changes: CaseCheckChange[];
-  /** Checks whose governing case is another case now. */
+  /** Checks whose governing case is another case now, or that gained or lost a governing case. */
   governing: GoverningChange[];
 }
 
@@ -52,7 +53,9 @@ export function diffCases(oldChecks: CheckEntry[], newChecks: CheckEntry[], tol:
       else if (x.utilization !== null && y.utilization !== null && Math.abs(y.utilization - x.utilization) > tol) changes.push({ check, case: y.case, change: 'utilization', old: x, new: y });
     }
     for (const x of before.values()) changes.push({ check, case: x.case, change: 'removed', old: x, new: null });
-    if (a.governing && b.governing && a.governing.case !== b.governing.case) governing.push({ check, old: a.governing, new: b.governing });
+    // A governing case that appears or disappears is a change as much as one that moves.
+    const ga = a.governing ?? null, gb = b.governing ?? null;
+    if (ga === null ? gb !== null : gb === null || ga.case !== gb.case) governing.push({ check, old: ga, new: gb });
   }
   return { changes, governing };
 }

@@ -86,7 +86,8 @@ const NOW: Record<string, string> = { 'to-fail': 'now FAILS', 'to-pass': 'now ho
 function casesLines(d: DocumentDiff): string[] {
   const name = (c: string | null) => c ?? 'as written';
   const u = (v: { utilization: number | null; pass: boolean | null } | null) => (v === null || v.utilization === null ? '—' : formatUtilization(v.utilization, v.pass));
-  const gov = d.cases!.governing.map((g) => ['>>', g.check, `governing case ${name(g.old.case)} → ${name(g.new.case)}`, `utilization ${u(g.old)} → ${u(g.new)}`]);
+  const governs = (g: { case: string | null } | null) => (g === null ? 'none' : name(g.case));
+  const gov = d.cases!.governing.map((g) => ['>>', g.check, `governing case ${governs(g.old)} → ${governs(g.new)}`, `utilization ${u(g.old)} → ${u(g.new)}`]);
   const marks: Record<string, string> = { 'to-fail': '!!', 'to-pass': 'ok', 'to-not-evaluated': '??', utilization: '··', added: '+ ', removed: '- ' };
   const what = (c: (CaseCheckChange)) => (c.change === 'added' ? 'now judged' : c.change === 'removed' ? 'no longer judged' : c.change === 'utilization' ? 'moved' : NOW[c.change]);
   // A family can change in dozens of cases: the verdict flips of a check are all shown, its moves up to CASES_SHOWN.

@@ -13,6 +13,7 @@ import { compile } from '../../engine/index.js';
 import type { Cell } from '../../engine/index.js';
 import { parseExpression } from '../../cells/math.js';
 import { commentStart } from '../../engine/parse/statements.js';
+import { sameValue, valueOfText } from '../../engine/values/input-value.js';
 
 /** A change that cannot be written; nothing is rewritten when one is raised. */
 export class RewriteError extends Error {
@@ -80,6 +81,12 @@ function padding(oldRegion: string, oldExpr: string, newExpr: string, hasComment
   return ' '.repeat(Math.max(keepAtLeast, width(oldRegion) - width(newExpr)));
 }
 
+/** Do two value texts evaluate (through the sandbox) to the same value? False when either does not evaluate. */
+function sameWrittenValue(a: string, b: string): boolean {
+  const x = valueOfText(a), y = valueOfText(b);
+  return x !== undefined && y !== undefined && sameValue(x, y);
+}
+
 /**
  * Replaces the value text of changed given inputs.
  * @param source the document exactly as read from disk
@@ -96,7 +103,8 @@ export function rewriteGivenValues(source: string, changes: Record<string, strin
   for (const [name, raw] of Object.entries(changes)) {
     const cell = findGiven(doc, name);
     const value = checkValueText(name, raw);
-    if (value !== cell.source) targets.push({ cell, value });
+    // The document's value written another way (6.40 m for 6.4 m, 6400 mm) is no change: the file keeps its text.
+    if (value !== cell.source && !sameWrittenValue(value, cell.source)) targets.push({ cell, value });
   }
   targets.sort((a, b) => b.cell.span.start.line - a.cell.span.start.line);
   const notes: string[] = [];

@@ -21,6 +21,13 @@ import { evaluateUntrusted } from '../sandbox/index.js';
 const CASE_PREFIX = /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*=(?!=)/;
 /** The limitation marker at the end of a check's comment: `[in EQU]`, `[in EQU, axle]`, `[in axle[2]]` (one member of a family). */
 export const LIMIT_MARKER = /\[in\s+((?:[^[\]]|\[\d+\])*)\]\s*$/;
+/**
+ * The check's comment without its `[in …]` marker: the sheet, `check` and the JSON say the limit in words.
+ * @example withoutLimitMarker('overturning [in EQU]') // 'overturning'
+ */
+export function withoutLimitMarker(description: string): string {
+  return description.replace(LIMIT_MARKER, '').trim();
+}
 /** Anything in a comment that looks like a limitation marker (`[in`, `[In`, `[ in:` …): it must be LIMIT_MARKER. */
 const LOOKS_LIKE_LIMIT = /\[\s*in\b/gi;
 /** One name in a marker: a case or family, or one member of a family (`axle[2]`). */

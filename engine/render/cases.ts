@@ -7,7 +7,7 @@
  */
 import type { Cell, CalcBlock } from '../types.js';
 import type { Case, CaseRun, CheckCase } from '../cases/index.js';
-import { LIMIT_MARKER } from '../cases/read.js';
+import { withoutLimitMarker } from '../cases/read.js';
 import { isJudgedIn } from '../cases/envelope.js';
 import { formatValue, formatNumber } from '../values/format.js';
 import { anchorId, escapeHtml } from './escape.js';
@@ -225,7 +225,4 @@ export function renderCasesBlock(_block: CalcBlock, ctx: RenderContext): string 
     + (run.shown ? '' : `<h3 class="vb-h">Envelope: each check in each case</h3>${envelopeHtml(run, ctx)}${plots}`) + '</div>';
 }
 
-/** The check's comment without its `[in …]` marker (the summary says it in words). */
-export function withoutLimitMarker(description: string): string {
-  return description.replace(LIMIT_MARKER, '').trim();
-}
+export { withoutLimitMarker };

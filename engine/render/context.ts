@@ -110,7 +110,8 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
         if (typeof value !== 'object' || value === null || !Object.prototype.hasOwnProperty.call(value, key)) return undefined;
         value = (value as Record<string, unknown>)[key];
       }
-      return { value, unit: path.length === 1 ? cell.displayUnit : null };
+      // A given input is substituted with every digit it was written with, as its table shows it.
+      return { value, unit: path.length === 1 ? cell.displayUnit : null, written: path.length === 1 && cell.kind === 'given' };
     },
   };
   return { doc, states, warnings: warnings ?? new Map(), sigfigs, scope, fieldUses, usersOf, firstCall, units };

@@ -57,10 +57,14 @@ function renderOne(c: CheckDrivers, shown: number): string {
 
 /**
  * The appendix, or '' when there is nothing to show.
+ * @param closing HTML that ends the appendix (the sheet's archive line): kept on one page with the last check's
+ *   table in a wrapper that does not break, so that it never prints on a page alone
  * @example renderDriversAppendix((await explainDocument(text)).checks)
  */
-export function renderDriversAppendix(checks: readonly CheckDrivers[], shown = DRIVERS_SHOWN): string {
+export function renderDriversAppendix(checks: readonly CheckDrivers[], shown = DRIVERS_SHOWN, closing = ''): string {
   if (checks.length === 0) return '';
+  const blocks = checks.map((c) => renderOne(c, shown));
+  if (closing) blocks.push(`<div class="vb-keep-end">${blocks.pop()}${closing}</div>`);
   return `<section class="vb-part vb-appendix" data-part="drivers" aria-label="What drives each check"><h2 class="vb-h">What drives each check</h2>`
     + `<p>For each check, the inputs it depends on, ranked by the <em>swing</em>: the check's utilization with the input moved `
     + `−10 % and +10 % from its value (the bar runs between the two, the dot is the value as written, the dashed tick is 1). `
@@ -68,5 +72,5 @@ export function renderDriversAppendix(checks: readonly CheckDrivers[], shown = D
     + `difference of ±0.1 %; "kinked" gives the one-sided values where they differ. An input at zero moves by the absolute step shown. `
     + `A check without a utilization shows its verdict. The top ${shown} inputs are shown; <code>vaultbook explain FILE --json</code> lists all. `
     + `A large swing marks an input worth checking twice; it is not a safety margin.</p>`
-    + checks.map((c) => renderOne(c, shown)).join('') + '</section>';
+    + blocks.join('') + '</section>';
 }

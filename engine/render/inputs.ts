@@ -30,7 +30,8 @@ export function renderInputOutput(cell: Cell, state: CellState, ctx: RenderConte
   const input = (inner: string) => `<span class="vb-value" data-input="${escapeHtml(name)}" data-source="${escapeHtml(cell.source)}">${inner}</span>`;
   let out: string;
   switch (state.status) {
-    case 'ok': out = input(valueHtml(state.value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit })); break;
+    // An input is shown with every digit it was written with (1.0004 stays 1.0004 on a sheet of 3 significant figures).
+    case 'ok': out = input(valueHtml(state.value, { sigfigs: ctx.sigfigs, unit: cell.displayUnit, written: true })); break;
     case 'error': out = input('<span class="vb-none">—</span>') + diagnosticHtml(state.diagnostic); break;
     case 'blocked': out = input('<span class="vb-none">—</span>') + blockedHtml(state.by, ctx.doc, state.note); break;
     default: out = input('<span class="vb-none">…</span>');

@@ -5,7 +5,7 @@
  */
 import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
-import { engineeringUnit, formatNumber, formatValue, readableUnit, splitQuantity, type UnitSystem } from '../values/format.js';
+import { engineeringUnit, formatNumber, formatValue, readableUnit, sigfigsFor, splitQuantity, type UnitSystem } from '../values/format.js';
 
 export { engineeringUnit, readableUnit } from '../values/format.js';
 import type { CheckResult } from '../types.js';
@@ -108,6 +108,8 @@ export interface ShowOptions {
   engineering?: boolean;
   /** The document's system of units (default 'si'): engineering units are kip, kip/ft, psf … in 'us'. */
   units?: UnitSystem;
+  /** A given input: every digit it was written with (engine/values/format.ts writtenSigfigs), not rounded to `sigfigs`. */
+  written?: boolean;
 }
 
 function unitFor(u: Unit, opts: ShowOptions): string {
@@ -124,19 +126,20 @@ function isCheck(v: unknown): v is CheckResult {
  * @example valueHtml(math.unit(72000, 'N/m'), {sigfigs: 4}) // "72 kN/m"
  */
 export function valueHtml(value: unknown, opts: ShowOptions): string {
-  if (typeof value === 'number') return numberHtml(value, opts.sigfigs);
+  if (typeof value === 'number') return numberHtml(value, sigfigsFor(value, opts));
   if (math.isUnit(value)) {
     const q = splitQuantity(value as Unit, unitFor(value as Unit, opts));
-    if (!q.unit) return numberHtml(q.number, opts.sigfigs);
+    if (!q.unit) return numberHtml(q.number, sigfigsFor(q.number, opts));
     const gap = isAngleMark(q.unit) ? '' : '\u00a0';
-    return `${numberHtml(q.number, opts.sigfigs)}${gap}<span class="vb-unit">${unitHtml(q.unit)}</span>`;
+    return `${numberHtml(q.number, sigfigsFor(q.number, opts))}${gap}<span class="vb-unit">${unitHtml(q.unit)}</span>`;
   }
   if (typeof value === 'string') return value.startsWith('<svg') ? '[figure]' : `“${escapeHtml(value)}”`;
+  const written = opts.written ? { written: true } : {};
   if (Array.isArray(value) && value.length <= 6 && value.every((v) => typeof v === 'number' || math.isUnit(v))) {
-    return `[${value.map((v) => valueHtml(v, { sigfigs: opts.sigfigs, engineering: opts.engineering, units: opts.units })).join(', ')}]`;
+    return `[${value.map((v) => valueHtml(v, { sigfigs: opts.sigfigs, engineering: opts.engineering, units: opts.units, ...written })).join(', ')}]`;
   }
   if (isCheck(value)) return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs }));
-  return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs }));
+  return escapeHtml(formatValue(value, { sigfigs: opts.sigfigs, ...written }));
 }
 
 /**
@@ -144,12 +147,12 @@ export function valueHtml(value: unknown, opts: ShowOptions): string {
  * @example valueTex(math.unit(6.4, 'm'), {sigfigs: 4}) // "6.4\\,\\mathrm{m}"
  */
 export function valueTex(value: unknown, opts: ShowOptions): string | null {
-  if (typeof value === 'number') return numberTex(value, opts.sigfigs);
+  if (typeof value === 'number') return numberTex(value, sigfigsFor(value, opts));
   if (typeof value === 'boolean') return `\\mathrm{${value ? 'true' : 'false'}}`;
   if (math.isUnit(value)) {
     const q = splitQuantity(value as Unit, unitFor(value as Unit, opts));
-    if (!q.unit) return numberTex(q.number, opts.sigfigs);
-    return `${numberTex(q.number, opts.sigfigs)}${isAngleMark(q.unit) ? '' : '\\,'}${unitTex(q.unit)}`;
+    if (!q.unit) return numberTex(q.number, sigfigsFor(q.number, opts));
+    return `${numberTex(q.number, sigfigsFor(q.number, opts))}${isAngleMark(q.unit) ? '' : '\\,'}${unitTex(q.unit)}`;
   }
   if (typeof value === 'string' && !value.startsWith('<svg')) return `\\text{“${texText(value)}”}`;
   return null;

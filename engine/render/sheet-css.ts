@@ -92,6 +92,8 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-cautions ol { margin: 0; padding-left: 5mm; }
 .vb-cautions strong { color: var(--vb-ink); }
 .vb-archive { break-before: avoid; margin-top: 8mm; padding-top: 1.5mm; border-top: 0.5pt solid var(--vb-rule); font-size: 7.5pt; color: var(--vb-muted); overflow-wrap: anywhere; break-inside: avoid; }
+/* The last table of an appendix with the archive line after it: one unit, so the line never prints on a page alone. */
+.vb-keep-end { break-inside: avoid; }
 .vb-hash { font-size: 7pt; }
 .vb-dirty { color: var(--vb-fail); }
 

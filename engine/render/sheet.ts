@@ -98,15 +98,17 @@ export function renderArticle(input: SheetInput): string {
     : renderBlock(b, i, ctx, figureNumber))).join('\n');
   const archive = options.archive ?? { hash: sha256Hex(doc.source) };
   const archiveLine = renderArchive(archive, doc.file);
-  const appendix = input.drivers ? renderDriversAppendix(input.drivers) : '';
+  const appendix = input.drivers ? renderDriversAppendix(input.drivers, undefined, archiveLine) : '';
   // The archive line closes what comes last, as its last child: Chromium keeps it on the page of the text
   // before it (break-before: avoid) only among siblings; after the whole of <main> it could fall onto a page alone.
+  // In the drivers appendix it shares an unbreakable wrapper with the last check's table (break-before alone
+  // left it on a page of its own after a table that filled the page before).
   return `<article class="vb-sheet">\n<style data-part="page-style">${pageStyle(info, doc.file)}</style>\n`
     + `${renderTitleBlock(info, doc.file)}\n`
     + `<div data-part="status">${renderStatus(doc, states, ctx.warnings)}</div>\n`
     + `<section class="vb-part" data-part="check-summary">${renderCheckSummary(doc, states, ctx)}</section>\n`
     + `<section class="vb-part" data-part="diagnostics">${renderDiagnostics(doc, states, ctx.warnings)}</section>\n`
-    + `${renderCautions(ctx.sigfigs)}\n<main class="vb-main">\n${body}\n${appendix ? '' : `${archiveLine}\n`}</main>\n${appendix ? `${appendix}\n${archiveLine}\n` : ''}</article>`;
+    + `${renderCautions(ctx.sigfigs)}\n<main class="vb-main">\n${body}\n${appendix ? '' : `${archiveLine}\n`}</main>\n${appendix ? `${appendix}\n` : ''}</article>`;
 }
 
 /** What a standalone sheet may load: nothing from anywhere, no scripts; inline styles, data: fonts and images only. */

@@ -15,7 +15,7 @@ export interface TexScope {
   /** Is this a value defined in the document (so not a unit or a library constant)? */
   isDefined(name: string): boolean;
   /** The value behind a name or a field chain (`a.H_min` → ['a', 'H_min']); undefined when unknown. */
-  resolve?(path: string[]): { value: unknown; unit: string | null } | undefined;
+  resolve?(path: string[]): { value: unknown; unit: string | null; written?: boolean } | undefined;
   sigfigs: number;
   /** The document's system of units, for values shown in their engineering unit (default 'si'). */
   units?: UnitSystem;
@@ -127,7 +127,7 @@ function substituted(path: string[], w: Walk): Piece | null {
   const found = w.scope.resolve(path);
   if (!found) return null;
   // Fields of kernel results come in SI base units: show them in engineering units.
-  const tex = valueTex(found.value, { sigfigs: w.scope.sigfigs, unit: found.unit, engineering: path.length > 1, units: w.scope.units });
+  const tex = valueTex(found.value, { sigfigs: w.scope.sigfigs, unit: found.unit, engineering: path.length > 1, units: w.scope.units, written: found.written === true });
   if (tex === null) return null;
   const negative = isNegativeValue(found.value);
   return { tex, prec: negative ? Prec.Unary : Prec.Atom, negative, quantity: hasUnit(found.value) };

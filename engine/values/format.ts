@@ -5,7 +5,7 @@ import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { CellState, CheckResult, CompiledDocument } from '../types.js';
 import { isNotAvailable } from '../../cells/not-available.js';
-import { formatNumber } from '../../cells/format-number.js';
+import { formatNumber, NOISE } from '../../cells/format-number.js';
 
 /**
  * The system of units a document is written in: 'us' when its inputs are in US customary units
@@ -98,6 +98,34 @@ export interface FormatOptions {
   sigfigs?: number;
   /** The document's system of units (default 'si'): the units a quantity is shown in when its own are not kept. */
   units?: UnitSystem;
+  /** A given input: shown with every digit it was written with (see writtenSigfigs), never rounded to `sigfigs`. */
+  written?: boolean;
+}
+
+/** The most significant figures a number written by hand is shown with. */
+const WRITTEN_MOST = 12;
+
+/**
+ * The significant figures that show a given input's number with every digit it was written with:
+ * `sigfigs`, or more when fewer would round it (1.0004 at 3 is "1"; a reviewer redoing the sums from
+ * the sheet must have the numbers the calc used). A number that no decimal of 12 significant
+ * figures gives (10/3 m: computed, not written) keeps `sigfigs`. Compared within 1e-12 relative, so
+ * that 12.345 in stored as metres and read back as 12.344999999999999 in still counts as written.
+ * @example writtenSigfigs(1.0004, 3) // 5
+ * @example writtenSigfigs(10 / 3, 3) // 3
+ */
+export function writtenSigfigs(x: number, sigfigs: number): number {
+  if (!Number.isFinite(x) || Math.abs(x) < NOISE) return sigfigs;
+  for (let sf = sigfigs; sf <= WRITTEN_MOST; sf++) {
+    if (Math.abs(Number(math.format(x, { precision: sf })) - x) <= 1e-12 * Math.abs(x)) return sf;
+  }
+  return sigfigs;
+}
+
+/** The significant figures one number is shown with under `opts`. */
+export function sigfigsFor(x: number, opts: FormatOptions): number {
+  const sf = opts.sigfigs ?? 4;
+  return opts.written ? writtenSigfigs(x, sf) : sf;
 }
 
 /** Compact unit text: 'kN / m' → 'kN/m'. */
@@ -209,12 +237,12 @@ function isCheck(v: unknown): v is CheckResult {
  * @example formatValue(math.unit(72000, 'N/m')) // "72 kN/m"
  */
 export function formatValue(value: unknown, opts: FormatOptions = {}, unit?: string | null): string {
-  const sf = opts.sigfigs ?? 4;
-  if (typeof value === 'number') return formatNumber(value, sf);
+  if (typeof value === 'number') return formatNumber(value, sigfigsFor(value, opts));
   if (typeof value === 'boolean') return value ? 'true' : 'false';
   if (typeof value === 'string') return value.startsWith('<svg') ? '[figure]' : value;
   if (math.isUnit(value)) {
     const q = splitQuantity(value as Unit, unit, opts.units);
+    const sf = sigfigsFor(q.number, opts);
     return q.unit ? `${formatNumber(q.number, sf)} ${q.unit}` : formatNumber(q.number, sf);
   }
   if (isCheck(value)) {

@@ -5,7 +5,7 @@ import type { Unit } from 'mathjs';
 import { math } from '../../cells/math.js';
 import type { CheckResult } from '../types.js';
 import { isNotAvailable } from '../../cells/not-available.js';
-import { formatValue, formatNumber, splitQuantity, NOISE, type FormatOptions } from './format.js';
+import { formatValue, formatNumber, sigfigsFor, splitQuantity, NOISE, type FormatOptions } from './format.js';
 
 /** Drops floating-point noise (51.20000000000001 → 51.2) so JSON output diffs cleanly. */
 function clean(x: number): number {
@@ -41,7 +41,7 @@ export function toJsonValue(value: unknown, opts: FormatOptions = {}, unit?: str
     return { value: Number.isFinite(q.number) ? clean(q.number) : String(q.number), unit: q.unit || null, text };
   }
   if (typeof value === 'number') {
-    const text = formatNumber(value, opts.sigfigs);
+    const text = formatNumber(value, sigfigsFor(value, opts));
     if (isInfinity(value)) return infinite(text, null);
     return { value: Number.isFinite(value) ? clean(value) : String(value), unit: null, text };
   }

@@ -63,6 +63,23 @@ describe.skipIf(!haveChromium || !havePoppler)('printing a sheet with Chromium',
     expect(pagesOf(out)[0]).toContain('THIS SHEET HAS 3 ERRORS');
   }, 120_000);
 
+  it('render --drivers: the archive line ends the last page with the appendix\'s last table, never on a page alone', async () => {
+    // The clerestory template's appendix filled its page to the end, and the archive line printed alone on the next.
+    const file = fileURLToPath(new URL('../../templates/clerestory.md', import.meta.url));
+    const { html } = await renderDocument(readFileSync(file, 'utf8'), 'clerestory.md', {}, { hash: 'f'.repeat(64) }, undefined, true);
+    const out = `${artifacts}clerestory-drivers.pdf`;
+    await printPdf(html, out, printer);
+    const pages = pagesOf(out);
+    expect(pages[pages.length - 1]).toContain('source clerestory.md · SHA-256');
+    pages.forEach((page, i) => {
+      // The page without its running header (first line), running footer (from the project's name on) and archive line.
+      const lines = page.split('\n').filter((l) => l.trim());
+      const footerAt = lines.findIndex((l) => /^\s*Hartwell Hill College/.test(l));
+      const body = lines.slice(1, footerAt < 0 ? undefined : footerAt).filter((l) => !/^\s*source \S+ · SHA-256/.test(l));
+      expect(body.join(' ').trim().length, `page ${i + 1} of ${pages.length} holds more than the archive line`).toBeGreaterThan(100);
+    });
+  }, 180_000);
+
   it('the first page is saved as a screenshot (screen) and as printed (PDF page 1) for review', async () => {
     const file = fixture('verdicts');
     const { html } = await renderDocument(readFileSync(file, 'utf8'), 'verdicts.md', {}, { hash: 'f'.repeat(64) });

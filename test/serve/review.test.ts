@@ -153,6 +153,22 @@ describe('compareToDocument on a record result (a kernel call)', () => {
   });
 });
 
+describe('compareToDocument of a given input', () => {
+  it('shows an edited input before and after with the digits each was written with, not the sheet\'s 3 figures', async () => {
+    const doc = compile(['```given', 'p = 1.0004  # factor', 'L = 5.4 m  # span', '```'].join('\n'), { file: 'p.md' });
+    const session = startSession(doc);
+    const baseline = new Map(await session.settle());
+    expect(session.setInput('p', '1.0005')).toBeNull();
+    expect(session.setInput('L', '5.4125 m')).toBeNull();
+    const now = await session.settle();
+    session.dispose();
+    const change = (id: string) => compareToDocument(doc.graph.cells.find((c) => c.id === id)!, baseline.get(id), now.get(id), 3);
+    // At 3 figures both sides of each read alike ("1 → 1", "5.41 m" for 5.4125 m), which hides the edit.
+    expect(change('p')).toMatchObject({ kind: 'quantity', before: '1.0004', after: '1.0005' });
+    expect(change('L')).toMatchObject({ kind: 'quantity', before: '5.4 m', after: '5.4125 m' });
+  });
+});
+
 describe('review panel', () => {
   it('inputChanges and renderReviewPanel list document → now for each changed input', () => {
     const doc = compile(TEXT, { file: 'barrel.md' });

@@ -126,6 +126,14 @@ describe('rewriteGivenValues', () => {
     expect(r.text).toBe(DOC);
   });
 
+  it('rewriteGivenValues skips the document\'s value written another way (6.40 m, 6400 mm for 6.4 m): no change, the text kept', () => {
+    const r = rewriteGivenValues(DOC, { L: '6.40 m', t: '230 mm' });
+    expect(r.changed).toEqual([]);
+    expect(r.text).toBe(DOC);
+    // Another value is still written.
+    expect(rewriteGivenValues(DOC, { L: '6.41 m' }).changed).toEqual(['L']);
+  });
+
   it('rewriteGivenValues refuses unknown names, calc values, bad text — and changes nothing', () => {
     const cases: Array<[Record<string, string>, RegExp]> = [
       [{ span: '7 m' }, /no input called "span"/],

@@ -35,6 +35,22 @@ describe('diff with cases', () => {
     expect(text).toMatch(/c_R\s+governing case axle\[1\] → STR\s+utilization 0\.95 → 1\.31/); // one formatter: two decimals, rounded up
   });
 
+  it('diffDocuments reports a governing case that disappears or appears (no governing case is "none"), in text and JSON', async () => {
+    // c_M as `<` has no utilization, so a check that holds in every case has no governing case (README, Cases).
+    // Old `<=`: STR governs, M = 1.35 · 10 · 3 · 3 / 6 = 20.25 kN m against 30 kN m (0.675).
+    const strict = (s: string) => s.replace('c_M = M <= 30 kN m', 'c_M = M < 30 kN m');
+    const toNone = await versions(beam('3 m', '30 kN m'), strict(beam('3 m', '30 kN m')));
+    const g = toNone.cases!.governing.find((x) => x.check === 'c_M');
+    expect(g).toEqual({ check: 'c_M', old: { case: 'STR', pass: true, utilization: expect.closeTo(20.25 / 30, 12) }, new: null });
+    expect(JSON.parse(JSON.stringify(toNone)).cases.governing.find((x: { check: string }) => x.check === 'c_M').new).toBe(null);
+    expect(formatDiff(toNone)).toMatch(/>>\s+c_M\s+governing case STR → none\s+utilization 0\.68 → —/);
+    const fromNone = await versions(strict(beam('3 m', '30 kN m')), beam('3 m', '30 kN m'));
+    expect(fromNone.cases!.governing.find((x) => x.check === 'c_M')).toMatchObject({ old: null, new: { case: 'STR' } });
+    expect(formatDiff(fromNone)).toMatch(/c_M\s+governing case none → STR\s+utilization — → 0\.68/);
+    // c_R (left alone) keeps its governing case: not listed.
+    expect(toNone.cases!.governing.map((x) => x.check)).toEqual(['c_M']);
+  });
+
   it('diffDocuments of documents without cases has no cases part (the diff JSON is as before)', async () => {
     const plain = (cap: string) => [fence('given', 'a = 1 m'), fence('check', `a <= ${cap}`)].join('\n');
     const d = await versions(plain('2 m'), plain('3 m'));

@@ -148,6 +148,30 @@ describe('--case NAME', () => {
   });
 });
 
+describe('a check limited by [in …] on the command line', () => {
+  it('check prints the limit in words, never the raw [in …] marker; the JSON description leaves it out and judged_in names it', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'vaultbook-limit-'));
+    const file = join(dir, 'beam.md');
+    writeFileSync(file, BEAM);
+    const all: string[] = [];
+    await main(['check', file], (s) => all.push(s), () => {});
+    const line = all.find((l) => l.includes('c_R:'))!;
+    expect(line).not.toContain('[in ');
+    expect(line).toContain('— left reaction  [governing: ');
+    expect(line).toContain('(judged in STR, axle only)]');
+    // Shown in one case it is not judged in, the line still says where it is judged.
+    const one: string[] = [];
+    await main(['check', file, '--case', 'EQU'], (s) => one.push(s), () => {});
+    expect(one.find((l) => l.includes('c_R:'))).toMatch(/not judged in this case .*— left reaction {2}\[judged in STR, axle only\]$/);
+    const json: string[] = [];
+    await main(['check', file, '--json'], (s) => json.push(s), () => {});
+    const c = JSON.parse(json.join('\n')).checks.find((x: { name: string }) => x.name === 'c_R');
+    expect([c.description, c.judged_in]).toEqual(['left reaction', ['STR', 'axle']]);
+    // A check without a marker has no judged_in.
+    expect(JSON.parse(json.join('\n')).checks.find((x: { name: string }) => x.name === 'c_M')).not.toHaveProperty('judged_in');
+  });
+});
+
 describe('--set of another dimension (the rule the live page applies to an edit)', () => {
   it('--set refuses a value whose dimension is not the input\'s, naming both, on the input\'s line; check exits 2', async () => {
     const problems = (overrides: Record<string, string>) => compile(BEAM, { file: 'beam.md', overrides }).diagnostics.map((d) => `${d.line}:${d.column} ${d.severity} ${d.ruleId} ${d.message}`);

@@ -79,6 +79,19 @@ describe('live page with cases', () => {
     } finally { await close(); }
   });
 
+  it('a check limited to the case shown flips in the review panel under its description, without the [in …] marker', async () => {
+    // c_R is judged in STR only: R = 1.35 · 10 · 3 / 6 = 6.75 kN > 6 kN fails there (5 kN as written holds).
+    const text = BEAM.replace('c_M = M <= 20 kN m  # bending', 'c_M = M <= 20 kN m  # bending\nc_R = gamma_G * P * (L - x_P) / L <= 6 kN  # left reaction [in STR]');
+    const { page, close } = await open('e.md', undefined, text);
+    try {
+      await page.selectOption('#lv-case', 'STR');
+      await page.waitForFunction(() => document.querySelector('[data-cell="c_R"]')?.textContent?.includes('FAILS'));
+      const panel = (await page.locator('#lv-review').textContent()) ?? '';
+      expect(panel).toContain('left reaction ✗ holds → fails');
+      expect(panel).not.toContain('[in ');
+    } finally { await close(); }
+  });
+
   it('serve --case axle[1] opens on that case', async () => {
     const { page, close } = await open('c.md', 'axle[1]');
     try {

@@ -13,6 +13,19 @@ function byData(root: HTMLElement, attr: string, value: string): HTMLElement[] {
 }
 
 describe('renderSheet({doc, states})', () => {
+  it('renderSheet sets backticks in descriptions as code (inputs, working, checks and the checks summary), escaped and never as markup', async () => {
+    const text = ['```given', 'a_1 = 2 m  # the `a_1` length, not <b>bold</b>', '```', '```calc', 'A = a_1^2  # area from `a_1^2`', '```',
+      '```check', 'c_A = A <= 5 m^2  # `A` within `A_max`', '```'].join('\n');
+    const r = await renderText(text);
+    const root = parse(r.html);
+    const codes = (sel: string) => root.querySelectorAll(`${sel} code`).map((c) => c.text);
+    expect(codes('.vb-inputs .vb-desc')).toEqual(['a_1']);
+    expect(r.html).toContain('not &lt;b&gt;bold&lt;/b&gt;');
+    expect(r.html).toContain('area from <code>a_1^2</code>');
+    expect(codes('[data-part="check-summary"]')).toEqual(['A', 'A_max']);
+    expect(r.html).not.toMatch(/`(a_1|A)`/);
+  });
+
   it('renderSheet gives every cell one output region whose inner HTML is renderCellOutput', async () => {
     const r = await renderText(fixture('verdicts'));
     const root = parse(r.html);
