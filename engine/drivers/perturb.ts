@@ -34,6 +34,8 @@ export interface Reading {
 function failureOf(states: Map<string, CellState>, id: string): string {
   let s = states.get(id);
   for (let hops = 0; s?.status === 'blocked' && hops < 1000; hops++) {
+    // Stopped by a field that is not available: the note says which and why (its source cell evaluated fine).
+    if (s.note) return `${id}: ${s.note}`;
     id = s.by;
     s = states.get(id);
   }

@@ -100,6 +100,16 @@ describe('explainDocument', () => {
     expect(x.note).toMatch(/^not computed below the value: r: /);
   });
 
+  it('explainDocument says which field was not available where a check is not computed, not just "not computed"', async () => {
+    // Statics of a rectangular wall (common practice): W = 3 m × 0.6 m × 20 kN/m³ = 36 kN; e = T·3 m / W leaves the
+    // base (e > 0.3 m) above T = 3.6 kN, so at T + 10 % = 3.74 kN the base pressure is not available.
+    const text = [fence('given', 'T = 3.4 kN'), fence('calc', 'w = buttress({height: 3 m, width: 0.6 m, depth: 1 m, unit_weight: 20 kN/m^3, T: T, z_T: 3 m})'),
+      fence('check', 'c_s = w.sigma_max <= 500 kN/m^2')].join('\n');
+    const t = byName((await explainDocument(text, { file: 'wall.md' })).checks[0]!).T!;
+    expect(t.u_plus).toBeNull();
+    expect(t.note).toMatch(/^not computed above the value: c_s: .*sigma_max is not available/);
+  });
+
   it('explainDocument gives a plain comparison its verdict at ±10 %, and moves an input at zero by a stated absolute step', async () => {
     const e = await explainDocument(ARCH, { file: 'arch.md', targets: ['c_L'] });
     const c = e.checks[0]!;
