@@ -22,6 +22,8 @@ interface Loaded {
   /** Cell id → the edit that last changed it, for cells the page may not have yet. */
   unsent: Map<string, number>;
   seq: number;
+  /** Each cell's evaluations when the load settled: the page counts those of its edits only. */
+  atLoad: Map<string, number>;
 }
 
 let current: Loaded | null = null;
@@ -41,7 +43,7 @@ async function load(m: Extract<ToWorker, { type: 'load' }>): Promise<void> {
   const options = { standalone: false, ...(m.archive ? { archive: m.archive } : {}) };
   const ctx = makeRenderContext(doc, session.states, session.warnings, options);
   const s = doc.meta.sigfigs;
-  const loaded: Loaded = { token: m.token, doc, session, ctx, baseline, sigfigs: typeof s === 'number' ? s : 4, unsent: new Map(), seq: 0 };
+  const loaded: Loaded = { token: m.token, doc, session, ctx, baseline, sigfigs: typeof s === 'number' ? s : 4, unsent: new Map(), seq: 0, atLoad: new Map(session.evaluations) };
   session.subscribe((id, state) => { if (state.status !== 'pending') loaded.unsent.set(id, loaded.seq); });
   current = loaded;
   post({ type: 'loaded', token: m.token });
@@ -68,7 +70,7 @@ async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<vo
     ['check-summary', renderCheckSummary(doc, session.states, ctx)],
     ['diagnostics', renderDiagnostics(doc, session.states, session.warnings)],
   ];
-  const evaluations = [...session.evaluations.values()].reduce((a, b) => a + b, 0);
+  const evaluations = [...session.evaluations].flatMap(([id, n]): Array<[string, number]> => (n > (c.atLoad.get(id) ?? 0) ? [[id, n - (c.atLoad.get(id) ?? 0)]] : []));
   post({ type: 'result', seq: m.seq, token: c.token, cells, parts, evaluations });
 }
 

@@ -24,6 +24,7 @@ export interface CellPatch {
 
 export type FromWorker =
   | { type: 'loaded'; token: number }
-  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: number }
+  /** `evaluations`: each cell's evaluations for the page's edits since the load (the load's own are not counted). */
+  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: Array<[string, number]> }
   | { type: 'cases'; generation: number; token: number; blocks: Array<[number, string]>; summary: string }
   | { type: 'failed'; message: string };
