@@ -9,6 +9,12 @@
  * the page then fires `vaultbook:patched`. Marked cells further away are
  * patched in idle time right after (or at once when scrolled to, or before
  * printing); when none is left the page fires `vaultbook:settled`.
+ *
+ * By default the evaluation runs in a worker (site/worker/): an edit is sent there, the cells it may
+ * move are marked waiting, and the worker answers with the changed cells' HTML. The page swaps them a
+ * slice at a time (WORKER_SLICE_MS, WORKER_SLICE_CHARS), one slice per frame, those in or near view
+ * first; `vaultbook:patched` fires when those are in, `vaultbook:settled` when all are. Without a
+ * worker, or once it fails, the page evaluates on its main thread as above (fallBack).
  */
 import { compile, startSession } from '../engine/index.js';
 import { readOverride } from '../engine/parse/override.js';
@@ -31,6 +37,11 @@ export interface PatchEvent {
   renderStart: number;
   /** performance.now() when the patch finished. */
   at: number;
+  /**
+   * Worker mode, `vaultbook:patched`: performance.now() (the page's clock) when the worker took the
+   * edit, when its evaluation settled, and when it posted the result.
+   */
+  worker?: { received: number; settled: number; posted: number };
 }
 
 export interface LoadResult {
@@ -67,6 +78,9 @@ const WORKER_SLICE_MS = 4;
  * slice is also bounded by what it adds (about 1,000 elements of a typical sheet).
  */
 const WORKER_SLICE_CHARS = 24_000;
+
+/** Evaluating in a worker: how long the page changes that go with an edit wait for its answer (ms). */
+const ANSWER_WAIT_MS = 40;
 
 /**
  * Evaluate in a worker (site/worker/evaluate.ts), off the page's main thread: the default wherever
@@ -176,6 +190,9 @@ export class LiveSheet {
   private slicing = false;
   /** Worker mode: a result is being patched whose `vaultbook:patched` has not been fired yet. */
   private awaitedPatch = false;
+  private withAnswerQueue: Array<() => void> = [];
+  private withAnswerTimer: ReturnType<typeof setTimeout> | undefined;
+  private workerTimes: PatchEvent['worker'];
   /** Why the page evaluates on its main thread although a worker was chosen (null: it does not). */
   fallbackReason: string | null = null;
 
@@ -413,15 +430,39 @@ export class LiveSheet {
     this.touched = true;
     this.turnStart = performance.now();
     this.post({ ...m, seq: ++this.seq, accepted: this.accepted });
-    for (const id of this.downstream.get(name) ?? []) {
-      if (this.waiting.has(id)) continue;
-      const el = this.cells.get(id);
-      this.waiting.add(id);
-      if (el) {
-        el.classList.add(WAITING_CLASS);
-        el.setAttribute('aria-busy', 'true');
+    const moved = (this.downstream.get(name) ?? []).filter((id) => !this.waiting.has(id));
+    for (const id of moved) this.waiting.add(id);
+    // Marked on the page with the answer's task, or once the answer is late: a quick answer then
+    // patches in the task after the edit's, with no frame drawn in between for the marks.
+    this.withAnswer(() => {
+      for (const id of moved) {
+        const el = this.waiting.has(id) ? this.cells.get(id) : undefined;
+        el?.classList.add(WAITING_CLASS);
+        el?.setAttribute('aria-busy', 'true');
       }
+    });
+  }
+
+  /**
+   * Runs a change of the page that goes with an edit: evaluating in a worker, together with the
+   * worker's answer (first thing in the task that patches it) or after `ANSWER_WAIT_MS` if the answer
+   * is later; at once otherwise. An edit's own task then writes nothing to the page, so the browser
+   * draws no frame before a quick answer is patched.
+   */
+  withAnswer(fn: () => void): void {
+    if (!this.worker || this.accepted === this.seq) {
+      fn();
+      return;
     }
+    this.withAnswerQueue.push(fn);
+    this.withAnswerTimer ??= setTimeout(() => this.answerArrived(), ANSWER_WAIT_MS);
+  }
+
+  /** Runs the page changes held for the answer (see withAnswer). */
+  private answerArrived(): void {
+    clearTimeout(this.withAnswerTimer);
+    this.withAnswerTimer = undefined;
+    for (const fn of this.withAnswerQueue.splice(0)) fn();
   }
 
   /** Worker mode: a cell's new value arrived (or none is coming): no longer marked waiting. */
@@ -446,7 +487,10 @@ export class LiveSheet {
     // An answer to an edit that is no longer the latest: dropped (the next answer repeats its cells).
     if (m.seq !== this.seq) return;
     this.accepted = m.seq;
+    this.answerArrived();
     this.workerEvaluations = new Map(m.evaluations);
+    const [received, settled, posted] = m.times.map((t) => t - performance.timeOrigin) as [number, number, number];
+    this.workerTimes = { received, settled, posted };
     for (const c of m.cells) {
       this.incoming.set(c.id, c.html);
       this.workerChanges.set(c.id, c.change);
@@ -476,6 +520,7 @@ export class LiveSheet {
     this.incoming.clear();
     this.incomingParts.clear();
     this.workerChanges.clear();
+    this.answerArrived();
     for (const id of [...this.waiting]) this.unmark(id);
     this.inView = [];
     if (!this.doc) return; // not loaded yet: the load evaluates on the main thread
@@ -711,7 +756,10 @@ export class LiveSheet {
     // Every element in or near view has its new value: the patch the edit waited for.
     if (this.awaitedPatch) {
       this.awaitedPatch = false;
-      const event: PatchEvent = { changed: this.inViewChanged, patched: this.inViewPatched, deferred: this.deferred.size, computeStart: this.turnStart || this.renderStart, renderStart: this.renderStart, at: performance.now() };
+      const event: PatchEvent = {
+        changed: this.inViewChanged, patched: this.inViewPatched, deferred: this.deferred.size, computeStart: this.turnStart || this.renderStart,
+        renderStart: this.renderStart, at: performance.now(), ...(this.workerTimes ? { worker: this.workerTimes } : {}),
+      };
       document.dispatchEvent(new CustomEvent('vaultbook:patched', { detail: event }));
       this.turnStart = 0;
     }
@@ -728,7 +776,7 @@ export class LiveSheet {
 
   /**
    * Schedules the next slice of waiting cells: in idle time, as long as the idle period allows; in
-   * worker mode one short slice per task, so that no task of the page grows long.
+   * worker mode one short slice per frame, so that no task of the page grows long.
    */
   private later(): void {
     if (this.worker) {

@@ -50,6 +50,7 @@ async function load(m: Extract<ToWorker, { type: 'load' }>): Promise<void> {
 }
 
 async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<void> {
+  const received = performance.timeOrigin + performance.now();
   const c = current;
   if (!c) return;
   for (const [id, seq] of c.unsent) if (seq <= m.accepted) c.unsent.delete(id);
@@ -57,6 +58,7 @@ async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<vo
   if (m.type === 'set') c.session.setInput(m.name, m.value); // the page checked the text before sending it
   else c.session.resetInput(m.name);
   await c.session.settle();
+  const settled = performance.timeOrigin + performance.now();
   const cells: CellPatch[] = [];
   for (const id of c.unsent.keys()) {
     const cell = c.doc.graph.byId.get(id);
@@ -71,7 +73,7 @@ async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<vo
     ['diagnostics', renderDiagnostics(doc, session.states, session.warnings)],
   ];
   const evaluations = [...session.evaluations].flatMap(([id, n]): Array<[string, number]> => (n > (c.atLoad.get(id) ?? 0) ? [[id, n - (c.atLoad.get(id) ?? 0)]] : []));
-  post({ type: 'result', seq: m.seq, token: c.token, cells, parts, evaluations });
+  post({ type: 'result', seq: m.seq, token: c.token, cells, parts, evaluations, times: [received, settled, performance.timeOrigin + performance.now()] });
 }
 
 async function cases(m: Extract<ToWorker, { type: 'cases' }>): Promise<void> {

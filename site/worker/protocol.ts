@@ -24,7 +24,11 @@ export interface CellPatch {
 
 export type FromWorker =
   | { type: 'loaded'; token: number }
-  /** `evaluations`: each cell's evaluations for the page's edits since the load (the load's own are not counted). */
-  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: Array<[string, number]> }
+  /**
+   * `evaluations`: each cell's evaluations for the page's edits since the load (the load's own are not
+   * counted); `times`: when the worker took the edit, when its evaluation settled and when the result
+   * was posted (performance.timeOrigin + performance.now(), comparable across threads).
+   */
+  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: Array<[string, number]>; times: [number, number, number] }
   | { type: 'cases'; generation: number; token: number; blocks: Array<[number, string]>; summary: string }
   | { type: 'failed'; message: string };

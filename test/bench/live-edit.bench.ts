@@ -57,6 +57,8 @@ interface Sample {
   render: number;
   evaluations: number;
   elements: number;
+  /** worker mode: page → worker, evaluation, rendering in the worker, worker → page (ms) */
+  hops?: [number, number, number, number];
 }
 
 interface InputInfo { name: string; dependents: number; number: number }
@@ -99,7 +101,7 @@ async function timeEdit(page: Page, input: InputInfo, step: number, cases = fals
     const field = document.querySelector<HTMLInputElement>(`input.lv-edit[data-edit="${name}"]`)!;
     // A bare number: the page keeps the document's unit. Alternate up and down by a few per cent.
     const text = String(Number((number * (1 + (step % 2 ? -1 : 1) * 0.01 * (1 + (step % 7)))).toPrecision(6)));
-    type Detail = { at: number; patched: string[]; computeStart: number; renderStart: number };
+    type Detail = { at: number; patched: string[]; computeStart: number; renderStart: number; worker?: { received: number; settled: number; posted: number } };
     // An edit that changes nothing (the value in use typed again) patches nothing: give up on it after 10 s.
     const on = (event: string) => Promise.race([
       new Promise<Detail>((ok) => document.addEventListener(event, (e) => ok((e as CustomEvent).detail), { once: true })),
@@ -116,6 +118,8 @@ async function timeEdit(page: Page, input: InputInfo, step: number, cases = fals
     const before = total();
     field.value = text;
     field.dispatchEvent(new Event('input', { bubbles: true }));
+    // As when typing, the field shows the new text before Enter is pressed: a frame is drawn first.
+    await new Promise((ok) => requestAnimationFrame(() => setTimeout(ok, 0)));
     // An edit applies when committed (Enter); the task that runs it is timed too (a message posted
     // before it is handled right after that task and its microtasks end).
     const taskEnd = new Promise<number>((ok) => { const ch = new MessageChannel(); ch.port1.onmessage = () => ok(performance.now()); ch.port2.postMessage(0); });
@@ -142,12 +146,13 @@ async function timeEdit(page: Page, input: InputInfo, step: number, cases = fals
       patched: p.at - t0, painted: painted - t0, settled: s.at - t0,
       wait: p.computeStart - t0, evaluate: p.renderStart - p.computeStart, render: p.at - p.renderStart,
       evaluations: total() - before, elements: s.patched.length,
+      ...(p.worker ? { hops: [p.worker.received - p.computeStart, p.worker.settled - p.worker.received, p.worker.posted - p.worker.settled, p.renderStart - p.worker.posted] as [number, number, number, number] } : {}),
     };
   }, { name: input.name, number: input.number, step, cases });
 }
 
 function summary(label: string, samples: Sample[]): string[] {
-  const m = (k: keyof Sample) => quantile(samples.map((s) => s[k]), 0.5);
+  const m = (k: Exclude<keyof Sample, 'hops'>) => quantile(samples.map((s) => s[k]), 0.5);
   const p90 = quantile(samples.map((s) => s.patched), 0.9);
   return [
     `live-edit: ${label}: Enter → patched page median ${m('patched').toFixed(1)} ms (p90 ${p90.toFixed(1)} ms; target ≤ 16 ms: ${m('patched') <= 16 ? 'met' : 'NOT met'})`,
@@ -192,11 +197,14 @@ export async function responsiveness(context: BrowserContext, url: string, worke
     const lightNames = inputs.filter((i) => i.dependents <= LIGHT).map((i) => i.name);
     const lightMedian = light.length ? quantile(light.map((s) => s.patched), 0.5) : NaN;
     const worst = [...perInput].sort((a, b) => b.longest - a.longest)[0];
+    const hops = light.flatMap((s) => (s.hops ? [s.hops] : []));
+    const hop = (i: number) => quantile(hops.map((h) => h[i]!), 0.5).toFixed(1);
+    const phases = hops.length ? `; medians: page → worker ${hop(0)} ms, evaluate ${hop(1)} ms, render in the worker ${hop(2)} ms, worker → page ${hop(3)} ms` : '';
     return [
-      `live-edit: barrel template, evaluation ${mode}: longest main-thread task per input, from Enter until every cell is patched and the cases are shown judged again (${PER_INPUT - 1} edits each after one warm-up; target ≤ 50 ms for every input): `
+      `live-edit: barrel template, evaluation ${mode}: longest main-thread task per input, from Enter until every cell is patched and the cases are shown judged again (${PER_INPUT - 1} edits each after one warm-up; the long-task API reports tasks of 50 ms and more, so a figure below 50 is the edit's own task; target ≤ 50 ms for every input): `
         + perInput.map((p) => `${p.input.name} ${p.longest.toFixed(0)}`).join(', ') + ' ms',
       `live-edit: barrel template, evaluation ${mode}: longest task ${worst ? `${worst.longest.toFixed(0)} ms (${worst.input.name})` : '—'}; inputs over 50 ms: ${over.length ? over.map((p) => p.input.name).join(', ') : 'none'} (target ${over.length ? 'NOT met' : 'met'})`,
-      `live-edit: barrel template, evaluation ${mode}: light inputs (≤ ${LIGHT} dependents: ${lightNames.join(', ')}): Enter → patched median ${lightMedian.toFixed(1)} ms over ${light.length} edits (target ≤ 16 ms: ${lightMedian <= 16 ? 'met' : 'NOT met'})`,
+      `live-edit: barrel template, evaluation ${mode}: light inputs (≤ ${LIGHT} dependents: ${lightNames.join(', ')}): Enter → patched median ${lightMedian.toFixed(1)} ms over ${light.length} edits (target ≤ 16 ms: ${lightMedian <= 16 ? 'met' : 'NOT met'})${phases}`,
     ];
   } finally {
     await page.close();
