@@ -182,6 +182,8 @@ export class LiveSheet {
   private waiting = new Set<string>();
   private downstream = new Map<string, string[]>();
   private casesWanted: { generation: number; done: (ok: boolean) => void } | null = null;
+  private driversWanted: { generation: number; done: (html: string | null | undefined) => void } | null = null;
+  private driversGeneration = 0;
   /** Worker mode: the in-view elements of the result being patched, a slice per task; then `deferred`. */
   private inView: string[] = [];
   private inViewChanged: string[] = [];
@@ -478,6 +480,10 @@ export class LiveSheet {
       this.fallBack(`the worker failed: ${m.message}`);
       return;
     }
+    if (m.type === 'drivers') {
+      if (this.driversWanted?.generation === m.generation) this.driversWanted.done(m.html);
+      return;
+    }
     if (m.type === 'loaded' || m.token !== this.token) return;
     if (m.type === 'cases') {
       // An answer to an older request (a newer one is on its way): dropped.
@@ -517,6 +523,8 @@ export class LiveSheet {
     this.token++;
     this.casesWanted?.done(false);
     this.casesWanted = null;
+    this.driversWanted?.done(undefined);
+    this.driversWanted = null;
     this.incoming.clear();
     this.incomingParts.clear();
     this.workerChanges.clear();
@@ -560,6 +568,20 @@ export class LiveSheet {
     return new Promise((ok) => {
       this.casesWanted = { generation, done: ok };
       this.post({ type: 'cases', generation, trials });
+    });
+  }
+
+  /**
+   * Worker mode: what drives a check, worked out in the worker with the page's trial values.
+   * @returns the drivers table's HTML, null when the check could not be explained, undefined when a
+   *   newer request came first or the worker failed (the page then works it out itself)
+   */
+  driversInWorker(text: string, target: string): Promise<string | null | undefined> {
+    this.driversWanted?.done(undefined);
+    const generation = ++this.driversGeneration;
+    return new Promise((done) => {
+      this.driversWanted = { generation, done: (html) => { if (this.driversWanted?.generation === generation) this.driversWanted = null; done(html); } };
+      this.post({ type: 'drivers', generation, text, file: this.doc.file ?? '', overrides: Object.fromEntries(this.overrides), target });
     });
   }
 

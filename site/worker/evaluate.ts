@@ -10,6 +10,8 @@ import type { CellState, CompiledDocument, Session } from '../../engine/index.js
 import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderStatus, type RenderContext } from '../sheet.js';
 import { compareToDocument } from '../review.js';
 import { judgeWithTrials } from '../cases.js';
+import { explainDocument } from '../../engine/drivers/index.js';
+import { renderDriversAppendix } from '../../engine/render/drivers.js';
 import type { CellPatch, FromWorker, ToWorker } from './protocol.js';
 
 interface Loaded {
@@ -88,8 +90,19 @@ async function cases(m: Extract<ToWorker, { type: 'cases' }>): Promise<void> {
   post({ type: 'cases', generation: m.generation, token: c.token, blocks, summary: renderCheckSummary(c.doc, c.session.states, c.ctx) });
 }
 
+/** What drives a check: its own document and sessions, so it runs beside the edits rather than before them. */
+async function drivers(m: Extract<ToWorker, { type: 'drivers' }>): Promise<void> {
+  const e = await explainDocument(m.text, { file: m.file, overrides: m.overrides, targets: [m.target] });
+  const check = e.checks[0];
+  post({ type: 'drivers', generation: m.generation, html: check ? renderDriversAppendix([check]) : null });
+}
+
 self.addEventListener('message', (e: MessageEvent<ToWorker>) => {
   const m = e.data;
+  if (m.type === 'drivers') {
+    drivers(m).catch((err: Error) => post({ type: 'failed', message: err.message }));
+    return;
+  }
   queue = queue.then(() => (m.type === 'load' ? load(m) : m.type === 'cases' ? cases(m) : edit(m))).catch((err: Error) => {
     post({ type: 'failed', message: err.message });
   });

@@ -7,9 +7,13 @@
  * without a worker, or whose worker cannot start or fails, evaluates on its main thread.
  */
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { explainDocument } from '../../engine/drivers/index.js';
+import { formatNumber } from '../../engine/index.js';
 import type { Page } from 'playwright-core';
 import { launchBrowser, openLive, nextEvent, type Browser, type Live } from './serve-helpers.js';
+import { rawRequest } from '../serve/helpers.js';
 
 const BARREL = join(process.cwd(), 'templates', 'barrel-vault.md');
 const LIMIT_MS = 150;
@@ -141,6 +145,21 @@ describe('evaluating in a worker', { timeout: 180_000 }, () => {
     expect(await sheetHtml(inWorker.page)).toEqual(await sheetHtml(onMain.page));
   });
 
+  it('the built page bundles the worker as a file of its own, served beside the page\'s script', async () => {
+    const { port } = inWorker.server;
+    const page = await rawRequest(port, '/');
+    const main = page.body.match(/<script[^>]*src="(\/assets\/[\w-]+\.js)"/)?.[1];
+    expect(main).toBeDefined();
+    const script = (await rawRequest(port, main!)).body;
+    const worker = script.match(/assets\/evaluate-[\w-]+\.js/)?.[0];
+    expect(worker).toBeDefined();
+    const served = await rawRequest(port, `/${worker}`);
+    expect([served.status, served.headers['content-type']]).toEqual([200, 'text/javascript; charset=utf-8']);
+    // The worker evaluates: it carries the engine (its check of an input's new value among the rest), not a stub.
+    expect(served.body).toContain('is not a given input of this document');
+    expect(served.body.length).toBeGreaterThan(100_000);
+  });
+
   it('an edit of the span marks its dependents waiting, patches as the main-thread page does, with no long task', async () => {
     const { page } = inWorker;
     const before = await sheetHtml(page);
@@ -205,6 +224,37 @@ describe('evaluating in a worker', { timeout: 180_000 }, () => {
     await editOnMain('L', '6.6');
     expect(await differences(page)).toEqual([]);
     expect(await page.locator('#lv-sheet .lv-computing').count()).toBe(0);
+    expect(inWorker.errors).toEqual([]);
+  });
+
+  it('what drives a check is worked out in the worker: the main-thread page\'s table, with no long task', async () => {
+    // Both pages have the span at 6.6 m (the test before). The geometric factor of safety reads most inputs.
+    const drivers = async (page: Page) => page.evaluate(async () => {
+      const long: number[] = [];
+      const observer = new PerformanceObserver((list) => { for (const e of list.getEntries()) long.push(e.duration); });
+      observer.observe({ type: 'longtask' });
+      document.querySelector<HTMLElement>('[data-cell="c_gsf"] .vb-check, [data-cell="c_gsf"]')!.click();
+      const start = performance.now();
+      while (!document.querySelector('.lv-drivers[data-check="c_gsf"] table')) {
+        if (performance.now() - start > 60_000) throw new Error('no drivers table within 60 s');
+        await new Promise((ok) => setTimeout(ok, 20));
+      }
+      await new Promise((ok) => setTimeout(ok, 100));
+      observer.disconnect();
+      const table = document.querySelector<HTMLElement>('.lv-drivers')!.textContent ?? '';
+      document.querySelector<HTMLElement>('[data-cell="c_gsf"]')!.click(); // cleared again
+      return { table, longest: Math.max(0, ...long) };
+    });
+    const inWorkerPage = await drivers(inWorker.page);
+    const onMainPage = await drivers(onMain.page);
+    expect(inWorkerPage.table).toEqual(onMainPage.table);
+    // With the trial value: the check's utilization as the engine works it out with L = 6.6 m, not as written.
+    const text = readFileSync(BARREL, 'utf8');
+    const utilization = async (overrides: Record<string, string>) => (await explainDocument(text, { overrides, targets: ['c_gsf'] })).checks[0]!.utilization!;
+    const [trial, written] = [await utilization({ L: '6.6 m' }), await utilization({})];
+    expect(formatNumber(trial, 3)).not.toEqual(formatNumber(written, 3));
+    expect(inWorkerPage.table).toContain(`utilization ${formatNumber(trial, 3)}`);
+    expect(inWorkerPage.longest).toBeLessThan(LIMIT_MS);
     expect(inWorker.errors).toEqual([]);
   });
 
