@@ -368,7 +368,7 @@ export class LiveSheet {
 
   /** Is every change on the page (no cell computing, none waiting for its patch)? */
   get settled(): boolean {
-    return this.waiting.size === 0 && this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0;
+    return this.waiting.size === 0 && this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0 && this.inView.length === 0;
   }
 
   /** The value text an input has now (the override, else the document's). */
