@@ -212,8 +212,11 @@ export class LiveSheet {
         this.fallbackReason = `the worker could not start: ${(e as Error).message}`;
       }
     }
-    // A printout must show every value: finish deferred patches first.
-    window.addEventListener('beforeprint', () => this.patchDeferred(Infinity));
+    // A printout must show every value: finish the slices and deferred patches first.
+    window.addEventListener('beforeprint', () => {
+      while (this.inView.length) this.slice();
+      this.patchDeferred(Infinity);
+    });
   }
 
   /** Called after each patch (visible cells, then each idle slice), before the DOM events. */
@@ -525,6 +528,9 @@ export class LiveSheet {
     this.casesWanted = null;
     this.driversWanted?.done(undefined);
     this.driversWanted = null;
+    // Every cell the worker sent is shown again from this page's session (some of its answers may not
+    // have been swapped in yet, or belong to a trial value taken back since).
+    const sent = [...this.incoming.keys()];
     this.incoming.clear();
     this.incomingParts.clear();
     this.workerChanges.clear();
@@ -538,6 +544,8 @@ export class LiveSheet {
       if (value === undefined) this.session.resetInput(cell.id);
       else if (this.session.setInput(cell.id, value)) this.overrides.delete(cell.id);
     }
+    for (const id of sent) this.dirty.add(id);
+    this.schedule();
     document.dispatchEvent(new CustomEvent('vaultbook:fallback', { detail: { reason } }));
   }
 
