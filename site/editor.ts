@@ -93,9 +93,7 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
       // Put back what was shown; the sheet patches the cell with its new value right after.
       if (target.contains(field)) target.innerHTML = shown;
       refocus = keepFocus ? name : null;
-      // The element is where the field was, in view: no scrolling, so focusing needs no layout now
-      // (a forced layout here lengthened the edit's own task by about 10 ms on the barrel template).
-      if (keepFocus) target.focus({ preventScroll: true });
+      if (keepFocus) target.focus();
       host.closed(name);
     };
     field.addEventListener('keydown', (e) => {
