@@ -1,8 +1,8 @@
 /**
  * What drives a check, on the live page: clicking a check marks the cells on its dependency path
  * and shows its inputs ranked by swing (the sheet appendix's table for that one check), computed in
- * the background with the page's trial values; a change of input computes them again. Clicking the
- * check again (or Escape) clears it.
+ * the background (in the page's evaluation worker, when it has one) with the page's trial values; a
+ * change of input computes them again. Clicking the check again (or Escape) clears it.
  */
 import { explainDocument } from '../engine/drivers/index.js';
 import { upstreamOf } from '../engine/drivers/prune.js';
@@ -59,10 +59,17 @@ export class LiveDrivers {
     const id = this.selected;
     if (!id) return;
     const generation = ++this.generation;
-    const e = await explainDocument(this.text(), { file: this.sheet.doc.file, overrides: Object.fromEntries(this.sheet.overrides), targets: [id] });
+    // Worked out in the page's evaluation worker when there is one (it perturbs every input upstream:
+    // too long for the main thread); undefined: the worker failed meanwhile, so here after all.
+    let html = this.sheet.worker ? await this.sheet.driversInWorker(this.text(), id) : undefined;
     if (generation !== this.generation || !this.box) return;
-    const check = e.checks[0];
-    this.box.innerHTML = check ? renderDriversAppendix([check]) : '<p>This check could not be explained.</p>';
+    if (html === undefined) {
+      const e = await explainDocument(this.text(), { file: this.sheet.doc.file, overrides: Object.fromEntries(this.sheet.overrides), targets: [id] });
+      if (generation !== this.generation || !this.box) return;
+      const check = e.checks[0];
+      html = check ? renderDriversAppendix([check]) : null;
+    }
+    this.box.innerHTML = html ?? '<p>This check could not be explained.</p>';
     this.box.dataset.check = id;
   }
 }

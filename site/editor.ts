@@ -29,6 +29,11 @@ export interface EditorHost {
   closed(name: string): void;
   /** What the input is, for its accessible name: "t, ring thickness". */
   describe(name: string): string;
+  /**
+   * Runs a change of the page that follows an applied edit (closing its field), when the edit's
+   * results are patched or soon after (LiveSheet.withAnswer); at once when absent.
+   */
+  withAnswer?(fn: () => void): void;
 }
 
 /**
@@ -94,7 +99,7 @@ export function enableEditing(root: HTMLElement, host: EditorHost): () => void {
     field.addEventListener('keydown', (e) => {
       if (e.key === 'Enter') {
         e.preventDefault();
-        if (commit()) close(true);
+        if (commit()) (host.withAnswer ?? ((fn: () => void) => fn()))(() => close(true));
       } else if (e.key === 'Escape') {
         e.preventDefault();
         close(true);

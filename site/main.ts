@@ -229,10 +229,12 @@ enableEditing(sheetEl, {
   apply: (name, text) => {
     const d = sheet.setInput(name, text);
     if (!d) message = null;
-    renderPanel();
+    // With the edit's results (a patch renders the panel too), so that the edit's own task writes nothing.
+    sheet.withAnswer(renderPanel);
     return d ? d.message : null;
   },
   closed: () => sheet.release(),
+  withAnswer: (fn) => sheet.withAnswer(fn),
 });
 
 onDocumentChanged((version) => {

@@ -9,6 +9,12 @@
  * the page then fires `vaultbook:patched`. Marked cells further away are
  * patched in idle time right after (or at once when scrolled to, or before
  * printing); when none is left the page fires `vaultbook:settled`.
+ *
+ * By default the evaluation runs in a worker (site/worker/): an edit is sent there, the cells it may
+ * move are marked waiting, and the worker answers with the changed cells' HTML. The page swaps them a
+ * slice at a time (WORKER_SLICE_MS, WORKER_SLICE_CHARS), one slice per frame, those in or near view
+ * first; `vaultbook:patched` fires when those are in, `vaultbook:settled` when all are. Without a
+ * worker, or once it fails, the page evaluates on its main thread as above (fallBack).
  */
 import { compile, startSession } from '../engine/index.js';
 import { readOverride } from '../engine/parse/override.js';
@@ -31,6 +37,11 @@ export interface PatchEvent {
   renderStart: number;
   /** performance.now() when the patch finished. */
   at: number;
+  /**
+   * Worker mode, `vaultbook:patched`: performance.now() (the page's clock) when the worker took the
+   * edit, when its evaluation settled, and when it posted the result.
+   */
+  worker?: { received: number; settled: number; posted: number };
 }
 
 export interface LoadResult {
@@ -55,15 +66,59 @@ const idle: Idle = (fn) => (typeof requestIdleCallback === 'function' ? requestI
 const SLICE_MS = 8;
 
 /**
- * Evaluate in a worker (site/worker/evaluate.ts) instead of on the page's main thread: on when
- * localStorage `vaultbook:evaluate` is `worker`. Off by default while it is being proven.
+ * Evaluating in a worker: milliseconds of element swapping per task of the page. Kept well below the
+ * 50 ms of a long task, because the layout and paint of the swapped elements come on top of it and a
+ * loaded machine stretches every task.
+ */
+const WORKER_SLICE_MS = 4;
+
+/**
+ * Evaluating in a worker: characters of new HTML per slice. The new elements' style, layout and paint
+ * are done in the frame drawn after the slice; parsing is the smaller part of their cost, so the
+ * slice is also bounded by what it adds (about 1,000 elements of a typical sheet).
+ */
+const WORKER_SLICE_CHARS = 24_000;
+
+/** Evaluating in a worker: how long the page changes that go with an edit wait for its answer (ms). */
+const ANSWER_WAIT_MS = 40;
+
+/**
+ * Evaluate in a worker (site/worker/evaluate.ts), off the page's main thread: the default wherever
+ * the page can start one. localStorage `vaultbook:evaluate` = `main` evaluates on the main thread
+ * (as does a page whose worker cannot start or fails; see LiveSheet.fallBack).
  */
 export function workerChosen(): boolean {
   try {
-    return typeof Worker === 'function' && localStorage.getItem('vaultbook:evaluate') === 'worker';
+    return typeof Worker === 'function' && localStorage.getItem('vaultbook:evaluate') !== 'main';
   } catch {
-    return false;
+    return typeof Worker === 'function';
   }
+}
+
+/**
+ * Runs `fn` in a task right after the next frame is drawn, so that each frame lays out the elements of
+ * one slice only; after 100 ms without a frame (a hidden page draws none) it runs anyway.
+ */
+function afterFrame(fn: () => void): void {
+  let done = false;
+  const go = () => {
+    if (done) return;
+    done = true;
+    clearTimeout(timer);
+    nextTask(fn);
+  };
+  const timer = setTimeout(go, 100);
+  requestAnimationFrame(go);
+}
+
+/** Runs `fn` in a task of its own, right after the tasks already queued (no timer clamping). */
+function nextTask(fn: () => void): void {
+  const channel = new MessageChannel();
+  channel.port1.onmessage = () => {
+    channel.port1.close();
+    fn();
+  };
+  channel.port2.postMessage(null);
 }
 
 /** The class (with aria-busy) of a cell whose new value is being computed. */
@@ -107,8 +162,11 @@ export class LiveSheet {
   private unsubscribe: (() => void) | null = null;
   private listeners = new Set<(e: PatchEvent) => void>();
 
-  /** The evaluation worker, when evaluating off the main thread (see workerChosen). */
-  readonly worker: Worker | null;
+  /** The evaluation worker, when evaluating off the main thread (see workerChosen); null on the main thread. */
+  get worker(): Worker | null {
+    return this.evaluator;
+  }
+  private evaluator: Worker | null = null;
   /** Worker mode: the latest edit sent, the latest result taken, the load the worker works on. */
   private seq = 0;
   private accepted = 0;
@@ -117,17 +175,48 @@ export class LiveSheet {
   private incoming = new Map<string, string>();
   private incomingParts = new Map<string, string>();
   private workerChanges = new Map<string, ResultChange | null>();
-  private workerEvaluations = 0;
+  private workerEvaluations = new Map<string, number>();
+  /** Each cell's evaluations when the load settled (main-thread mode). */
+  private loadEvaluations = new Map<string, number>();
   /** Worker mode: cells marked waiting for their new values. */
   private waiting = new Set<string>();
   private downstream = new Map<string, string[]>();
   private casesWanted: { generation: number; done: (ok: boolean) => void } | null = null;
+  private driversWanted: { generation: number; done: (html: string | null | undefined) => void } | null = null;
+  private driversGeneration = 0;
+  /** Worker mode: the in-view elements of the result being patched, a slice per task; then `deferred`. */
+  private inView: string[] = [];
+  private inViewChanged: string[] = [];
+  private inViewPatched: string[] = [];
+  private renderStart = 0;
+  private slicing = false;
+  /** Worker mode: a result is being patched whose `vaultbook:patched` has not been fired yet. */
+  private awaitedPatch = false;
+  private withAnswerQueue: Array<() => void> = [];
+  private withAnswerTimer: ReturnType<typeof setTimeout> | undefined;
+  private workerTimes: PatchEvent['worker'];
+  /** Why the page evaluates on its main thread although a worker was chosen (null: it does not). */
+  fallbackReason: string | null = null;
 
   constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false, useWorker = workerChosen()) {
-    this.worker = useWorker ? new Worker(new URL('./worker/evaluate.ts', import.meta.url), { type: 'module' }) : null;
-    this.worker?.addEventListener('message', (e: MessageEvent<FromWorker>) => this.fromWorker(e.data));
-    // A printout must show every value: finish deferred patches first.
-    window.addEventListener('beforeprint', () => this.patchDeferred(Infinity));
+    if (useWorker) {
+      try {
+        // Written out in full so that the build bundles the worker as a file of its own.
+        this.evaluator = new Worker(new URL('./worker/evaluate.ts', import.meta.url), { type: 'module' });
+        this.evaluator.addEventListener('message', (e: MessageEvent<FromWorker>) => this.fromWorker(e.data));
+        // A worker whose script cannot load or run: evaluate on the main thread instead.
+        this.evaluator.addEventListener('error', (e) => { e.preventDefault(); this.fallBack(`the worker stopped: ${e.message || 'its script did not load'}`); });
+        this.evaluator.addEventListener('messageerror', () => this.fallBack('a message from the worker could not be read'));
+      } catch (e) {
+        this.evaluator = null;
+        this.fallbackReason = `the worker could not start: ${(e as Error).message}`;
+      }
+    }
+    // A printout must show every value: finish the slices and deferred patches first.
+    window.addEventListener('beforeprint', () => {
+      while (this.inView.length) this.slice();
+      this.patchDeferred(Infinity);
+    });
   }
 
   /** Called after each patch (visible cells, then each idle slice), before the DOM events. */
@@ -167,6 +256,7 @@ export class LiveSheet {
       }
     }
     await this.session.settle();
+    this.loadEvaluations = new Map(this.session.evaluations);
     // The context reads session.states live, so one context serves every later patch.
     const options = { standalone: false, ...(archive ? { archive } : {}) };
     const cases = await judge?.(this.doc);
@@ -181,6 +271,7 @@ export class LiveSheet {
       this.incoming.clear();
       this.incomingParts.clear();
       this.workerChanges.clear();
+      this.workerEvaluations = new Map();
       this.downstream = dependentsOf(this.doc);
       this.post({ type: 'load', token: this.token, text, file, ...(archive ? { archive } : {}), overrides: [...this.overrides] });
     }
@@ -194,6 +285,8 @@ export class LiveSheet {
     this.lastHtml.clear();
     this.settledPatched = [];
     this.touched = false;
+    this.inView = [];
+    this.awaitedPatch = false;
     this.observer?.disconnect();
     this.observer = typeof IntersectionObserver === 'function'
       ? new IntersectionObserver((entries) => this.seen(entries), { rootMargin: '50% 0px 50% 0px' })
@@ -213,18 +306,25 @@ export class LiveSheet {
   }
 
   private seen(entries: IntersectionObserverEntry[]): void {
-    let wanted = false;
+    const wanted: string[] = [];
     for (const e of entries) {
       const el = e.target as HTMLElement;
       const id = el.dataset.cell ?? `@${el.dataset.part}`;
       if (!e.isIntersecting) this.visible.delete(id);
       else {
         this.visible.add(id);
-        wanted ||= this.deferred.has(id);
+        if (this.deferred.has(id)) wanted.push(id);
       }
     }
-    // Scrolled to a cell still waiting for its patch: patch what is waiting now.
-    if (wanted) this.patchDeferred(Infinity);
+    if (!wanted.length) return;
+    // Scrolled to a cell still waiting for its patch: patch what is waiting now (in worker mode,
+    // those scrolled to go first, still a slice per task).
+    if (!this.worker) this.patchDeferred(Infinity);
+    else {
+      for (const id of wanted) this.deferred.delete(id);
+      this.inView.unshift(...wanted);
+      this.kick();
+    }
   }
 
   /**
@@ -271,7 +371,7 @@ export class LiveSheet {
 
   /** Is every change on the page (no cell computing, none waiting for its patch)? */
   get settled(): boolean {
-    return this.waiting.size === 0 && this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0;
+    return this.waiting.size === 0 && this.pending.size === 0 && this.dirty.size === 0 && this.deferred.size === 0 && this.inView.length === 0;
   }
 
   /** The value text an input has now (the override, else the document's). */
@@ -327,7 +427,7 @@ export class LiveSheet {
   }
 
   private post(m: ToWorker): void {
-    this.worker!.postMessage(m);
+    this.evaluator?.postMessage(m);
   }
 
   /** Worker mode: sends an edit and marks the cells it moves as waiting. */
@@ -335,45 +435,118 @@ export class LiveSheet {
     this.touched = true;
     this.turnStart = performance.now();
     this.post({ ...m, seq: ++this.seq, accepted: this.accepted });
-    for (const id of this.downstream.get(name) ?? []) {
-      const el = this.cells.get(id);
-      this.waiting.add(id);
-      if (el) {
-        el.classList.add(WAITING_CLASS);
-        el.setAttribute('aria-busy', 'true');
+    const moved = (this.downstream.get(name) ?? []).filter((id) => !this.waiting.has(id));
+    for (const id of moved) this.waiting.add(id);
+    // Marked on the page with the answer's task, or once the answer is late: a quick answer then
+    // patches in the task after the edit's, with no frame drawn in between for the marks.
+    this.withAnswer(() => {
+      for (const id of moved) {
+        const el = this.waiting.has(id) ? this.cells.get(id) : undefined;
+        el?.classList.add(WAITING_CLASS);
+        el?.setAttribute('aria-busy', 'true');
       }
+    });
+  }
+
+  /**
+   * Runs a change of the page that goes with an edit: evaluating in a worker, together with the
+   * worker's answer (first thing in the task that patches it) or after `ANSWER_WAIT_MS` if the answer
+   * is later; at once otherwise. An edit's own task then writes nothing to the page, so the browser
+   * draws no frame before a quick answer is patched.
+   */
+  withAnswer(fn: () => void): void {
+    if (!this.worker || this.accepted === this.seq) {
+      fn();
+      return;
     }
+    this.withAnswerQueue.push(fn);
+    this.withAnswerTimer ??= setTimeout(() => this.answerArrived(), ANSWER_WAIT_MS);
+  }
+
+  /** Runs the page changes held for the answer (see withAnswer). */
+  private answerArrived(): void {
+    clearTimeout(this.withAnswerTimer);
+    this.withAnswerTimer = undefined;
+    for (const fn of this.withAnswerQueue.splice(0)) fn();
+  }
+
+  /** Worker mode: a cell's new value arrived (or none is coming): no longer marked waiting. */
+  private unmark(id: string): void {
+    if (!this.waiting.delete(id)) return;
+    const el = this.cells.get(id);
+    el?.classList.remove(WAITING_CLASS);
+    el?.removeAttribute('aria-busy');
   }
 
   private fromWorker(m: FromWorker): void {
     if (m.type === 'failed') {
-      console.error(`vaultbook: the evaluation worker failed: ${m.message}`);
+      this.fallBack(`the worker failed: ${m.message}`);
+      return;
+    }
+    if (m.type === 'drivers') {
+      if (this.driversWanted?.generation === m.generation) this.driversWanted.done(m.html);
       return;
     }
     if (m.type === 'loaded' || m.token !== this.token) return;
     if (m.type === 'cases') {
       // An answer to an older request (a newer one is on its way): dropped.
-      if (this.casesWanted?.generation === m.generation) this.casesWanted.done(this.showWorkerCases(m));
+      if (this.casesWanted?.generation === m.generation) this.showWorkerCases(m, this.casesWanted.done);
       return;
     }
     // An answer to an edit that is no longer the latest: dropped (the next answer repeats its cells).
     if (m.seq !== this.seq) return;
     this.accepted = m.seq;
-    this.workerEvaluations = m.evaluations;
+    this.answerArrived();
+    this.workerEvaluations = new Map(m.evaluations);
+    const [received, settled, posted] = m.times.map((t) => t - performance.timeOrigin) as [number, number, number];
+    this.workerTimes = { received, settled, posted };
     for (const c of m.cells) {
       this.incoming.set(c.id, c.html);
       this.workerChanges.set(c.id, c.change);
       this.dirty.add(c.id);
     }
     for (const [part, html] of m.parts) this.incomingParts.set(part, html);
-    for (const id of this.waiting) {
-      const el = this.cells.get(id);
-      el?.classList.remove(WAITING_CLASS);
-      el?.removeAttribute('aria-busy');
-    }
-    this.waiting.clear();
+    // Cells the edit might have moved but did not: nothing is coming for them.
+    for (const id of [...this.waiting]) if (!this.dirty.has(id)) this.unmark(id);
     if (this.dirty.size) this.flush();
     else this.emitSettled();
+  }
+
+  /**
+   * The worker cannot start, or failed: the page evaluates on its main thread from now on. Its
+   * session still holds the load's values; the trial values set since are applied to it, and the
+   * cells they move are patched as after any edit.
+   */
+  private fallBack(reason: string): void {
+    if (!this.evaluator) return;
+    console.warn(`vaultbook: evaluating on the page's main thread (${reason})`);
+    this.fallbackReason = reason;
+    this.evaluator.terminate();
+    this.evaluator = null;
+    this.token++;
+    this.casesWanted?.done(false);
+    this.casesWanted = null;
+    this.driversWanted?.done(undefined);
+    this.driversWanted = null;
+    // Every cell the worker sent is shown again from this page's session (some of its answers may not
+    // have been swapped in yet, or belong to a trial value taken back since).
+    const sent = [...this.incoming.keys()];
+    this.incoming.clear();
+    this.incomingParts.clear();
+    this.workerChanges.clear();
+    this.answerArrived();
+    for (const id of [...this.waiting]) this.unmark(id);
+    this.inView = [];
+    if (!this.doc) return; // not loaded yet: the load evaluates on the main thread
+    for (const cell of this.doc.graph.cells) {
+      if (cell.kind !== 'given') continue;
+      const value = this.overrides.get(cell.id);
+      if (value === undefined) this.session.resetInput(cell.id);
+      else if (this.session.setInput(cell.id, value)) this.overrides.delete(cell.id);
+    }
+    for (const id of sent) this.dirty.add(id);
+    this.schedule();
+    document.dispatchEvent(new CustomEvent('vaultbook:fallback', { detail: { reason } }));
   }
 
   /** Worker mode: the review change of a result, as the worker computed it (undefined: no news). */
@@ -381,9 +554,17 @@ export class LiveSheet {
     return this.workerChanges.get(id);
   }
 
-  /** How many cell evaluations have run since the load (in the worker, in worker mode). */
+  /** How many cell evaluations the edits since the load ran (in the worker, in worker mode). */
   evaluationCount(): number {
-    return this.worker ? this.workerEvaluations : [...this.session.evaluations.values()].reduce((a, b) => a + b, 0);
+    return [...this.evaluationCounts().values()].reduce((a, b) => a + b, 0);
+  }
+
+  /** Each cell's evaluations for the edits since the load (in the worker, in worker mode); the load's own are not counted. */
+  evaluationCounts(): Map<string, number> {
+    if (this.worker) return new Map(this.workerEvaluations);
+    const out = new Map<string, number>();
+    for (const [id, n] of this.session.evaluations) if (n > (this.loadEvaluations.get(id) ?? 0)) out.set(id, n - (this.loadEvaluations.get(id) ?? 0));
+    return out;
   }
 
   /**
@@ -398,15 +579,44 @@ export class LiveSheet {
     });
   }
 
-  private showWorkerCases(m: Extract<FromWorker, { type: 'cases' }>): boolean {
+  /**
+   * Worker mode: what drives a check, worked out in the worker with the page's trial values.
+   * @returns the drivers table's HTML, null when the check could not be explained, undefined when a
+   *   newer request came first or the worker failed (the page then works it out itself)
+   */
+  driversInWorker(text: string, target: string): Promise<string | null | undefined> {
+    this.driversWanted?.done(undefined);
+    const generation = ++this.driversGeneration;
+    return new Promise((done) => {
+      this.driversWanted = { generation, done: (html) => { if (this.driversWanted?.generation === generation) this.driversWanted = null; done(html); } };
+      this.post({ type: 'drivers', generation, text, file: this.doc.file ?? '', overrides: Object.fromEntries(this.overrides), target });
+    });
+  }
+
+  /** Worker mode: the cases' verdicts, a block per task (each is a table); then `done(true)`. */
+  private showWorkerCases(m: Extract<FromWorker, { type: 'cases' }>, done: (ok: boolean) => void): void {
     this.casesWanted = null;
-    for (const [line, html] of m.blocks) {
+    const token = this.token;
+    // A block whose verdicts read as before is left alone.
+    const steps: Array<() => void> = m.blocks.filter(([line, html]) => this.lastHtml.get(`#cases-${line}`) !== html).map(([line, html]) => () => {
       const el = this.root.querySelector<HTMLElement>(`#line-${line} [data-cases]`);
       if (el) el.outerHTML = html;
-    }
-    this.incomingParts.set('check-summary', m.summary);
-    this.patchPart('check-summary', () => m.summary);
-    return true;
+      this.lastHtml.set(`#cases-${line}`, html);
+    });
+    steps.push(() => {
+      this.incomingParts.set('check-summary', m.summary);
+      this.patchPart('check-summary', () => m.summary);
+    });
+    const step = () => {
+      // A load, or the worker's failure, since: these verdicts are of a document no longer shown.
+      if (token !== this.token) return done(false);
+      const start = performance.now();
+      do steps.shift()!();
+      while (steps.length && performance.now() - start < WORKER_SLICE_MS);
+      if (steps.length) nextTask(step);
+      else done(true);
+    };
+    step();
   }
 
   resetAll(): void {
@@ -451,6 +661,7 @@ export class LiveSheet {
 
   /** Renders one cell with its current state; true when its element was replaced. */
   private patchCell(id: string): boolean {
+    if (this.worker) this.unmark(id);
     const el = this.cells.get(id)!;
     const state = this.session.states.get(id)!;
     // Unknown HTML (not learned yet) is replaced: rendering the old state now would mix in new input values.
@@ -463,6 +674,10 @@ export class LiveSheet {
 
   private flush(): void {
     if (this.dirty.size === 0) return;
+    if (this.worker) {
+      this.flushSliced();
+      return;
+    }
     const renderStart = performance.now();
     const changed: string[] = [];
     const patched: string[] = [];
@@ -472,11 +687,6 @@ export class LiveSheet {
       const el = this.cells.get(id);
       if (el && this.observer && !this.visible.has(id) && !this.isHeld(el)) {
         this.deferred.add(id); // reported when its slice patches it
-        continue;
-      }
-      // Evaluating in a worker: the page's task only swaps elements, a slice at a time (the rest right after).
-      if (el && this.worker && !this.isHeld(el) && performance.now() - renderStart > SLICE_MS) {
-        this.deferred.add(id);
         continue;
       }
       changed.push(id);
@@ -502,11 +712,107 @@ export class LiveSheet {
   }
 
   /**
+   * Worker mode: a result's cells, swapped a slice of WORKER_SLICE_MS per task: those in or near view
+   * first (then `vaultbook:patched`), the summary parts in view with them, the rest after (then
+   * `vaultbook:settled`). Each cell loses its waiting mark as its new value lands.
+   */
+  private flushSliced(): void {
+    this.renderStart = performance.now();
+    this.inViewChanged = [];
+    this.inViewPatched = [];
+    const near: string[] = [];
+    for (const id of this.dirty) {
+      const el = this.cells.get(id);
+      if (!el || this.isHeld(el)) {
+        // No element, or its field is open (patched when it closes): reported with the first slice.
+        this.unmark(id);
+        if (el) this.held.add(id);
+        near.unshift(`!${id}`);
+      } else if (this.observer && !this.visible.has(id)) this.deferred.add(id);
+      else {
+        this.deferred.delete(id);
+        near.push(id);
+      }
+    }
+    this.dirty.clear();
+    for (const part of ['status', 'check-summary', 'diagnostics']) {
+      if (this.observer && !this.visible.has(`@${part}`)) this.deferred.add(`@${part}`);
+      else near.push(`@${part}`);
+    }
+    // Cells of an earlier result not patched yet keep their place after this one's.
+    const queued = new Set(near);
+    this.inView = [...near, ...this.inView.filter((id) => !queued.has(id))];
+    this.awaitedPatch = true;
+    if (!this.slicing) this.slice();
+  }
+
+  /** Worker mode: one slice of the in-view queue, then of the deferred cells; schedules the next. */
+  private slice(): void {
+    this.slicing = false;
+    if (!this.inView.length) {
+      if (this.deferred.size) this.patchDeferred(WORKER_SLICE_MS);
+      else this.settleIfDone();
+      return;
+    }
+    const start = performance.now();
+    const changed: string[] = [];
+    const patched: string[] = [];
+    const parts = new Map(this.partRenderers());
+    let chars = 0;
+    do {
+      const id = this.inView.shift()!;
+      if (id.startsWith('!')) {
+        changed.push(id.slice(1));
+        continue;
+      }
+      if (id.startsWith('@')) {
+        if (this.patchPart(id.slice(1), parts.get(id.slice(1))!)) patched.push(id);
+        continue;
+      }
+      changed.push(id);
+      if (this.patchCell(id)) {
+        patched.push(id);
+        chars += this.lastHtml.get(id)!.length;
+      }
+    } while (this.inView.length && performance.now() - start < WORKER_SLICE_MS && chars < WORKER_SLICE_CHARS);
+    this.inViewChanged.push(...changed);
+    this.inViewPatched.push(...patched);
+    if (this.inView.length) {
+      this.emit(null, changed, patched, start, start);
+      this.kick();
+      return;
+    }
+    this.emit(null, changed, patched, start, start);
+    // Every element in or near view has its new value: the patch the edit waited for.
+    if (this.awaitedPatch) {
+      this.awaitedPatch = false;
+      const event: PatchEvent = {
+        changed: this.inViewChanged, patched: this.inViewPatched, deferred: this.deferred.size, computeStart: this.turnStart || this.renderStart,
+        renderStart: this.renderStart, at: performance.now(), ...(this.workerTimes ? { worker: this.workerTimes } : {}),
+      };
+      document.dispatchEvent(new CustomEvent('vaultbook:patched', { detail: event }));
+      this.turnStart = 0;
+    }
+    if (this.deferred.size) this.kick();
+    else this.settleIfDone();
+  }
+
+  /** Worker mode: the next slice, after the next frame (one at a time). */
+  private kick(): void {
+    if (this.slicing) return;
+    this.slicing = true;
+    afterFrame(() => this.slice());
+  }
+
+  /**
    * Schedules the next slice of waiting cells: in idle time, as long as the idle period allows; in
-   * worker mode one short slice per task, so that no task of the page grows long.
+   * worker mode one short slice per frame, so that no task of the page grows long.
    */
   private later(): void {
-    if (this.worker) setTimeout(() => this.patchDeferred(SLICE_MS), 0);
+    if (this.worker) {
+      this.deferring = false;
+      this.kick();
+    }
     else idle((deadline) => this.patchDeferred(deadline ? Math.max(SLICE_MS, deadline.timeRemaining()) : SLICE_MS));
   }
 
@@ -535,7 +841,15 @@ export class LiveSheet {
     if (this.deferred.size) {
       this.deferring = true;
       this.later();
-    } else if (this.pending.size === 0 && this.dirty.size === 0) this.emitSettled();
+    } else this.settleIfDone();
+  }
+
+  /** `vaultbook:settled` once nothing is computing or waiting for its patch. */
+  private settleIfDone(): void {
+    if (this.pending.size || this.dirty.size || this.inView.length) return;
+    // Worker mode: an edit sent since is still to be answered; its answer settles the page.
+    if (this.worker && this.accepted !== this.seq) return;
+    this.emitSettled();
   }
 
   private emit(name: string | null, changed: string[], patched: string[], computeStart: number, renderStart: number): void {

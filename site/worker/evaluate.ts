@@ -10,6 +10,8 @@ import type { CellState, CompiledDocument, Session } from '../../engine/index.js
 import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderStatus, type RenderContext } from '../sheet.js';
 import { compareToDocument } from '../review.js';
 import { judgeWithTrials } from '../cases.js';
+import { explainDocument } from '../../engine/drivers/index.js';
+import { renderDriversAppendix } from '../../engine/render/drivers.js';
 import type { CellPatch, FromWorker, ToWorker } from './protocol.js';
 
 interface Loaded {
@@ -22,6 +24,8 @@ interface Loaded {
   /** Cell id → the edit that last changed it, for cells the page may not have yet. */
   unsent: Map<string, number>;
   seq: number;
+  /** Each cell's evaluations when the load settled: the page counts those of its edits only. */
+  atLoad: Map<string, number>;
 }
 
 let current: Loaded | null = null;
@@ -41,13 +45,14 @@ async function load(m: Extract<ToWorker, { type: 'load' }>): Promise<void> {
   const options = { standalone: false, ...(m.archive ? { archive: m.archive } : {}) };
   const ctx = makeRenderContext(doc, session.states, session.warnings, options);
   const s = doc.meta.sigfigs;
-  const loaded: Loaded = { token: m.token, doc, session, ctx, baseline, sigfigs: typeof s === 'number' ? s : 4, unsent: new Map(), seq: 0 };
+  const loaded: Loaded = { token: m.token, doc, session, ctx, baseline, sigfigs: typeof s === 'number' ? s : 4, unsent: new Map(), seq: 0, atLoad: new Map(session.evaluations) };
   session.subscribe((id, state) => { if (state.status !== 'pending') loaded.unsent.set(id, loaded.seq); });
   current = loaded;
   post({ type: 'loaded', token: m.token });
 }
 
 async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<void> {
+  const received = performance.timeOrigin + performance.now();
   const c = current;
   if (!c) return;
   for (const [id, seq] of c.unsent) if (seq <= m.accepted) c.unsent.delete(id);
@@ -55,6 +60,7 @@ async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<vo
   if (m.type === 'set') c.session.setInput(m.name, m.value); // the page checked the text before sending it
   else c.session.resetInput(m.name);
   await c.session.settle();
+  const settled = performance.timeOrigin + performance.now();
   const cells: CellPatch[] = [];
   for (const id of c.unsent.keys()) {
     const cell = c.doc.graph.byId.get(id);
@@ -68,8 +74,8 @@ async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<vo
     ['check-summary', renderCheckSummary(doc, session.states, ctx)],
     ['diagnostics', renderDiagnostics(doc, session.states, session.warnings)],
   ];
-  const evaluations = [...session.evaluations.values()].reduce((a, b) => a + b, 0);
-  post({ type: 'result', seq: m.seq, token: c.token, cells, parts, evaluations });
+  const evaluations = [...session.evaluations].flatMap(([id, n]): Array<[string, number]> => (n > (c.atLoad.get(id) ?? 0) ? [[id, n - (c.atLoad.get(id) ?? 0)]] : []));
+  post({ type: 'result', seq: m.seq, token: c.token, cells, parts, evaluations, times: [received, settled, performance.timeOrigin + performance.now()] });
 }
 
 async function cases(m: Extract<ToWorker, { type: 'cases' }>): Promise<void> {
@@ -84,8 +90,19 @@ async function cases(m: Extract<ToWorker, { type: 'cases' }>): Promise<void> {
   post({ type: 'cases', generation: m.generation, token: c.token, blocks, summary: renderCheckSummary(c.doc, c.session.states, c.ctx) });
 }
 
+/** What drives a check: its own document and sessions, so it runs beside the edits rather than before them. */
+async function drivers(m: Extract<ToWorker, { type: 'drivers' }>): Promise<void> {
+  const e = await explainDocument(m.text, { file: m.file, overrides: m.overrides, targets: [m.target] });
+  const check = e.checks[0];
+  post({ type: 'drivers', generation: m.generation, html: check ? renderDriversAppendix([check]) : null });
+}
+
 self.addEventListener('message', (e: MessageEvent<ToWorker>) => {
   const m = e.data;
+  if (m.type === 'drivers') {
+    drivers(m).catch((err: Error) => post({ type: 'failed', message: err.message }));
+    return;
+  }
   queue = queue.then(() => (m.type === 'load' ? load(m) : m.type === 'cases' ? cases(m) : edit(m))).catch((err: Error) => {
     post({ type: 'failed', message: err.message });
   });

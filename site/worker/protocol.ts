@@ -13,7 +13,9 @@ export type ToWorker =
   | { type: 'load'; token: number; text: string; file: string; archive?: ArchiveInfo; overrides: Array<[string, string]> }
   | { type: 'set'; seq: number; accepted: number; name: string; value: string }
   | { type: 'reset'; seq: number; accepted: number; name: string }
-  | { type: 'cases'; generation: number; trials: Record<string, string> };
+  | { type: 'cases'; generation: number; trials: Record<string, string> }
+  /** What drives one check (site/drivers.ts), with the page's trial values; answered apart from the edits' queue. */
+  | { type: 'drivers'; generation: number; text: string; file: string; overrides: Record<string, string>; target: string };
 
 /** One cell's new rendering and its move against the document as written (for the review badges). */
 export interface CellPatch {
@@ -24,6 +26,13 @@ export interface CellPatch {
 
 export type FromWorker =
   | { type: 'loaded'; token: number }
-  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: number }
+  /**
+   * `evaluations`: each cell's evaluations for the page's edits since the load (the load's own are not
+   * counted); `times`: when the worker took the edit, when its evaluation settled and when the result
+   * was posted (performance.timeOrigin + performance.now(), comparable across threads).
+   */
+  | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: Array<[string, number]>; times: [number, number, number] }
   | { type: 'cases'; generation: number; token: number; blocks: Array<[number, string]>; summary: string }
+  /** The drivers table of the check asked for (the HTML of the sheet appendix's table for it), null when it could not be explained. */
+  | { type: 'drivers'; generation: number; html: string | null }
   | { type: 'failed'; message: string };

@@ -38,7 +38,7 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
         const w = window as unknown as Record<string, unknown>;
         w.__W = document.querySelector('[data-cell="W"]')!.firstElementChild;
         w.__H = document.querySelector('[data-cell="H"]')!.firstElementChild;
-        w.__evals = Object.fromEntries(window.vaultbook.sheet.session.evaluations);
+        w.__evals = Object.fromEntries(window.vaultbook.sheet.evaluationCounts());
       });
       expect(await cellText(page, 'H')).toContain('4.8');
       // A bare number keeps the document's unit: 6 → 6 m.
@@ -47,7 +47,7 @@ describe('vaultbook serve in the browser', { timeout: 120_000 }, () => {
       // Exactly L and what depends on it was evaluated, once each.
       const ran = await page.evaluate(() => {
         const before = (window as unknown as { __evals: Record<string, number> }).__evals;
-        return [...window.vaultbook.sheet.session.evaluations].filter(([id, n]) => n !== (before[id] ?? 0)).map(([id, n]) => `${id}:${n - (before[id] ?? 0)}`).sort();
+        return [...window.vaultbook.sheet.evaluationCounts()].filter(([id, n]) => n !== (before[id] ?? 0)).map(([id, n]) => `${id}:${n - (before[id] ?? 0)}`).sort();
       });
       expect(ran).toEqual(['H:1', 'L:1', 'M_o:1', 'M_r:1', 'V:1', 'c_ring:1', 'c_third:1', 'c_tip:1', 'k_arc:1', 'sigma:1', 'w:1', 'x_R:1']);
       expect([...e.changed].sort()).toEqual(ran.map((r) => r.split(':')[0]));
