@@ -19,10 +19,11 @@
 import { compile, startSession } from '../engine/index.js';
 import { readOverride } from '../engine/parse/override.js';
 import { downstreamOf } from '../engine/cases/dirty.js';
-import type { ResultChange } from './review.js';
+import { compareVerdicts, type CheckVerdict, type ResultChange } from './review.js';
+import { checksShownByCases, verdictsOverCases } from './cases.js';
 import type { FromWorker, ToWorker } from './worker/protocol.js';
 import type { CaseRun, Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
-import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
+import { checkCasesNote, makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
 
 export interface PatchEvent {
   /** Cells whose state changed and were handled in this patch (replaced, or the same HTML). */
@@ -42,6 +43,25 @@ export interface PatchEvent {
    * edit, when its evaluation settled, and when it posted the result.
    */
   worker?: { received: number; settled: number; posted: number };
+}
+
+/** The cases' verdicts for a document being loaded (LiveCases.judgeLoading). */
+export interface LoadCases {
+  /** With the page's trial values (less the chosen case's own): what the page shows. */
+  run: CaseRun;
+  /** The document as written, with no trial value: what a check limited to cases is reviewed against. */
+  asWritten: CaseRun;
+  trials: Record<string, string>;
+}
+
+/** The cases' verdicts as the page shows them, each part rendered when its turn comes (LiveSheet.applyCases). */
+interface CasesShown {
+  blocks: Array<[number, () => string]>;
+  /** null: leave the cell as it is (it is patched when it settles). */
+  cells: Array<[string, () => string | null]>;
+  notes: Array<[string, () => string]>;
+  summary: () => string;
+  verdicts: Map<string, CheckVerdict>;
 }
 
 export interface LoadResult {
@@ -176,6 +196,12 @@ export class LiveSheet {
   private incomingParts = new Map<string, string>();
   private workerChanges = new Map<string, ResultChange | null>();
   private workerEvaluations = new Map<string, number>();
+  /**
+   * Each check limited to cases: its verdict over them as written, and as shown now (from the latest
+   * cases' verdicts); its change of state is between the two (caseChange).
+   */
+  private casesBefore = new Map<string, CheckVerdict>();
+  private casesNow = new Map<string, CheckVerdict>();
   /** Each cell's evaluations when the load settled (main-thread mode). */
   private loadEvaluations = new Map<string, number>();
   /** Worker mode: cells marked waiting for their new values. */
@@ -233,7 +259,7 @@ export class LiveSheet {
    * @param judge the cases' verdicts for the document just evaluated (site/cases.ts), awaited before the sheet
    *   is painted so that the cases block and the checks summary take their full height from the start
    */
-  async load(text: string, file: string, archive?: ArchiveInfo, judge?: (doc: CompiledDocument) => Promise<CaseRun | undefined>): Promise<LoadResult> {
+  async load(text: string, file: string, archive?: ArchiveInfo, judge?: (doc: CompiledDocument) => Promise<LoadCases | undefined>): Promise<LoadResult> {
     this.unsubscribe?.();
     this.session?.dispose();
     this.doc = compile(text, { file });
@@ -259,7 +285,10 @@ export class LiveSheet {
     this.loadEvaluations = new Map(this.session.evaluations);
     // The context reads session.states live, so one context serves every later patch.
     const options = { standalone: false, ...(archive ? { archive } : {}) };
-    const cases = await judge?.(this.doc);
+    const judged = await judge?.(this.doc);
+    const cases = judged?.run;
+    this.casesBefore = judged ? verdictsOverCases(this.doc, judged.asWritten) : new Map();
+    this.casesNow = judged ? verdictsOverCases(this.doc, judged.run) : new Map();
     this.ctx = makeRenderContext(this.doc, this.session.states, this.session.warnings, options);
     if (cases) this.ctx.cases = cases;
     this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options, ...(cases ? { cases } : {}) });
@@ -273,7 +302,7 @@ export class LiveSheet {
       this.workerChanges.clear();
       this.workerEvaluations = new Map();
       this.downstream = dependentsOf(this.doc);
-      this.post({ type: 'load', token: this.token, text, file, ...(archive ? { archive } : {}), overrides: [...this.overrides] });
+      this.post({ type: 'load', token: this.token, text, file, ...(archive ? { archive } : {}), overrides: [...this.overrides], ...(judged ? { cases: judged.trials } : {}) });
     }
     return { dropped };
   }
@@ -301,6 +330,7 @@ export class LiveSheet {
       const el = this.parts.get(part);
       if (el) this.observer?.observe(el);
     }
+    for (const cell of this.doc.graph.cells) if (cell.kind === 'check') this.lastHtml.set(`~note-${cell.id}`, checkCasesNote(cell, this.ctx));
     // In worker mode the states on the page are those of the load only: nothing to learn from them.
     if (!this.worker) this.learnShownHtml();
   }
@@ -549,6 +579,15 @@ export class LiveSheet {
     document.dispatchEvent(new CustomEvent('vaultbook:fallback', { detail: { reason } }));
   }
 
+  /**
+   * A check limited to cases: its change of state as the page shows it, its verdict over its cases as
+   * written against the latest judged (null: none); undefined for any other cell.
+   */
+  caseChange(id: string): ResultChange | null | undefined {
+    const before = this.casesBefore.get(id);
+    return before ? compareVerdicts(id, before, this.casesNow.get(id) ?? before) : undefined;
+  }
+
   /** Worker mode: the review change of a result, as the worker computed it (undefined: no news). */
   workerChange(id: string): ResultChange | null | undefined {
     return this.workerChanges.get(id);
@@ -593,30 +632,79 @@ export class LiveSheet {
     });
   }
 
-  /** Worker mode: the cases' verdicts, a block per task (each is a table); then `done(true)`. */
+  /** Worker mode: the cases' verdicts as the worker rendered them (see applyCases); then `done(true)`. */
   private showWorkerCases(m: Extract<FromWorker, { type: 'cases' }>, done: (ok: boolean) => void): void {
     this.casesWanted = null;
+    const html = (h: string) => () => h;
+    void this.applyCases({
+      blocks: m.blocks.map(([line, h]) => [line, html(h)]), cells: m.cells.map(([id, h]) => [id, html(h)]),
+      notes: m.notes.map(([id, h]) => [id, html(h)]), summary: html(m.summary), verdicts: new Map(m.verdicts),
+    }).then(done);
+  }
+
+  /**
+   * The cases' verdicts on the page, a part per task (a cases block is a table; a check's output is
+   * typeset), WORKER_SLICE_MS of them at most: each cases block, the output of each check limited to
+   * cases (it shows its verdict over them), each check's cases note, then in one last task the checks
+   * summary with the review badges and panel (the listeners, told of every check limited to cases).
+   * A part that reads as before is left alone.
+   * @returns false when a load, or the worker's failure, came first
+   */
+  private applyCases(shown: CasesShown): Promise<boolean> {
     const token = this.token;
-    // A block whose verdicts read as before is left alone.
-    const steps: Array<() => void> = m.blocks.filter(([line, html]) => this.lastHtml.get(`#cases-${line}`) !== html).map(([line, html]) => () => {
-      const el = this.root.querySelector<HTMLElement>(`#line-${line} [data-cases]`);
-      if (el) el.outerHTML = html;
-      this.lastHtml.set(`#cases-${line}`, html);
+    const patched: string[] = [];
+    const steps: Array<() => void> = [
+      ...shown.blocks.map(([line, render]) => () => {
+        const html = render();
+        if (this.lastHtml.get(`#cases-${line}`) === html) return;
+        const el = this.root.querySelector<HTMLElement>(`#line-${line} [data-cases]`);
+        if (el) el.outerHTML = html;
+        this.lastHtml.set(`#cases-${line}`, html);
+      }),
+      ...shown.cells.map(([id, render]) => () => {
+        const html = render();
+        if (html === null) return;
+        // Worker mode: a later patch of this cell shows this HTML, not an older answer's.
+        if (this.worker) this.incoming.set(id, html);
+        const el = this.cells.get(id);
+        if (!el || html === this.lastHtml.get(id)) return;
+        replaceInner(el, html);
+        this.lastHtml.set(id, html);
+        patched.push(id);
+      }),
+      ...shown.notes.map(([id, render]) => () => this.patchNote(id, render())),
+      () => {
+        this.casesNow = shown.verdicts;
+        const summary = shown.summary();
+        if (this.worker) this.incomingParts.set('check-summary', summary);
+        if (this.patchPart('check-summary', () => summary)) patched.push('@check-summary');
+        const at = performance.now();
+        const event: PatchEvent = { changed: [...shown.verdicts.keys()], patched, deferred: this.deferred.size, computeStart: at, renderStart: at, at };
+        for (const l of this.listeners) l(event);
+      },
+    ];
+    return new Promise((done) => {
+      const step = () => {
+        // A load, or the worker's failure, since: these verdicts are of a document no longer shown.
+        if (token !== this.token) return done(false);
+        const start = performance.now();
+        do steps.shift()!();
+        while (steps.length && performance.now() - start < WORKER_SLICE_MS);
+        if (steps.length) nextTask(step);
+        else done(true);
+      };
+      step();
     });
-    steps.push(() => {
-      this.incomingParts.set('check-summary', m.summary);
-      this.patchPart('check-summary', () => m.summary);
-    });
-    const step = () => {
-      // A load, or the worker's failure, since: these verdicts are of a document no longer shown.
-      if (token !== this.token) return done(false);
-      const start = performance.now();
-      do steps.shift()!();
-      while (steps.length && performance.now() - start < WORKER_SLICE_MS);
-      if (steps.length) nextTask(step);
-      else done(true);
-    };
-    step();
+  }
+
+  /** A check's cases note (its governing case), above its output; '' removes it. */
+  private patchNote(id: string, html: string): void {
+    const key = `~note-${id}`;
+    const out = this.cells.get(id);
+    if (this.lastHtml.get(key) === html || !out?.parentElement) return;
+    out.parentElement.querySelector(':scope > .vb-casenote')?.remove();
+    if (html) out.insertAdjacentHTML('beforebegin', html);
+    this.lastHtml.set(key, html);
   }
 
   resetAll(): void {
@@ -870,15 +958,23 @@ export class LiveSheet {
     document.dispatchEvent(new CustomEvent('vaultbook:settled', { detail: event }));
   }
 
-  /** The cases' verdicts (site/cases.ts): the checks summary and each cases block show them from now on. */
-  showCases(run: CaseRun): void {
+  /**
+   * The cases' verdicts (site/cases.ts), judged on the main thread: each cases block, each check
+   * limited to cases, the cases notes and the checks summary show them from now on (see applyCases).
+   * @returns false when a load or the worker's failure came first
+   */
+  showCases(run: CaseRun): Promise<boolean> {
     this.ctx.cases = run;
-    for (const block of this.doc.blocks) {
-      if (block.kind !== 'calc' || block.cellKind !== 'cases') continue;
-      const el = this.root.querySelector<HTMLElement>(`#line-${block.span.start.line} [data-cases]`);
-      if (el) el.outerHTML = renderCasesBlock(block, this.ctx);
-    }
-    this.patchPart('check-summary', () => renderCheckSummary(this.doc, this.session.states, this.ctx));
+    const { doc, ctx } = this;
+    const states = this.session.states;
+    return this.applyCases({
+      blocks: doc.blocks.flatMap((block): Array<[number, () => string]> => (block.kind === 'calc' && block.cellKind === 'cases' ? [[block.span.start.line, () => renderCasesBlock(block, ctx)]] : [])),
+      // A check computing again is patched when it settles (with these verdicts).
+      cells: checksShownByCases(doc).map((cell) => [cell.id, () => { const state = states.get(cell.id); return state && state.status !== 'pending' ? renderCellOutput(cell, state, ctx) : null; }]),
+      notes: doc.graph.cells.filter((c) => c.kind === 'check').map((cell) => [cell.id, () => checkCasesNote(cell, ctx)]),
+      summary: () => renderCheckSummary(doc, states, ctx),
+      verdicts: verdictsOverCases(doc, run),
+    });
   }
 
   private patchPart(part: string, render: () => string): boolean {
