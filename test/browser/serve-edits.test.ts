@@ -57,6 +57,33 @@ describe('vaultbook serve: states after an edit, and edits left by Tab or a clic
     });
   }
 
+  it('cross-vault opened on a case (serve --case EQU), then b_bay = 4 m: the four buttress checks are warnings, none a pass; opening on the case flips none of them', async () => {
+    const live = await openLive(browser, join(REPO, 'templates', 'cross-vault.md'), {
+      case: 'EQU',
+      prepare: (page) => page.addInitScript(() => {
+        (window as unknown as { __cases: Promise<unknown> }).__cases = new Promise((ok) => document.addEventListener('vaultbook:cases', ok, { once: true }));
+      }),
+    });
+    try {
+      const { page } = live;
+      expect(await page.locator('#lv-case').inputValue()).toBe('EQU');
+      const buttress = ['c_third', 'c_overturn', 'c_slide', 'c_bearing'];
+      const flipped = () => page.evaluate((ids) => ids.filter((id) => /lv-flipped/.test(document.querySelector(`[data-cell="${id}"]`)?.className ?? '')), buttress);
+      // EQU's factors are trial values; each buttress check still shows its verdict over its cases, as written: no flip.
+      await page.evaluate(() => (window as unknown as { __cases: Promise<unknown> }).__cases);
+      expect(await page.locator('#lv-review tr[data-review-input]').count()).toBeGreaterThan(0);
+      expect(await flipped()).toEqual([]);
+      await editInput(page, 'b_bay', '4 m');
+      await page.waitForFunction(() => /4 of 7 not evaluated/.test(document.querySelector('[data-part="check-summary"]')?.textContent ?? ''), null, { timeout: 30_000 });
+      expect(await flipped()).toEqual(buttress);
+      for (const id of buttress) expect(await page.locator(`[data-cell="${id}"]`).getAttribute('class'), id).toMatch(/lv-flipped-warn/);
+      const panel = page.locator('#lv-review .lv-flips');
+      expect(await panel.locator('.lv-fliprow-warn').count()).toBe(4);
+      expect(await panel.locator('.lv-fliprow-pass').count()).toBe(0);
+      expect(live.errors).toEqual([]);
+    } finally { await live.close(); }
+  });
+
   it('leaving a field with a new value applies it: Tab, and a click elsewhere on the page', async () => {
     const live = await openLive(browser, join(FIXTURES, 'barrel.md'));
     try {
