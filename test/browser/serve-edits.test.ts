@@ -33,8 +33,22 @@ describe('vaultbook serve: states after an edit, and edits left by Tab or a clic
         expect(await page.evaluate(() => window.vaultbook.sheet.worker !== null)).toBe(mode === 'worker');
         expect(await page.locator('[data-cell="c_third"]').textContent()).toMatch(/✓\s*HOLDSu = 0\.85/);
         await editInput(page, 'b_bay', '4 m');
+        // From here to the cases' verdicts shown: every main-thread task, long ones reported (in the worker, the
+        // cases are judged there and the page swaps their parts a few at a time).
+        await page.evaluate(() => {
+          const w = window as unknown as { __long: number[] };
+          w.__long = [];
+          new PerformanceObserver((list) => { for (const e of list.getEntries()) w.__long.push(e.duration); }).observe({ type: 'longtask' });
+        });
         // The cases are judged again in the background once the page is quiet.
         await page.waitForFunction(() => /4 of 7 not evaluated/.test(document.querySelector('[data-part="check-summary"]')?.textContent ?? ''), null, { timeout: 30_000 });
+        if (mode === 'worker') {
+          await page.waitForTimeout(100); // a long task is reported a moment after it ends
+          const longest = Math.max(0, ...await page.evaluate(() => (window as unknown as { __long: number[] }).__long));
+          console.log(`cross-vault, cases shown after b_bay = 4 m in worker mode: longest main-thread task ${longest.toFixed(0)} ms`);
+          // The target is 50 ms; this shared, loaded machine gets 150 ms (as test/browser/serve-worker.test.ts).
+          expect(longest).toBeLessThan(150);
+        }
         for (const id of ['c_third', 'c_overturn', 'c_slide', 'c_bearing']) {
           const cell = page.locator(`[data-cell="${id}"]`);
           expect(await cell.getAttribute('class'), id).toMatch(/lv-flipped-warn/);
