@@ -118,16 +118,18 @@ export class LiveCases {
     clearTimeout(this.timer);
     if (this.cases.length === 0 && this.sheet.doc.cases.limits.size === 0) return;
     const generation = ++this.generation;
+    // Until the verdicts are shown, what shows them is out of date (a printout says so).
+    this.sheet.judgingCases(true);
     this.timer = setTimeout(async () => {
-      const trials = this.trials();
-      if (this.sheet.worker) {
-        // Evaluating in a worker: the worker judges the cases and renders their verdicts.
-        if (!(await this.sheet.judgeCasesInWorker(trials, generation)) || generation !== this.generation) return;
-      } else {
-        const run = await judgeWithTrials(this.sheet.doc, trials);
+      // Evaluating in a worker: the worker judges the cases and renders their verdicts.
+      let shown = this.sheet.worker ? await this.sheet.judgeCasesInWorker(this.trials(), generation) : false;
+      // On the main thread, also when the worker failed before answering (the page evaluates there since).
+      if (!shown && !this.sheet.worker && generation === this.generation) {
+        const run = await judgeWithTrials(this.sheet.doc, this.trials());
         if (generation !== this.generation) return;
-        if (!(await this.sheet.showCases(run)) || generation !== this.generation) return;
+        shown = await this.sheet.showCases(run);
       }
+      if (!shown || generation !== this.generation) return;
       document.dispatchEvent(new CustomEvent('vaultbook:cases', { detail: { shown: this.shown } }));
     }, QUIET_MS);
   }

@@ -144,6 +144,16 @@ function nextTask(fn: () => void): void {
 /** The class (with aria-busy) of a cell whose new value is being computed. */
 export const WAITING_CLASS = 'lv-computing';
 
+/**
+ * The class of a part whose values are out of date until the cases are judged again (each check
+ * limited to cases, each cases block), or until an edit's answer arrives (the checks summary). Only
+ * a printout shows it (print.css), with the body's PENDING_CLASS banner: the screen has the waiting marks.
+ */
+export const STALE_CLASS = 'lv-stale';
+
+/** The body's class while any value on the page is pending (print.css prints a banner then). */
+export const PENDING_CLASS = 'lv-pending';
+
 /** Each given input's transitive dependents (itself included): the cells an edit of it may move. */
 function dependentsOf(doc: CompiledDocument): Map<string, string[]> {
   const inputs = doc.graph.cells.filter((c) => c.kind === 'given');
@@ -202,6 +212,8 @@ export class LiveSheet {
    */
   private casesBefore = new Map<string, CheckVerdict>();
   private casesNow = new Map<string, CheckVerdict>();
+  /** The cases are being judged again: what shows their verdicts is out of date. */
+  private casesStale = false;
   /** Each cell's evaluations when the load settled (main-thread mode). */
   private loadEvaluations = new Map<string, number>();
   /** Worker mode: cells marked waiting for their new values. */
@@ -242,6 +254,8 @@ export class LiveSheet {
     window.addEventListener('beforeprint', () => {
       while (this.inView.length) this.slice();
       this.patchDeferred(Infinity);
+      // Values still computing print marked as such, even within the moment before the page marks them.
+      this.markWaiting([...this.waiting]);
     });
   }
 
@@ -287,6 +301,7 @@ export class LiveSheet {
     const options = { standalone: false, ...(archive ? { archive } : {}) };
     const judged = await judge?.(this.doc);
     const cases = judged?.run;
+    this.casesStale = false;
     this.casesBefore = judged ? verdictsOverCases(this.doc, judged.asWritten) : new Map();
     this.casesNow = judged ? verdictsOverCases(this.doc, judged.run) : new Map();
     this.ctx = makeRenderContext(this.doc, this.session.states, this.session.warnings, options);
@@ -331,6 +346,7 @@ export class LiveSheet {
       if (el) this.observer?.observe(el);
     }
     for (const cell of this.doc.graph.cells) if (cell.kind === 'check') this.lastHtml.set(`~note-${cell.id}`, checkCasesNote(cell, this.ctx));
+    this.showPending();
     // In worker mode the states on the page are those of the load only: nothing to learn from them.
     if (!this.worker) this.learnShownHtml();
   }
@@ -469,13 +485,43 @@ export class LiveSheet {
     for (const id of moved) this.waiting.add(id);
     // Marked on the page with the answer's task, or once the answer is late: a quick answer then
     // patches in the task after the edit's, with no frame drawn in between for the marks.
-    this.withAnswer(() => {
-      for (const id of moved) {
-        const el = this.waiting.has(id) ? this.cells.get(id) : undefined;
-        el?.classList.add(WAITING_CLASS);
-        el?.setAttribute('aria-busy', 'true');
-      }
-    });
+    this.withAnswer(() => this.markWaiting(moved));
+  }
+
+  /** Marks the cells still waiting for their new values among `ids` (class and aria-busy). */
+  private markWaiting(ids: string[]): void {
+    let marked = false;
+    for (const id of ids) {
+      const el = this.waiting.has(id) ? this.cells.get(id) : undefined;
+      if (!el) continue;
+      el.classList.add(WAITING_CLASS);
+      el.setAttribute('aria-busy', 'true');
+      marked = true;
+    }
+    if (marked) this.showPending();
+  }
+
+  /**
+   * The cases are being judged again (site/cases.ts, from the moment the page settles after a change
+   * until their verdicts are shown): what shows them is out of date meanwhile.
+   */
+  judgingCases(on: boolean): void {
+    if (this.casesStale === on) return;
+    this.casesStale = on;
+    this.showPending();
+  }
+
+  /**
+   * Marks what is out of date, for a printout (print.css): the parts that show the cases' verdicts
+   * while they are judged again, the checks summary while an edit's answer is awaited too, and the
+   * body (a banner) while anything is pending.
+   */
+  private showPending(): void {
+    const waiting = this.waiting.size > 0 && [...this.waiting].some((id) => this.cells.get(id)?.classList.contains(WAITING_CLASS));
+    document.body.classList.toggle(PENDING_CLASS, waiting || this.casesStale);
+    this.parts.get('check-summary')?.classList.toggle(STALE_CLASS, waiting || this.casesStale);
+    for (const el of this.root.querySelectorAll<HTMLElement>('[data-cases]')) el.classList.toggle(STALE_CLASS, this.casesStale);
+    if (this.doc) for (const cell of checksShownByCases(this.doc)) this.cells.get(cell.id)?.classList.toggle(STALE_CLASS, this.casesStale);
   }
 
   /**
@@ -506,6 +552,7 @@ export class LiveSheet {
     const el = this.cells.get(id);
     el?.classList.remove(WAITING_CLASS);
     el?.removeAttribute('aria-busy');
+    if (this.waiting.size === 0) this.showPending();
   }
 
   private fromWorker(m: FromWorker): void {
@@ -675,6 +722,8 @@ export class LiveSheet {
       ...shown.notes.map(([id, render]) => () => this.patchNote(id, render())),
       () => {
         this.casesNow = shown.verdicts;
+        this.casesStale = false;
+        this.showPending();
         const summary = shown.summary();
         if (this.worker) this.incomingParts.set('check-summary', summary);
         if (this.patchPart('check-summary', () => summary)) patched.push('@check-summary');

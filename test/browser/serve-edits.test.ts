@@ -23,10 +23,12 @@ describe('vaultbook serve: states after an edit, and edits left by Tab or a clic
       // (z_thrust / z_fill = 1.02, `vaultbook check templates/cross-vault.md --set "b_bay=4 m"`). As written,
       // c_third holds over its case with u = 0.85 (the same command without --set). test/serve/review.test.ts checks the words.
       const live = await openLive(browser, join(REPO, 'templates', 'cross-vault.md'), {
-        prepare: (page) => page.addInitScript((main) => {
-          if (main) localStorage.setItem('vaultbook:evaluate', 'main');
-          else localStorage.removeItem('vaultbook:evaluate');
-        }, mode === 'main'),
+        prepare: async (page) => {
+          await page.addInitScript((main) => {
+            if (main) localStorage.setItem('vaultbook:evaluate', 'main');
+            else localStorage.removeItem('vaultbook:evaluate');
+          }, mode === 'main');
+        },
       });
       try {
         const { page } = live;
@@ -74,9 +76,11 @@ describe('vaultbook serve: states after an edit, and edits left by Tab or a clic
   it('cross-vault opened on a case (serve --case EQU), then b_bay = 4 m: the four buttress checks are warnings, none a pass; opening on the case flips none of them', async () => {
     const live = await openLive(browser, join(REPO, 'templates', 'cross-vault.md'), {
       case: 'EQU',
-      prepare: (page) => page.addInitScript(() => {
-        (window as unknown as { __cases: Promise<unknown> }).__cases = new Promise((ok) => document.addEventListener('vaultbook:cases', ok, { once: true }));
-      }),
+      prepare: async (page) => {
+        await page.addInitScript(() => {
+          (window as unknown as { __cases: Promise<unknown> }).__cases = new Promise((ok) => document.addEventListener('vaultbook:cases', ok, { once: true }));
+        });
+      },
     });
     try {
       const { page } = live;
