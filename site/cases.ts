@@ -4,8 +4,10 @@
  * governing case and the cases block — recomputed in the background after each change.
  */
 import { compile, expandCases, judgeCases, startSession } from '../engine/index.js';
-import type { Case, CaseRun, CompiledDocument } from '../engine/index.js';
-import type { LiveSheet } from './preview.js';
+import type { Case, CaseRun, Cell, CompiledDocument } from '../engine/index.js';
+import type { LiveSheet, LoadCases } from './preview.js';
+import type { CheckVerdict } from './review.js';
+import { verdictOverCases } from './sheet.js';
 
 /** Waits this long after the page settles before judging every case again (ms). */
 const QUIET_MS = 250;
@@ -23,6 +25,20 @@ export async function judgeWithTrials(doc: CompiledDocument, trials: Record<stri
   } finally {
     session.dispose();
   }
+}
+
+/**
+ * The checks limited to cases (`[in …]`): on the page each shows its verdict over those cases
+ * (the page's runs show no case in place of the document), so their output and their change of
+ * state follow the cases' verdicts, not the page's session.
+ */
+export function checksShownByCases(doc: CompiledDocument): Cell[] {
+  return doc.graph.cells.filter((c) => c.kind === 'check' && doc.cases.limits.has(c.id));
+}
+
+/** Each check limited to cases: its verdict over them in a run, by id. */
+export function verdictsOverCases(doc: CompiledDocument, run: CaseRun): Map<string, CheckVerdict> {
+  return new Map(checksShownByCases(doc).map((c) => [c.id, verdictOverCases(run, c.id)]));
 }
 
 export class LiveCases {
@@ -46,24 +62,19 @@ export class LiveCases {
     return this.chosen?.name ?? null;
   }
 
-  /** Is this check judged in the case shown? (`[in …]` limits a check to some cases; the document as written is none of them.) */
-  judgesHere(checkId: string): boolean {
-    const limit = this.sheet.doc.cases.limits.get(checkId);
-    if (!limit) return true;
-    const c = this.chosen;
-    return c !== null && (limit.includes(c.name) || (c.family !== null && limit.includes(c.family)));
-  }
-
   /**
    * The verdicts of every case for a document being loaded, with the page's trial values (LiveSheet.load paints
-   * the sheet with them, so the cases block and the checks summary have their height from the start);
-   * undefined for a document without cases.
+   * the sheet with them, so the cases block and the checks summary have their height from the start), and
+   * as written (what a check limited to cases is reviewed against); undefined for a document without cases.
    */
-  async judgeLoading(doc: CompiledDocument): Promise<CaseRun | undefined> {
+  async judgeLoading(doc: CompiledDocument): Promise<LoadCases | undefined> {
     if (expandCases(doc, this.sheet.baseline).cases.length === 0 && doc.cases.limits.size === 0) return undefined;
-    const run = await judgeWithTrials(doc, this.trials());
+    const trials = this.trials();
+    const run = await judgeWithTrials(doc, trials);
+    // Trial values kept over a reload: the document as written is judged apart.
+    const asWritten = Object.keys(trials).length ? await judgeWithTrials(doc, {}) : run;
     this.judged = doc;
-    return run;
+    return { run, asWritten, trials };
   }
 
   /** The page's trial values less the chosen case's own (every case sets those itself). */
@@ -107,16 +118,18 @@ export class LiveCases {
     clearTimeout(this.timer);
     if (this.cases.length === 0 && this.sheet.doc.cases.limits.size === 0) return;
     const generation = ++this.generation;
+    // Until the verdicts are shown, what shows them is out of date (a printout says so).
+    this.sheet.judgingCases(true);
     this.timer = setTimeout(async () => {
-      const trials = this.trials();
-      if (this.sheet.worker) {
-        // Evaluating in a worker: the worker judges the cases and renders their verdicts.
-        if (!(await this.sheet.judgeCasesInWorker(trials, generation)) || generation !== this.generation) return;
-      } else {
-        const run = await judgeWithTrials(this.sheet.doc, trials);
+      // Evaluating in a worker: the worker judges the cases and renders their verdicts.
+      let shown = this.sheet.worker ? await this.sheet.judgeCasesInWorker(this.trials(), generation) : false;
+      // On the main thread, also when the worker failed before answering (the page evaluates there since).
+      if (!shown && !this.sheet.worker && generation === this.generation) {
+        const run = await judgeWithTrials(this.sheet.doc, this.trials());
         if (generation !== this.generation) return;
-        this.sheet.showCases(run);
+        shown = await this.sheet.showCases(run);
       }
+      if (!shown || generation !== this.generation) return;
       document.dispatchEvent(new CustomEvent('vaultbook:cases', { detail: { shown: this.shown } }));
     }, QUIET_MS);
   }

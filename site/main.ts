@@ -44,8 +44,12 @@ function showChange(id: string): void {
   const cell = sheet.cell(id);
   const el = sheet.cellElement(id);
   if (!cell || !el || cell.kind === 'given') return;
-  // Evaluating in a worker: the worker compares each result it sends; one it never sent is as loaded.
-  const change = sheet.worker && sheet.workerChange(id) !== undefined ? sheet.workerChange(id)! : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs(), documentUnitSystem(sheet.doc, sheet.baseline));
+  // A check limited to cases shows its verdict over them: its change is that verdict's (as written → as
+  // last judged). Evaluating in a worker: the worker compares each result it sends; one it never sent is as loaded.
+  const byCases = sheet.caseChange(id);
+  const change = byCases !== undefined ? byCases
+    : sheet.worker && sheet.workerChange(id) !== undefined ? sheet.workerChange(id)!
+      : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs(), documentUnitSystem(sheet.doc, sheet.baseline));
   if (change) changes.set(id, change); else changes.delete(id);
   const html = changeBadge(change);
   let badge = el.querySelector<HTMLElement>(':scope > .lv-badge');
@@ -58,13 +62,12 @@ function showChange(id: string): void {
     }
     if (badge.innerHTML !== html) badge.innerHTML = html;
   }
-  // A check limited to other cases than the one shown is not judged here: its flip is no news.
-  const flip = change?.kind === 'check' && change.flipped && cases.judgesHere(id) ? flipTone(change.after) : null;
+  const flip = change?.kind === 'check' && change.flipped ? flipTone(change.after) : null;
   for (const tone of ['fail', 'warn', 'pass'] as const) el.classList.toggle(`lv-flipped-${tone}`, flip === tone);
 }
 
 function renderPanel(): void {
-  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped && cases.judgesHere(c.id) ? [{ id: c.id, label: withoutLimitMarker(sheet.cell(c.id)?.description ?? '') || c.id, before: c.before, after: c.after }] : []));
+  const flips = [...changes.values()].flatMap((c) => (c.kind === 'check' && c.flipped ? [{ id: c.id, label: withoutLimitMarker(sheet.cell(c.id)?.description ?? '') || c.id, before: c.before, after: c.after }] : []));
   const html = renderReviewPanel({
     file: loaded.file, inputs: inputChanges(sheet.doc, sheet.overrides), flips, changedResults: changes.size,
     dropped, message, writing,

@@ -18,11 +18,11 @@
  */
 import { compile, startSession } from '../engine/index.js';
 import { readOverride } from '../engine/parse/override.js';
-import { downstreamOf } from '../engine/cases/dirty.js';
-import type { ResultChange } from './review.js';
-import type { FromWorker, ToWorker } from './worker/protocol.js';
+import { compareVerdicts, type CheckVerdict, type ResultChange } from './review.js';
+import { checksShownByCases, verdictsOverCases } from './cases.js';
+import { WorkerClient, type WorkerCases } from './worker/client.js';
 import type { CaseRun, Cell, CellState, CompiledDocument, Diagnostic, Session } from '../engine/index.js';
-import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
+import { checkCasesNote, makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderSheet, renderStatus, type ArchiveInfo, type RenderContext } from './sheet.js';
 
 export interface PatchEvent {
   /** Cells whose state changed and were handled in this patch (replaced, or the same HTML). */
@@ -42,6 +42,25 @@ export interface PatchEvent {
    * edit, when its evaluation settled, and when it posted the result.
    */
   worker?: { received: number; settled: number; posted: number };
+}
+
+/** The cases' verdicts for a document being loaded (LiveCases.judgeLoading). */
+export interface LoadCases {
+  /** With the page's trial values (less the chosen case's own): what the page shows. */
+  run: CaseRun;
+  /** The document as written, with no trial value: what a check limited to cases is reviewed against. */
+  asWritten: CaseRun;
+  trials: Record<string, string>;
+}
+
+/** The cases' verdicts as the page shows them, each part rendered when its turn comes (LiveSheet.applyCases). */
+interface CasesShown {
+  blocks: Array<[number, () => string]>;
+  /** null: leave the cell as it is (it is patched when it settles). */
+  cells: Array<[string, () => string | null]>;
+  notes: Array<[string, () => string]>;
+  summary: () => string;
+  verdicts: Map<string, CheckVerdict>;
 }
 
 export interface LoadResult {
@@ -78,9 +97,6 @@ const WORKER_SLICE_MS = 4;
  * slice is also bounded by what it adds (about 1,000 elements of a typical sheet).
  */
 const WORKER_SLICE_CHARS = 24_000;
-
-/** Evaluating in a worker: how long the page changes that go with an edit wait for its answer (ms). */
-const ANSWER_WAIT_MS = 40;
 
 /**
  * Evaluate in a worker (site/worker/evaluate.ts), off the page's main thread: the default wherever
@@ -124,11 +140,15 @@ function nextTask(fn: () => void): void {
 /** The class (with aria-busy) of a cell whose new value is being computed. */
 export const WAITING_CLASS = 'lv-computing';
 
-/** Each given input's transitive dependents (itself included): the cells an edit of it may move. */
-function dependentsOf(doc: CompiledDocument): Map<string, string[]> {
-  const inputs = doc.graph.cells.filter((c) => c.kind === 'given');
-  return new Map(inputs.map((c) => [c.id, [...downstreamOf(doc.graph, [c.id])]]));
-}
+/**
+ * The class of a part whose values are out of date until the cases are judged again (each check
+ * limited to cases, each cases block), or until an edit's answer arrives (the checks summary). Only
+ * a printout shows it (print.css), with the body's PENDING_CLASS banner: the screen has the waiting marks.
+ */
+export const STALE_CLASS = 'lv-stale';
+
+/** The body's class while any value on the page is pending (print.css prints a banner then). */
+export const PENDING_CLASS = 'lv-pending';
 
 export class LiveSheet {
   doc!: CompiledDocument;
@@ -164,26 +184,24 @@ export class LiveSheet {
 
   /** The evaluation worker, when evaluating off the main thread (see workerChosen); null on the main thread. */
   get worker(): Worker | null {
-    return this.evaluator;
+    return this.client?.worker ?? null;
   }
-  private evaluator: Worker | null = null;
-  /** Worker mode: the latest edit sent, the latest result taken, the load the worker works on. */
-  private seq = 0;
-  private accepted = 0;
+  /** The page's side of the worker (site/worker/client.ts); null on the main thread. */
+  private client: WorkerClient | null = null;
+  /** The document shown: a load, or the worker's failure, makes the cases' verdicts on their way out of date. */
   private token = 0;
-  /** Worker mode: each cell's latest HTML and review change from the worker. */
-  private incoming = new Map<string, string>();
-  private incomingParts = new Map<string, string>();
-  private workerChanges = new Map<string, ResultChange | null>();
-  private workerEvaluations = new Map<string, number>();
+  /**
+   * Each check limited to cases: its verdict over them as written, and as shown now (from the latest
+   * cases' verdicts); its change of state is between the two (caseChange).
+   */
+  private casesBefore = new Map<string, CheckVerdict>();
+  private casesNow = new Map<string, CheckVerdict>();
+  /** The cases are being judged again: what shows their verdicts is out of date. */
+  private casesStale = false;
   /** Each cell's evaluations when the load settled (main-thread mode). */
   private loadEvaluations = new Map<string, number>();
   /** Worker mode: cells marked waiting for their new values. */
   private waiting = new Set<string>();
-  private downstream = new Map<string, string[]>();
-  private casesWanted: { generation: number; done: (ok: boolean) => void } | null = null;
-  private driversWanted: { generation: number; done: (html: string | null | undefined) => void } | null = null;
-  private driversGeneration = 0;
   /** Worker mode: the in-view elements of the result being patched, a slice per task; then `deferred`. */
   private inView: string[] = [];
   private inViewChanged: string[] = [];
@@ -192,8 +210,6 @@ export class LiveSheet {
   private slicing = false;
   /** Worker mode: a result is being patched whose `vaultbook:patched` has not been fired yet. */
   private awaitedPatch = false;
-  private withAnswerQueue: Array<() => void> = [];
-  private withAnswerTimer: ReturnType<typeof setTimeout> | undefined;
   private workerTimes: PatchEvent['worker'];
   /** Why the page evaluates on its main thread although a worker was chosen (null: it does not). */
   fallbackReason: string | null = null;
@@ -201,14 +217,13 @@ export class LiveSheet {
   constructor(readonly root: HTMLElement, readonly isHeld: (el: HTMLElement) => boolean = () => false, useWorker = workerChosen()) {
     if (useWorker) {
       try {
-        // Written out in full so that the build bundles the worker as a file of its own.
-        this.evaluator = new Worker(new URL('./worker/evaluate.ts', import.meta.url), { type: 'module' });
-        this.evaluator.addEventListener('message', (e: MessageEvent<FromWorker>) => this.fromWorker(e.data));
-        // A worker whose script cannot load or run: evaluate on the main thread instead.
-        this.evaluator.addEventListener('error', (e) => { e.preventDefault(); this.fallBack(`the worker stopped: ${e.message || 'its script did not load'}`); });
-        this.evaluator.addEventListener('messageerror', () => this.fallBack('a message from the worker could not be read'));
+        this.client = new WorkerClient({
+          answered: (cells, times) => this.answered(cells, times),
+          cases: (m, done) => this.showWorkerCases(m, done),
+          failed: (reason, sent) => this.fallBack(reason, sent),
+        });
       } catch (e) {
-        this.evaluator = null;
+        this.client = null;
         this.fallbackReason = `the worker could not start: ${(e as Error).message}`;
       }
     }
@@ -216,6 +231,8 @@ export class LiveSheet {
     window.addEventListener('beforeprint', () => {
       while (this.inView.length) this.slice();
       this.patchDeferred(Infinity);
+      // Values still computing print marked as such, even within the moment before the page marks them.
+      this.markWaiting([...this.waiting]);
     });
   }
 
@@ -233,7 +250,7 @@ export class LiveSheet {
    * @param judge the cases' verdicts for the document just evaluated (site/cases.ts), awaited before the sheet
    *   is painted so that the cases block and the checks summary take their full height from the start
    */
-  async load(text: string, file: string, archive?: ArchiveInfo, judge?: (doc: CompiledDocument) => Promise<CaseRun | undefined>): Promise<LoadResult> {
+  async load(text: string, file: string, archive?: ArchiveInfo, judge?: (doc: CompiledDocument) => Promise<LoadCases | undefined>): Promise<LoadResult> {
     this.unsubscribe?.();
     this.session?.dispose();
     this.doc = compile(text, { file });
@@ -259,22 +276,18 @@ export class LiveSheet {
     this.loadEvaluations = new Map(this.session.evaluations);
     // The context reads session.states live, so one context serves every later patch.
     const options = { standalone: false, ...(archive ? { archive } : {}) };
-    const cases = await judge?.(this.doc);
+    const judged = await judge?.(this.doc);
+    const cases = judged?.run;
+    this.casesStale = false;
+    this.casesBefore = judged ? verdictsOverCases(this.doc, judged.asWritten) : new Map();
+    this.casesNow = judged ? verdictsOverCases(this.doc, judged.run) : new Map();
     this.ctx = makeRenderContext(this.doc, this.session.states, this.session.warnings, options);
     if (cases) this.ctx.cases = cases;
     this.root.innerHTML = renderSheet({ doc: this.doc, states: this.session.states, warnings: this.session.warnings, options, ...(cases ? { cases } : {}) });
     this.index();
     this.unsubscribe = this.session.subscribe((id, state) => this.mark(id, state));
-    if (this.worker) {
-      this.token++;
-      this.accepted = this.seq;
-      this.incoming.clear();
-      this.incomingParts.clear();
-      this.workerChanges.clear();
-      this.workerEvaluations = new Map();
-      this.downstream = dependentsOf(this.doc);
-      this.post({ type: 'load', token: this.token, text, file, ...(archive ? { archive } : {}), overrides: [...this.overrides] });
-    }
+    this.token++;
+    this.client?.load(this.doc, text, file, archive, [...this.overrides], judged?.trials);
     return { dropped };
   }
 
@@ -301,6 +314,8 @@ export class LiveSheet {
       const el = this.parts.get(part);
       if (el) this.observer?.observe(el);
     }
+    for (const cell of this.doc.graph.cells) if (cell.kind === 'check') this.lastHtml.set(`~note-${cell.id}`, checkCasesNote(cell, this.ctx));
+    this.showPending();
     // In worker mode the states on the page are those of the load only: nothing to learn from them.
     if (!this.worker) this.learnShownHtml();
   }
@@ -350,7 +365,8 @@ export class LiveSheet {
   /** The sheet's parts that depend on every cell: status banner, checks summary, diagnostics list. */
   private partRenderers(): Array<[string, () => string]> {
     if (this.worker) {
-      return ['status', 'check-summary', 'diagnostics'].map((part) => [part, () => this.incomingParts.get(part) ?? this.lastHtml.get(`@${part}`) ?? '']);
+      const incoming = this.client!.incomingParts;
+      return ['status', 'check-summary', 'diagnostics'].map((part) => [part, () => incoming.get(part) ?? this.lastHtml.get(`@${part}`) ?? '']);
     }
     const { doc, ctx } = this;
     const states = this.session.states, warnings = this.session.warnings;
@@ -396,7 +412,7 @@ export class LiveSheet {
       return null;
     }
     if (this.overrides.get(name) === value) return null;
-    if (this.worker) {
+    if (this.client) {
       const d = this.check(name, value);
       if (d) return d;
       this.overrides.set(name, value);
@@ -411,7 +427,7 @@ export class LiveSheet {
   resetInput(name: string): void {
     if (!this.overrides.has(name)) return;
     this.overrides.delete(name);
-    if (this.worker) this.send(name, { type: 'reset', name });
+    if (this.client) this.send(name, { type: 'reset', name });
     else this.session.resetInput(name);
   }
 
@@ -426,48 +442,60 @@ export class LiveSheet {
     };
   }
 
-  private post(m: ToWorker): void {
-    this.evaluator?.postMessage(m);
-  }
-
   /** Worker mode: sends an edit and marks the cells it moves as waiting. */
   private send(name: string, m: { type: 'set'; name: string; value: string } | { type: 'reset'; name: string }): void {
     this.touched = true;
     this.turnStart = performance.now();
-    this.post({ ...m, seq: ++this.seq, accepted: this.accepted });
-    const moved = (this.downstream.get(name) ?? []).filter((id) => !this.waiting.has(id));
+    const moved = this.client!.send(name, m).filter((id) => !this.waiting.has(id));
     for (const id of moved) this.waiting.add(id);
     // Marked on the page with the answer's task, or once the answer is late: a quick answer then
     // patches in the task after the edit's, with no frame drawn in between for the marks.
-    this.withAnswer(() => {
-      for (const id of moved) {
-        const el = this.waiting.has(id) ? this.cells.get(id) : undefined;
-        el?.classList.add(WAITING_CLASS);
-        el?.setAttribute('aria-busy', 'true');
-      }
-    });
+    this.withAnswer(() => this.markWaiting(moved));
+  }
+
+  /** Marks the cells still waiting for their new values among `ids` (class and aria-busy). */
+  private markWaiting(ids: string[]): void {
+    let marked = false;
+    for (const id of ids) {
+      const el = this.waiting.has(id) ? this.cells.get(id) : undefined;
+      if (!el) continue;
+      el.classList.add(WAITING_CLASS);
+      el.setAttribute('aria-busy', 'true');
+      marked = true;
+    }
+    if (marked) this.showPending();
+  }
+
+  /**
+   * The cases are being judged again (site/cases.ts, from the moment the page settles after a change
+   * until their verdicts are shown): what shows them is out of date meanwhile.
+   */
+  judgingCases(on: boolean): void {
+    if (this.casesStale === on) return;
+    this.casesStale = on;
+    this.showPending();
+  }
+
+  /**
+   * Marks what is out of date, for a printout (print.css): the parts that show the cases' verdicts
+   * while they are judged again, the checks summary while an edit's answer is awaited too, and the
+   * body (a banner) while anything is pending.
+   */
+  private showPending(): void {
+    const waiting = this.waiting.size > 0 && [...this.waiting].some((id) => this.cells.get(id)?.classList.contains(WAITING_CLASS));
+    document.body.classList.toggle(PENDING_CLASS, waiting || this.casesStale);
+    this.parts.get('check-summary')?.classList.toggle(STALE_CLASS, waiting || this.casesStale);
+    for (const el of this.root.querySelectorAll<HTMLElement>('[data-cases]')) el.classList.toggle(STALE_CLASS, this.casesStale);
+    if (this.doc) for (const cell of checksShownByCases(this.doc)) this.cells.get(cell.id)?.classList.toggle(STALE_CLASS, this.casesStale);
   }
 
   /**
    * Runs a change of the page that goes with an edit: evaluating in a worker, together with the
-   * worker's answer (first thing in the task that patches it) or after `ANSWER_WAIT_MS` if the answer
-   * is later; at once otherwise. An edit's own task then writes nothing to the page, so the browser
-   * draws no frame before a quick answer is patched.
+   * worker's answer or once it is late (WorkerClient.withAnswer); at once otherwise.
    */
   withAnswer(fn: () => void): void {
-    if (!this.worker || this.accepted === this.seq) {
-      fn();
-      return;
-    }
-    this.withAnswerQueue.push(fn);
-    this.withAnswerTimer ??= setTimeout(() => this.answerArrived(), ANSWER_WAIT_MS);
-  }
-
-  /** Runs the page changes held for the answer (see withAnswer). */
-  private answerArrived(): void {
-    clearTimeout(this.withAnswerTimer);
-    this.withAnswerTimer = undefined;
-    for (const fn of this.withAnswerQueue.splice(0)) fn();
+    if (this.client) this.client.withAnswer(fn);
+    else fn();
   }
 
   /** Worker mode: a cell's new value arrived (or none is coming): no longer marked waiting. */
@@ -476,36 +504,13 @@ export class LiveSheet {
     const el = this.cells.get(id);
     el?.classList.remove(WAITING_CLASS);
     el?.removeAttribute('aria-busy');
+    if (this.waiting.size === 0) this.showPending();
   }
 
-  private fromWorker(m: FromWorker): void {
-    if (m.type === 'failed') {
-      this.fallBack(`the worker failed: ${m.message}`);
-      return;
-    }
-    if (m.type === 'drivers') {
-      if (this.driversWanted?.generation === m.generation) this.driversWanted.done(m.html);
-      return;
-    }
-    if (m.type === 'loaded' || m.token !== this.token) return;
-    if (m.type === 'cases') {
-      // An answer to an older request (a newer one is on its way): dropped.
-      if (this.casesWanted?.generation === m.generation) this.showWorkerCases(m, this.casesWanted.done);
-      return;
-    }
-    // An answer to an edit that is no longer the latest: dropped (the next answer repeats its cells).
-    if (m.seq !== this.seq) return;
-    this.accepted = m.seq;
-    this.answerArrived();
-    this.workerEvaluations = new Map(m.evaluations);
-    const [received, settled, posted] = m.times.map((t) => t - performance.timeOrigin) as [number, number, number];
-    this.workerTimes = { received, settled, posted };
-    for (const c of m.cells) {
-      this.incoming.set(c.id, c.html);
-      this.workerChanges.set(c.id, c.change);
-      this.dirty.add(c.id);
-    }
-    for (const [part, html] of m.parts) this.incomingParts.set(part, html);
+  /** Worker mode: an edit's answer (its cells' HTML is in the client's `incoming`): patched a slice at a time. */
+  private answered(cells: string[], times: NonNullable<PatchEvent['worker']>): void {
+    this.workerTimes = times;
+    for (const id of cells) this.dirty.add(id);
     // Cells the edit might have moved but did not: nothing is coming for them.
     for (const id of [...this.waiting]) if (!this.dirty.has(id)) this.unmark(id);
     if (this.dirty.size) this.flush();
@@ -515,26 +520,15 @@ export class LiveSheet {
   /**
    * The worker cannot start, or failed: the page evaluates on its main thread from now on. Its
    * session still holds the load's values; the trial values set since are applied to it, and the
-   * cells they move are patched as after any edit.
+   * cells they move are patched as after any edit. `sent`: every cell the worker had sent, shown
+   * again from this page's session (some of its answers may not have been swapped in yet, or belong
+   * to a trial value taken back since).
    */
-  private fallBack(reason: string): void {
-    if (!this.evaluator) return;
+  private fallBack(reason: string, sent: string[]): void {
     console.warn(`vaultbook: evaluating on the page's main thread (${reason})`);
     this.fallbackReason = reason;
-    this.evaluator.terminate();
-    this.evaluator = null;
+    this.client = null;
     this.token++;
-    this.casesWanted?.done(false);
-    this.casesWanted = null;
-    this.driversWanted?.done(undefined);
-    this.driversWanted = null;
-    // Every cell the worker sent is shown again from this page's session (some of its answers may not
-    // have been swapped in yet, or belong to a trial value taken back since).
-    const sent = [...this.incoming.keys()];
-    this.incoming.clear();
-    this.incomingParts.clear();
-    this.workerChanges.clear();
-    this.answerArrived();
     for (const id of [...this.waiting]) this.unmark(id);
     this.inView = [];
     if (!this.doc) return; // not loaded yet: the load evaluates on the main thread
@@ -549,9 +543,18 @@ export class LiveSheet {
     document.dispatchEvent(new CustomEvent('vaultbook:fallback', { detail: { reason } }));
   }
 
+  /**
+   * A check limited to cases: its change of state as the page shows it, its verdict over its cases as
+   * written against the latest judged (null: none); undefined for any other cell.
+   */
+  caseChange(id: string): ResultChange | null | undefined {
+    const before = this.casesBefore.get(id);
+    return before ? compareVerdicts(id, before, this.casesNow.get(id) ?? before) : undefined;
+  }
+
   /** Worker mode: the review change of a result, as the worker computed it (undefined: no news). */
   workerChange(id: string): ResultChange | null | undefined {
-    return this.workerChanges.get(id);
+    return this.client?.changes.get(id);
   }
 
   /** How many cell evaluations the edits since the load ran (in the worker, in worker mode). */
@@ -561,7 +564,7 @@ export class LiveSheet {
 
   /** Each cell's evaluations for the edits since the load (in the worker, in worker mode); the load's own are not counted. */
   evaluationCounts(): Map<string, number> {
-    if (this.worker) return new Map(this.workerEvaluations);
+    if (this.client) return new Map(this.client.evaluations);
     const out = new Map<string, number>();
     for (const [id, n] of this.session.evaluations) if (n > (this.loadEvaluations.get(id) ?? 0)) out.set(id, n - (this.loadEvaluations.get(id) ?? 0));
     return out;
@@ -572,11 +575,7 @@ export class LiveSheet {
    * @returns false when a newer request or load came first
    */
   judgeCasesInWorker(trials: Record<string, string>, generation: number): Promise<boolean> {
-    this.casesWanted?.done(false);
-    return new Promise((ok) => {
-      this.casesWanted = { generation, done: ok };
-      this.post({ type: 'cases', generation, trials });
-    });
+    return this.client ? this.client.judgeCases(trials, generation) : Promise.resolve(false);
   }
 
   /**
@@ -585,38 +584,83 @@ export class LiveSheet {
    *   newer request came first or the worker failed (the page then works it out itself)
    */
   driversInWorker(text: string, target: string): Promise<string | null | undefined> {
-    this.driversWanted?.done(undefined);
-    const generation = ++this.driversGeneration;
+    return this.client ? this.client.drivers(text, this.doc.file ?? '', Object.fromEntries(this.overrides), target) : Promise.resolve(undefined);
+  }
+
+  /** Worker mode: the cases' verdicts as the worker rendered them (see applyCases); then `done(true)`. */
+  private showWorkerCases(m: WorkerCases, done: (ok: boolean) => void): void {
+    const html = (h: string) => () => h;
+    void this.applyCases({
+      blocks: m.blocks.map(([line, h]) => [line, html(h)]), cells: m.cells.map(([id, h]) => [id, html(h)]),
+      notes: m.notes.map(([id, h]) => [id, html(h)]), summary: html(m.summary), verdicts: new Map(m.verdicts),
+    }).then(done);
+  }
+
+  /**
+   * The cases' verdicts on the page, a part per task (a cases block is a table; a check's output is
+   * typeset), WORKER_SLICE_MS of them at most: each cases block, the output of each check limited to
+   * cases (it shows its verdict over them), each check's cases note, then in one last task the checks
+   * summary with the review badges and panel (the listeners, told of every check limited to cases).
+   * A part that reads as before is left alone.
+   * @returns false when a load, or the worker's failure, came first
+   */
+  private applyCases(shown: CasesShown): Promise<boolean> {
+    const token = this.token;
+    const patched: string[] = [];
+    const steps: Array<() => void> = [
+      ...shown.blocks.map(([line, render]) => () => {
+        const html = render();
+        if (this.lastHtml.get(`#cases-${line}`) === html) return;
+        const el = this.root.querySelector<HTMLElement>(`#line-${line} [data-cases]`);
+        if (el) el.outerHTML = html;
+        this.lastHtml.set(`#cases-${line}`, html);
+      }),
+      ...shown.cells.map(([id, render]) => () => {
+        const html = render();
+        if (html === null) return;
+        // Worker mode: a later patch of this cell shows this HTML, not an older answer's.
+        this.client?.incoming.set(id, html);
+        const el = this.cells.get(id);
+        if (!el || html === this.lastHtml.get(id)) return;
+        replaceInner(el, html);
+        this.lastHtml.set(id, html);
+        patched.push(id);
+      }),
+      ...shown.notes.map(([id, render]) => () => this.patchNote(id, render())),
+      () => {
+        this.casesNow = shown.verdicts;
+        this.casesStale = false;
+        this.showPending();
+        const summary = shown.summary();
+        this.client?.incomingParts.set('check-summary', summary);
+        if (this.patchPart('check-summary', () => summary)) patched.push('@check-summary');
+        const at = performance.now();
+        const event: PatchEvent = { changed: [...shown.verdicts.keys()], patched, deferred: this.deferred.size, computeStart: at, renderStart: at, at };
+        for (const l of this.listeners) l(event);
+      },
+    ];
     return new Promise((done) => {
-      this.driversWanted = { generation, done: (html) => { if (this.driversWanted?.generation === generation) this.driversWanted = null; done(html); } };
-      this.post({ type: 'drivers', generation, text, file: this.doc.file ?? '', overrides: Object.fromEntries(this.overrides), target });
+      const step = () => {
+        // A load, or the worker's failure, since: these verdicts are of a document no longer shown.
+        if (token !== this.token) return done(false);
+        const start = performance.now();
+        do steps.shift()!();
+        while (steps.length && performance.now() - start < WORKER_SLICE_MS);
+        if (steps.length) nextTask(step);
+        else done(true);
+      };
+      step();
     });
   }
 
-  /** Worker mode: the cases' verdicts, a block per task (each is a table); then `done(true)`. */
-  private showWorkerCases(m: Extract<FromWorker, { type: 'cases' }>, done: (ok: boolean) => void): void {
-    this.casesWanted = null;
-    const token = this.token;
-    // A block whose verdicts read as before is left alone.
-    const steps: Array<() => void> = m.blocks.filter(([line, html]) => this.lastHtml.get(`#cases-${line}`) !== html).map(([line, html]) => () => {
-      const el = this.root.querySelector<HTMLElement>(`#line-${line} [data-cases]`);
-      if (el) el.outerHTML = html;
-      this.lastHtml.set(`#cases-${line}`, html);
-    });
-    steps.push(() => {
-      this.incomingParts.set('check-summary', m.summary);
-      this.patchPart('check-summary', () => m.summary);
-    });
-    const step = () => {
-      // A load, or the worker's failure, since: these verdicts are of a document no longer shown.
-      if (token !== this.token) return done(false);
-      const start = performance.now();
-      do steps.shift()!();
-      while (steps.length && performance.now() - start < WORKER_SLICE_MS);
-      if (steps.length) nextTask(step);
-      else done(true);
-    };
-    step();
+  /** A check's cases note (its governing case), above its output; '' removes it. */
+  private patchNote(id: string, html: string): void {
+    const key = `~note-${id}`;
+    const out = this.cells.get(id);
+    if (this.lastHtml.get(key) === html || !out?.parentElement) return;
+    out.parentElement.querySelector(':scope > .vb-casenote')?.remove();
+    if (html) out.insertAdjacentHTML('beforebegin', html);
+    this.lastHtml.set(key, html);
   }
 
   resetAll(): void {
@@ -654,7 +698,7 @@ export class LiveSheet {
   }
 
   private render(id: string, state: CellState): string {
-    if (this.worker) return this.incoming.get(id) ?? this.lastHtml.get(id) ?? '';
+    if (this.client) return this.client.incoming.get(id) ?? this.lastHtml.get(id) ?? '';
     const cell = this.doc.graph.byId.get(id);
     return cell ? renderCellOutput(cell, state, this.ctx) : '';
   }
@@ -848,7 +892,7 @@ export class LiveSheet {
   private settleIfDone(): void {
     if (this.pending.size || this.dirty.size || this.inView.length) return;
     // Worker mode: an edit sent since is still to be answered; its answer settles the page.
-    if (this.worker && this.accepted !== this.seq) return;
+    if (this.client && !this.client.answered) return;
     this.emitSettled();
   }
 
@@ -870,15 +914,23 @@ export class LiveSheet {
     document.dispatchEvent(new CustomEvent('vaultbook:settled', { detail: event }));
   }
 
-  /** The cases' verdicts (site/cases.ts): the checks summary and each cases block show them from now on. */
-  showCases(run: CaseRun): void {
+  /**
+   * The cases' verdicts (site/cases.ts), judged on the main thread: each cases block, each check
+   * limited to cases, the cases notes and the checks summary show them from now on (see applyCases).
+   * @returns false when a load or the worker's failure came first
+   */
+  showCases(run: CaseRun): Promise<boolean> {
     this.ctx.cases = run;
-    for (const block of this.doc.blocks) {
-      if (block.kind !== 'calc' || block.cellKind !== 'cases') continue;
-      const el = this.root.querySelector<HTMLElement>(`#line-${block.span.start.line} [data-cases]`);
-      if (el) el.outerHTML = renderCasesBlock(block, this.ctx);
-    }
-    this.patchPart('check-summary', () => renderCheckSummary(this.doc, this.session.states, this.ctx));
+    const { doc, ctx } = this;
+    const states = this.session.states;
+    return this.applyCases({
+      blocks: doc.blocks.flatMap((block): Array<[number, () => string]> => (block.kind === 'calc' && block.cellKind === 'cases' ? [[block.span.start.line, () => renderCasesBlock(block, ctx)]] : [])),
+      // A check computing again is patched when it settles (with these verdicts).
+      cells: checksShownByCases(doc).map((cell) => [cell.id, () => { const state = states.get(cell.id); return state && state.status !== 'pending' ? renderCellOutput(cell, state, ctx) : null; }]),
+      notes: doc.graph.cells.filter((c) => c.kind === 'check').map((cell) => [cell.id, () => checkCasesNote(cell, ctx)]),
+      summary: () => renderCheckSummary(doc, states, ctx),
+      verdicts: verdictsOverCases(doc, run),
+    });
   }
 
   private patchPart(part: string, render: () => string): boolean {

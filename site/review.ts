@@ -94,6 +94,29 @@ function isUnit(v: unknown): v is Unit {
   return typeof v === 'object' && v !== null && (v as { isUnit?: boolean }).isUnit === true;
 }
 
+/** A check's verdict and utilization: `pass` null when it is not evaluated. */
+export interface CheckVerdict {
+  pass: boolean | null;
+  utilization: number | null;
+}
+
+const NOT_EVALUATED: CheckVerdict = { pass: null, utilization: null };
+
+/**
+ * How a check's verdict moved: from the document's to the one shown now (for a check limited to
+ * cases, its verdict over those cases before and after).
+ * @returns null when neither its state nor its utilization changed (within round-off)
+ * @example compareVerdicts('c_third', {pass: true, utilization: 0.85}, {pass: null, utilization: null})
+ *          // {kind: 'check', flipped: true, before: true, after: null, …}
+ */
+export function compareVerdicts(id: string, before: CheckVerdict, after: CheckVerdict): Extract<ResultChange, { kind: 'check' }> | null {
+  const pb = before.pass, pa = after.pass;
+  const ub = before.utilization, ua = after.utilization;
+  const sameUtil = ub === ua || (ub !== null && ua !== null && Math.abs(ub - ua) <= SAME * Math.max(Math.abs(ub), Math.abs(ua)));
+  if (pb === pa && sameUtil) return null;
+  return { kind: 'check', id, before: pb, after: pa, flipped: pb !== pa, utilBefore: ub, utilAfter: ua };
+}
+
 /**
  * How one cell's current state differs from the document's.
  * @returns null when nothing changed (within round-off)
@@ -105,11 +128,7 @@ export function compareToDocument(cell: Cell, before: CellState | undefined, aft
   if (cell.kind === 'check') {
     const x = before?.status === 'ok' && isCheck(before.value) ? before.value : null;
     const y = after?.status === 'ok' && isCheck(after.value) ? after.value : null;
-    const pb = x ? x.pass : null, pa = y ? y.pass : null;
-    const ub = x ? x.utilization : null, ua = y ? y.utilization : null;
-    const sameUtil = ub === ua || (ub !== null && ua !== null && Math.abs(ub - ua) <= SAME * Math.max(Math.abs(ub), Math.abs(ua)));
-    if (pb === pa && sameUtil) return null;
-    return { kind: 'check', id: cell.id, before: pb, after: pa, flipped: pb !== pa, utilBefore: ub, utilAfter: ua };
+    return compareVerdicts(cell.id, x ?? NOT_EVALUATED, y ?? NOT_EVALUATED);
   }
   if (before?.status !== 'ok' || after?.status !== 'ok') {
     if (before?.status === after?.status && (before?.status !== 'blocked' || (before as { by: string }).by === (after as { by: string }).by)) return null;

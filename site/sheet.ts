@@ -4,6 +4,6 @@
  * names the entry points the page needs.
  */
 export {
-  renderSheet, renderCellOutput, renderCheckSummary, renderCasesBlock, renderDiagnostics, renderStatus, makeRenderContext, SHEET_CSS,
+  renderSheet, renderCellOutput, renderCheckSummary, renderCasesBlock, checkCasesNote, verdictOverCases, renderDiagnostics, renderStatus, makeRenderContext, SHEET_CSS,
   type RenderContext, type ArchiveInfo,
 } from '../engine/render/index.js';

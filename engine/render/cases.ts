@@ -60,6 +60,17 @@ export function notJudgedHere(cell: Cell, ctx: RenderContext): { verdict: Verdic
   return env?.cases.length && !ctx.cases.shown ? { verdict: verdictOfCase(env.governing ?? { case: null, pass: env.pass, utilization: env.utilization }), utilization: env.utilization } : { verdict: 'none', utilization: null };
 }
 
+/**
+ * A check's verdict over the cases it is judged in, as the sheet shows a check limited to cases
+ * (notJudgedHere): `pass` null when it is judged in no case or could not be evaluated in one.
+ * @example verdictOverCases(run, 'c_overturn') // {pass: true, utilization: 0.6}
+ */
+export function verdictOverCases(run: CaseRun, checkId: string): { pass: boolean | null; utilization: number | null } {
+  const env = run.checks.get(checkId);
+  if (!env?.cases.length) return { pass: null, utilization: null };
+  return { pass: (env.governing ?? env).pass, utilization: env.utilization };
+}
+
 /** The sentence under a check in the body: the cases it is judged in and the one that governs. */
 export function checkCasesNote(cell: Cell, ctx: RenderContext): string {
   const v = caseVerdict(cell, ctx);

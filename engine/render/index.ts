@@ -9,5 +9,5 @@ export { makeRenderContext, type RenderContext, type SheetOptions, type ArchiveI
 export { renderCheckSummary, verdictOf, NEAR_LIMIT, type Verdict } from './check.js';
 export { renderDiagnostics, renderStatus, collectDiagnostics } from './diagnostics.js';
 export { SHEET_CSS } from './sheet-css.js';
-export { renderCasesBlock } from './cases.js';
+export { renderCasesBlock, checkCasesNote, verdictOverCases } from './cases.js';
 export { sha256Hex } from './sha256.js';

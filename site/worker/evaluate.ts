@@ -7,9 +7,9 @@
 import '../runtime-turn.js';
 import { compile, startSession } from '../../engine/index.js';
 import type { CellState, CompiledDocument, Session } from '../../engine/index.js';
-import { makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderStatus, type RenderContext } from '../sheet.js';
+import { checkCasesNote, makeRenderContext, renderCasesBlock, renderCellOutput, renderCheckSummary, renderDiagnostics, renderStatus, type RenderContext } from '../sheet.js';
 import { compareToDocument } from '../review.js';
-import { judgeWithTrials } from '../cases.js';
+import { checksShownByCases, judgeWithTrials, verdictsOverCases } from '../cases.js';
 import { explainDocument } from '../../engine/drivers/index.js';
 import { renderDriversAppendix } from '../../engine/render/drivers.js';
 import type { CellPatch, FromWorker, ToWorker } from './protocol.js';
@@ -49,6 +49,9 @@ async function load(m: Extract<ToWorker, { type: 'load' }>): Promise<void> {
   session.subscribe((id, state) => { if (state.status !== 'pending') loaded.unsent.set(id, loaded.seq); });
   current = loaded;
   post({ type: 'loaded', token: m.token });
+  // The cases' verdicts as the page painted them (its own run at load, with the same trial values): each
+  // check limited to cases is rendered with its verdict over them, and the checks summary with the cases.
+  if (m.cases) ctx.cases = await judgeWithTrials(doc, m.cases);
 }
 
 async function edit(m: Extract<ToWorker, { type: 'set' | 'reset' }>): Promise<void> {
@@ -87,7 +90,13 @@ async function cases(m: Extract<ToWorker, { type: 'cases' }>): Promise<void> {
   for (const block of c.doc.blocks) {
     if (block.kind === 'calc' && block.cellKind === 'cases') blocks.push([block.span.start.line, renderCasesBlock(block, c.ctx)]);
   }
-  post({ type: 'cases', generation: m.generation, token: c.token, blocks, summary: renderCheckSummary(c.doc, c.session.states, c.ctx) });
+  // A check limited to cases shows its verdict over them: its output changes with the cases' verdicts.
+  const cells = checksShownByCases(c.doc).map((cell): [string, string] => [cell.id, renderCellOutput(cell, c.session.states.get(cell.id)!, c.ctx)]);
+  const notes = c.doc.graph.cells.filter((cell) => cell.kind === 'check').map((cell): [string, string] => [cell.id, checkCasesNote(cell, c.ctx)]);
+  post({
+    type: 'cases', generation: m.generation, token: c.token, blocks, summary: renderCheckSummary(c.doc, c.session.states, c.ctx),
+    cells, verdicts: [...verdictsOverCases(c.doc, run)], notes,
+  });
 }
 
 /** What drives a check: its own document and sessions, so it runs beside the edits rather than before them. */

@@ -7,10 +7,15 @@
  * and repeats it in each result until the page has taken it.
  */
 import type { ArchiveInfo } from '../sheet.js';
-import type { ResultChange } from '../review.js';
+import type { CheckVerdict, ResultChange } from '../review.js';
 
 export type ToWorker =
-  | { type: 'load'; token: number; text: string; file: string; archive?: ArchiveInfo; overrides: Array<[string, string]> }
+  /**
+   * `cases`: the trial values the cases are judged with (site/cases.ts), when the document has cases:
+   * the worker judges them once loaded, so that it renders each check limited to cases with its
+   * verdict over them, as the page painted it.
+   */
+  | { type: 'load'; token: number; text: string; file: string; archive?: ArchiveInfo; overrides: Array<[string, string]>; cases?: Record<string, string> }
   | { type: 'set'; seq: number; accepted: number; name: string; value: string }
   | { type: 'reset'; seq: number; accepted: number; name: string }
   | { type: 'cases'; generation: number; trials: Record<string, string> }
@@ -32,7 +37,12 @@ export type FromWorker =
    * was posted (performance.timeOrigin + performance.now(), comparable across threads).
    */
   | { type: 'result'; seq: number; token: number; cells: CellPatch[]; parts: Array<[string, string]>; evaluations: Array<[string, number]>; times: [number, number, number] }
-  | { type: 'cases'; generation: number; token: number; blocks: Array<[number, string]>; summary: string }
+  /**
+   * The cases' verdicts: each cases block (by its line), the checks summary, and what they change in
+   * each check: `cells`, the output of every check limited to cases (it shows its verdict over them);
+   * `verdicts`, that verdict (for the review); `notes`, every check's cases note ('' for none).
+   */
+  | { type: 'cases'; generation: number; token: number; blocks: Array<[number, string]>; summary: string; cells: Array<[string, string]>; verdicts: Array<[string, CheckVerdict]>; notes: Array<[string, string]> }
   /** The drivers table of the check asked for (the HTML of the sheet appendix's table for it), null when it could not be explained. */
   | { type: 'drivers'; generation: number; html: string | null }
   | { type: 'failed'; message: string };

@@ -45,14 +45,15 @@ export interface Live {
 /**
  * Serves a temp copy of `fixture` and opens it.
  * @param prepare runs on the page before it loads (e.g. to route the websocket)
+ * @param case the case the page opens on (`serve --case`)
  */
-export async function openLive(browser: Browser, fixture: string, options: { transform?: (text: string) => string; prepare?: (page: Page) => Promise<void> } = {}): Promise<Live> {
+export async function openLive(browser: Browser, fixture: string, options: { transform?: (text: string) => string; prepare?: (page: Page) => Promise<void>; case?: string } = {}): Promise<Live> {
   const t = tempCopy(fixture);
   if (options.transform) {
     const { readFileSync, writeFileSync } = await import('node:fs');
     writeFileSync(t.file, options.transform(readFileSync(t.file, 'utf8')));
   }
-  const server = await startServer({ file: t.file, port: 0, logLevel: (process.env.VB_LOG as 'info') ?? 'error' });
+  const server = await startServer({ file: t.file, port: 0, logLevel: (process.env.VB_LOG as 'info') ?? 'error', ...(options.case ? { case: options.case } : {}) });
   const page = await browser.context.newPage();
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));

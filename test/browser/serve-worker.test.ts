@@ -47,23 +47,15 @@ const SLOW_ANSWERS = `{ const add = Worker.prototype.addEventListener;
 const casesAtLoad = (page: Page) => page.evaluate(() => (window as unknown as { __casesAtLoad: Promise<unknown> }).__casesAtLoad.then(() => true));
 
 /**
- * Every cell's output HTML, by id. A check's cases note (its governing case) is left out: on either
- * page it is rendered from the cases as last judged when the check was patched, which is a matter of
- * timing (the cases are judged again a quarter second after each edit).
+ * Every cell's output HTML, by id (with its review badge), and every check's cases note (its
+ * governing case, above the check's output): both pages show the cases' verdicts once judged,
+ * a check limited to cases its verdict over them.
  */
 function sheetHtml(page: Page): Promise<Record<string, string>> {
-  return page.evaluate(() => {
-    // A check limited to some cases shows either its working or its verdict over those cases, by
-    // whether the cases had been judged when it was rendered; the main-thread page sometimes renders
-    // them before (a race not pinned down yet): of those checks, only the review badge is compared.
-    const limited = new Set(window.vaultbook.sheet.doc.cases.limits.keys());
-    return Object.fromEntries([...document.querySelectorAll<HTMLElement>('#lv-sheet [data-cell]')].map((el) => [
-      el.dataset.cell!,
-      limited.has(el.dataset.cell!)
-        ? el.querySelector(':scope > .lv-badge')?.innerHTML ?? ''
-        : el.innerHTML.replace(/<p class="vb-note vb-casenote">[^<]*<\/p>/g, ''),
-    ]));
-  });
+  return page.evaluate(() => Object.fromEntries([...document.querySelectorAll<HTMLElement>('#lv-sheet [data-cell]')].flatMap((el) => [
+    [el.dataset.cell!, el.innerHTML],
+    [`note of ${el.dataset.cell!}`, el.parentElement?.querySelector(':scope > .vb-casenote')?.outerHTML ?? ''],
+  ])));
 }
 
 /**

@@ -79,16 +79,27 @@ describe('live page with cases', () => {
     } finally { await close(); }
   });
 
-  it('a check limited to the case shown flips in the review panel under its description, without the [in …] marker', async () => {
-    // c_R is judged in STR only: R = 1.35 · 10 · 3 / 6 = 6.75 kN > 6 kN fails there (5 kN as written holds).
+  it('a check limited to cases flips as its verdict over them does, under its description without the [in …] marker; choosing its case is no flip', async () => {
+    // c_R is judged in STR only, and the page shows its verdict there: R = 1.35 · 10 · 3 / 6 = 6.75 kN > 6 kN fails.
     const text = BEAM.replace('c_M = M <= 20 kN m  # bending', 'c_M = M <= 20 kN m  # bending\nc_R = gamma_G * P * (L - x_P) / L <= 6 kN  # left reaction [in STR]');
-    const { page, close } = await open('e.md', undefined, text);
+    const { page, close, errors } = await open('e.md', undefined, text);
     try {
+      expect(await cellText(page, 'c_R')).toContain('FAILS');
+      await page.evaluate(() => { (window as unknown as { __cases: Promise<unknown> }).__cases = new Promise((ok) => document.addEventListener('vaultbook:cases', ok, { once: true })); });
       await page.selectOption('#lv-case', 'STR');
-      await page.waitForFunction(() => document.querySelector('[data-cell="c_R"]')?.textContent?.includes('FAILS'));
+      // STR as a trial value: c_M flips (1.35 · 15 = 20.25 kN m > 20 kN m); c_R fails over STR as before, no flip.
+      await page.waitForFunction(() => document.querySelector('[data-cell="c_M"]')?.textContent?.includes('FAILS'));
+      await page.evaluate(() => (window as unknown as { __cases: Promise<unknown> }).__cases);
+      expect(await page.locator('#lv-review').textContent()).toContain('bending');
+      expect(await page.locator('#lv-review').textContent()).not.toContain('left reaction');
+      // P = 8 kN: R = 1.35 · 8 · 3 / 6 = 5.4 kN ≤ 6 kN holds in STR, once the cases are judged again.
+      await editInput(page, 'P', '8 kN');
+      await page.waitForFunction(() => document.querySelector('[data-cell="c_R"]')?.textContent?.includes('HOLDS'));
       const panel = (await page.locator('#lv-review').textContent()) ?? '';
-      expect(panel).toContain('left reaction ✗ holds → fails');
+      expect(panel).toContain('left reaction ✓ fails → holds');
       expect(panel).not.toContain('[in ');
+      expect(await page.locator('[data-cell="c_R"]').getAttribute('class')).toMatch(/lv-flipped-pass/);
+      expect(errors).toEqual([]);
     } finally { await close(); }
   });
 
