@@ -31,8 +31,8 @@ describe('public surface', () => {
   // The sheet is its own entry so that eval and check do not load KaTeX and the sanitiser.
   it('engine/render/index.ts exports the sheet renderer', () => {
     expect(Object.keys(render).sort()).toEqual([
-      'NEAR_LIMIT', 'SHEET_CSS', 'collectDiagnostics', 'makeRenderContext', 'renderArticle', 'renderCasesBlock', 'renderCellOutput',
-      'renderCheckSummary', 'renderDiagnostics', 'renderSheet', 'renderStatus', 'sha256Hex', 'verdictOf',
+      'NEAR_LIMIT', 'SHEET_CSS', 'checkCasesNote', 'collectDiagnostics', 'makeRenderContext', 'renderArticle', 'renderCasesBlock', 'renderCellOutput',
+      'renderCheckSummary', 'renderDiagnostics', 'renderSheet', 'renderStatus', 'sha256Hex', 'verdictOf', 'verdictOverCases',
     ]);
   });
 });
