@@ -2,7 +2,7 @@
  * The live page's side of its evaluation worker (./evaluate.ts, messages in ./protocol.ts): it starts
  * the worker, posts the page's loads, edits and requests, takes the worker's answers (dropping an
  * answer to an edit that is no longer the latest) and says when the worker fails. LiveSheet
- * (site/preview.ts) patches what the worker answers, and marks the cells an edit may move.
+ * (site/preview.ts) patches what the worker answers (site/patch/), and marks the cells an edit may move.
  */
 import { downstreamOf } from '../../engine/cases/dirty.js';
 import type { CompiledDocument } from '../../engine/index.js';
