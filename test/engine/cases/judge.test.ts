@@ -172,6 +172,17 @@ describe('a check limited by [in …] on the command line', () => {
   });
 });
 
+describe('check --case --json on a check limited to other cases', () => {
+  it('gives it no governing case (it printed governing {case: null, …}, which README reads as "the document as written governs"), cases [] and its judged_in', async () => {
+    const one = await evaluateDocument(BEAM, { file: 'beam.md', case: 'EQU' });
+    const c = one.summary.checks.find((x) => x.name === 'c_R')!;
+    expect(c).not.toHaveProperty('governing');
+    expect(c).toMatchObject({ pass: null, utilization: null, cases: [], judged_in: ['STR', 'axle'] });
+    // A check judged in EQU keeps its governing case.
+    expect(one.summary.checks.find((x) => x.name === 'c_M')!.governing).toMatchObject({ case: 'EQU', pass: true });
+  });
+});
+
 describe('--set of another dimension (the rule the live page applies to an edit)', () => {
   it('--set refuses a value whose dimension is not the input\'s, naming both, on the input\'s line; check exits 2', async () => {
     const problems = (overrides: Record<string, string>) => compile(BEAM, { file: 'beam.md', overrides }).diagnostics.map((d) => `${d.line}:${d.column} ${d.severity} ${d.ruleId} ${d.message}`);
