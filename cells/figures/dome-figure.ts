@@ -90,7 +90,7 @@ export function domeFigure(d: Dome, limit?: DomeLimit, units: FigureUnits = SI_F
       const pts = limit.thrust_min.map((p) => ({ x: p.r, y: p.z }));
       for (const side of [1, -1]) body += el('path', { d: pathData(pts.map((p) => at({ x: side * p.x, y: p.y }))), ...STYLES.thrust });
     }
-    facts.push([`lunes, no hoop tension: t_min ${typeof limit.t_min === 'number' ? say.length(limit.t_min) : 'none fits'}, gsf ${Number.isFinite(limit.gsf) ? say.number(limit.gsf) : '∞'}`, limit.gsf < 1 ? RED : INK]);
+    facts.push([`lunes, no hoop tension: t_min ${typeof limit.t_min === 'number' ? say.length(limit.t_min) : 'none fits'}, gsf ${Number.isFinite(limit.gsf) ? limit.gsf.toFixed(2) : '∞'}`, limit.gsf < 1 ? RED : INK]);
     if (typeof limit.H_min === 'number') facts.push([`base thrust from ${say.line(limit.H_min)} to ${Number.isFinite(limit.H_max as number) ? say.line(limit.H_max as number) : '∞'}`, INK]);
   }
   // The legend, then each fact wrapped to the room right of the section.

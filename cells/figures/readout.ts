@@ -41,8 +41,6 @@ export interface Readout {
   weight(si: number): string;
   /** Any kind, as label text. */
   text(kind: FigureKind, si: number): string;
-  /** A plain number (a factor of safety, a load factor) to the same significant figures: "2.131", "1.95". */
-  number(x: number): string;
   /** The number an SI value is in the kind's display unit (for plot axes). */
   value(kind: FigureKind, si: number): number;
   /** The display unit as printed: "kN/m²", "ft". */
@@ -82,7 +80,6 @@ export function readout(request: FigureUnits = SI_FIGURE_UNITS): Readout {
     pressure: (si) => text('pressure', si),
     weight: (si) => text('unit weight', si),
     text, value,
-    number: (x) => formatNumber(x, request.sigfigs),
     unit: (kind) => printed(request.units[kind]),
     perSI: (kind) => per[kind],
     request,

@@ -53,7 +53,7 @@ export function scanPlot(s: ArchScan, units: FigureUnits = SI_FIGURE_UNITS): str
     body += el('line', { x1: cx, y1: cy, x2: cx, y2: p.y(0), stroke: '#a3162b', 'stroke-width': 0.25, 'stroke-dasharray': '0.8 0.6' });
     const right = cx < 24 + 136 * 0.6;
     // A label: the placement pass moves it off the curve and the line λ = 1 when it lands on them.
-    body += label(cx + (right ? 2 : -2), cy + 4.2, `worst: λ = ${say.number(s.lambda_min)} at x = ${say.length(s.x_worst)}`, right ? 'start' : 'end', { fill: '#a3162b', 'font-weight': 'bold' });
+    body += label(cx + (right ? 2 : -2), cy + 4.2, `worst: λ = ${s.lambda_min.toFixed(2)} at x = ${say.length(s.x_worst)}`, right ? 'start' : 'end', { fill: '#a3162b', 'font-weight': 'bold' });
   } else {
     title += ' (no position causes collapse)';
   }

@@ -205,10 +205,10 @@ export function section(ring: ArchRing, limit: ArchLimit, loads: ArchLoads = {},
   if (!fig.thrust_min) { legend += text(10, y + 0.9, 'no line of thrust fits within the ring: NOT SAFE', { fill: '#a3162b', 'font-weight': 'bold' }); y += 4; }
   if (hinges.length) { legend += el('circle', { cx: 14, cy: y, r: 1.1, fill: '#fff', stroke: INK, 'stroke-width': 0.4 }) + text(20, y + 0.9, 'hinge of the least-thrust line (tick: into the ring from its face)', { fill: INK }); y += 4; }
   if (mechanism.length && typeof limit.load_factor === 'number') {
-    legend += legendItem({ x: 10, y }, COLLAPSE, `line at collapse, λ = ${say.number(limit.load_factor)}; hinges 1–${mechanism.length} of the mechanism (●)`);
+    legend += legendItem({ x: 10, y }, COLLAPSE, `line at collapse, λ = ${limit.load_factor.toFixed(2)}; hinges 1–${mechanism.length} of the mechanism (●)`);
     y += 4;
   }
-  legend += text(WIDTH - 10, 5.9, `geometric factor of safety ${say.number(limit.gsf)}`, { 'text-anchor': 'end', fill: INK, 'font-weight': 'bold' });
+  legend += text(WIDTH - 10, 5.9, `geometric factor of safety ${limit.gsf.toFixed(2)}`, { 'text-anchor': 'end', fill: INK, 'font-weight': 'bold' });
   legend += text(WIDTH - 10, 9.9, `gsf: ${(limit.gsf_definition ?? '').split(':')[0]}`, { 'text-anchor': 'end', fill: MUTED, 'font-size': SMALL_TEXT });
   // Hinge list under the drawing: face and position of each, numbered as drawn.
   let footer = '';

@@ -85,10 +85,10 @@ export function supportFigure(b: Buttress, o: ButtressOptions, units: FigureUnit
     [`resultant at the base: ${say.length(b.x_R)} from the outer toe,`, INK],
     [`eccentricity e = ${say.length(b.e)} from the centre of the base`, INK],
     [b.middle_third ? 'within the middle third of the base' : b.in_base ? 'OUTSIDE the middle third: part of the base lifts' : 'OUTSIDE the base: the support overturns', b.middle_third ? INK : RED],
-    [`overturning: safety factor ${Number.isFinite(b.sf_overturning) ? say.number(b.sf_overturning) : '∞ (no thrust)'}`, b.sf_overturning < 1 ? RED : INK],
+    [`overturning: safety factor ${Number.isFinite(b.sf_overturning) ? b.sf_overturning.toFixed(2) : '∞ (no thrust)'}`, b.sf_overturning < 1 ? RED : INK],
     [`least base width: ${widthText(b.width_min_third, say)} (middle third), ${widthText(b.width_min_base, say)} (in base)`, INK],
     ...(typeof b.sigma_max === 'number' ? [[`base pressure: max ${say.pressure(b.sigma_max)}, min ${say.pressure(typeof b.sigma_min === 'number' ? b.sigma_min : 0)}`, INK]] : []),
-    ...(typeof b.sf_sliding === 'number' && Number.isFinite(b.sf_sliding) ? [[`sliding: µN/T = ${say.number(b.sf_sliding)}`, b.sf_sliding < 1 ? RED : INK]] : []),
+    ...(typeof b.sf_sliding === 'number' && Number.isFinite(b.sf_sliding) ? [[`sliding: µN/T = ${b.sf_sliding.toFixed(2)}`, b.sf_sliding < 1 ? RED : INK]] : []),
   ] as Array<[string, string]>;
   // Each fact wrapped to the room right of the drawing.
   const facts = factLines(lines.map(([t, c]) => [t, { fill: c, 'font-weight': c === RED ? 'bold' : undefined }]), { x: 112, y: 30 }, WIDTH - 112 - 2);

@@ -70,7 +70,7 @@ describe('scan_plot(s)', () => {
     const s = archScan(ring, { fill_unit_weight: 19e3, fill_level: 2.24 }, { axles: [50e3, 50e3], spacing: [1.8], steps: 20 });
     const svg = scanPlot(s);
     const t = parse(svg).querySelectorAll('text').map((e) => e.text);
-    expect(t).toContain(`worst: λ = ${sf4(s.lambda_min as number)} at x = ${sf4(s.x_worst as number)} m`);
+    expect(t).toContain(`worst: λ = ${(s.lambda_min as number).toFixed(2)} at x = ${sf4(s.x_worst as number)} m`);
     expect(svg).not.toMatch(/NaN|undefined/);
   });
 });
