@@ -21,6 +21,10 @@ instance.createUnit({
   ksf: '47880.258980336 Pa',
   kcf: '157087.46384624 N/m^3',
 });
+// mathjs's kip is 4448.2216 N, 3.4e-9 short of 1000 lbf (so 1 kip − 1000 lbf was −3.4e-6 lbf), and its psi
+// 6e-11 off lbf/in²: both redefined from its exact lbf (4.4482216152605 N) and inch (0.0254 m).
+instance.createUnit('kip', { definition: '1000 lbf', aliases: ['kips'] }, { override: true });
+instance.createUnit('psi', { definition: '1 lbf/in^2' }, { override: true });
 
 // atan2 of two quantities of the same dimension (H_y, H_x) is an angle, as in statics.
 instance.import({

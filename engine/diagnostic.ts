@@ -34,6 +34,8 @@ export interface StageContext {
   diagnostics: Diagnostic[];
   /** Significant figures for numbers quoted in messages (the document's, default 4). */
   sigfigs?: number;
+  /** The document's system of units, for a kernel's refusal whose call carries no quantity of its own (default 'si'). */
+  units?: 'si' | 'us';
 }
 
 /**

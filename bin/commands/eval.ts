@@ -16,8 +16,16 @@ export async function evalCommand(args: string[], out: (s: string) => void): Pro
     out(text);
     if (failures > 0) return 2;
   } else {
+    // A check limited by [in …] to cases other than the one shown is not judged here: its value as
+    // computed here is no verdict (check and the sheet say the same).
+    const limited = new Map(summary.checks.filter((c) => c.name && c.judged_in?.length && c.cases).map((c) => [c.name!, c]));
+    const shownHere = (c: { cases?: { case: string | null }[] }) => (values.case !== undefined ? c.cases!.length > 0 : c.cases!.some((x) => x.case === null));
+    const textOf = (name: string, v: { kind: string; text: string }) => {
+      const c = v.kind === 'check' ? limited.get(name) : undefined;
+      return c && !shownHere(c) ? `not judged ${values.case !== undefined ? 'in this case' : 'as written'} (judged in ${c.judged_in!.join(', ')} only)` : v.text;
+    };
     const rows = Object.entries(summary.values).map(([name, v]) => [
-      String(v.line), v.kind, name + (v.overridden_from !== undefined ? ' *' : ''), v.text,
+      String(v.line), v.kind, name + (v.overridden_from !== undefined ? ' *' : ''), textOf(name, v),
     ]);
     out(table(['line', 'kind', 'name', 'value'], rows));
     if (Object.values(summary.values).some((v) => v.overridden_from !== undefined)) out(values.case !== undefined ? `* input overridden with --set or by the case ${values.case}` : '* input overridden with --set');

@@ -1,8 +1,8 @@
 /**
  * cross_vault_figure(c): a cross vault cut into slices — in plan the slice planes of each web and
  * the corner thrusts of the least-thrust state; the two elevations with the webs, the solid pocket,
- * where each slice springs and the corner's resultant at its height (slicing after Heyman, The Stone
- * Skeleton, 1995; from memory).
+ * where each slice springs and the corner's horizontal thrust at its height z_x_min / z_y_min, on the
+ * corner's plane (slicing after Heyman, The Stone Skeleton, 1995; from memory).
  */
 import type { CrossVault } from '../vault/groin/cross-vault.js';
 import { webU, webZ, type WebArc } from '../vault/groin/cross-webs.js';

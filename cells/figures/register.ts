@@ -172,7 +172,7 @@ export const cross_vault_figure = defineCellFunction({
   reference: {
     params: { vault: 'A result of cross_vault(…).' },
     fields: { result: SVG },
-    method: 'Plan: the bay, the groins, each slice\'s plane (red where a slice holds no line of thrust) and the least corner thrusts. Elevations across both spans: the wider and narrower webs, the top of the solid pocket, the points where the least-thrust lines of the slices cross their springings, and the corner resultant at z_x_min / z_y_min.',
+    method: 'Plan: the bay, the groins, each slice\'s plane (red where a slice holds no line of thrust) and the least corner thrusts. Elevations across both spans: the wider and narrower webs, the top of the solid pocket, the points where the least-thrust lines of the slices cross their springings, and the corner\'s least horizontal thrust at its height z_x_min / z_y_min, drawn on the corner\'s plane (the vertical reaction V_corner acts a_x_min / a_y_min inside it and is not drawn there).',
     sources: ['Heyman, The Stone Skeleton, Cambridge 1995 (slicing; from memory).'],
   },
 });

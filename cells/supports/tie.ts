@@ -77,7 +77,7 @@ export function tie(o: TieOptions): Tie {
   if (d === undefined) {
     if (needed === undefined) {
       const most = BAR_DIAMETERS_MM[BAR_DIAMETERS_MM.length - 1]!;
-      throw new RangeError(`tie: needs more than one ${most} mm bar (${barArea(most).toFixed(0)} mm², thread ${threadOnBar(most / 1e3)!.name}) can take; use several ties`);
+      throw new RangeError(`tie: T = ${o.T} N is more than one ${most} mm bar (${barArea(most).toFixed(0)} mm², thread ${threadOnBar(most / 1e3)!.name}) can take; use several ties`);
     }
     d = needed / 1e3;
   } else if (!(d >= 0.008 && d < NEXT_THREAD_MM / 1e3)) {

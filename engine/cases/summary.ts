@@ -24,9 +24,9 @@ export function summariseCases(summary: Summary, run: CaseRun, doc: CompiledDocu
     if (!env) return;
     entry.pass = env.pass;
     entry.utilization = env.utilization;
-    // No governing case is claimed for a check that holds everywhere without utilizations to compare: `governing` is left out.
+    // No governing case is claimed for a check that holds everywhere without utilizations to compare, nor for one
+    // judged in none of the cases shown (--case NAME, a check limited to others: `cases: []`): `governing` is left out.
     if (env.governing) entry.governing = { ...env.governing };
-    else if (!env.cases.length) entry.governing = { case: null, pass: null, utilization: null };
     entry.cases = env.cases.map((x) => ({ ...x }));
   });
   if (run.diagnostics.length) {

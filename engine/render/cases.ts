@@ -41,7 +41,8 @@ export function caseVerdict(cell: Cell, ctx: RenderContext): { verdict: Verdict;
   if (!env) return null;
   const limit = ctx.doc.cases.limits.get(cell.id) ?? null;
   const governing = env.governing ? caseLabel(env.governing.case)
-    : env.cases.length ? 'none (it holds in every case, with no utilization to compare the cases by)' : 'not judged in any case';
+    : env.cases.length ? 'none (it holds in every case, with no utilization to compare the cases by)'
+    : `none in the case shown (${caseLabel(run.shown?.name ?? null)})`; // shown in one case it is not judged in
   const note = `governing: ${governing}${limit ? ` (judged in ${limit.join(', ')} only)` : ''}`;
   const neutral = !limit && env.cases.every((x) => x.pass === env.cases[0]?.pass && x.utilization === env.cases[0]?.utilization);
   const verdict = env.cases.length ? verdictOfCase(env.governing ?? { case: null, pass: env.pass, utilization: env.utilization }) : 'none';

@@ -121,12 +121,12 @@ function withOptionGuess(message: string): string {
   return guess ? message.replace(/; known options:/, `; did you mean "${guess}"? Known options:`) : message;
 }
 
-function classify(err: unknown, sigfigs?: number): { ruleId: RuleId; message: string; actual?: string; expected?: string } {
+function classify(err: unknown, sigfigs?: number, units?: 'si' | 'us'): { ruleId: RuleId; message: string; actual?: string; expected?: string } {
   const message = err instanceof Error ? err.message : String(err);
   if (err instanceof LimitError) return { ruleId: 'sandbox/limit', message };
   if (err instanceof UnitMismatchError) return { ruleId: 'units/mismatch', message, actual: err.actual, expected: err.expected };
   if (err instanceof CellArgumentError) return { ruleId: 'kernel/argument', message: withOptionGuess(message) };
-  if (err instanceof KernelDomainError) return { ruleId: 'kernel/domain', message: quoteInUserUnits(message, err.given, sigfigs) };
+  if (err instanceof KernelDomainError) return { ruleId: 'kernel/domain', message: quoteInUserUnits(message, err.given, sigfigs, units) };
   if (err instanceof SandboxError || /No access to (property|method)/.test(message)) {
     return { ruleId: 'sandbox/refused', message: message.replace(/^No access to/, 'a calc document has no access to') };
   }
@@ -141,7 +141,7 @@ function classify(err: unknown, sigfigs?: number): { ruleId: RuleId; message: st
  * @param scope the cell's inputs, used to name the two sides of a unit clash
  */
 export function explainError(err: unknown, cell: Cell, scope: Map<string, unknown>, ctx: StageContext): Diagnostic {
-  const c = classify(err, ctx.sigfigs);
+  const c = classify(err, ctx.sigfigs, ctx.units);
   let message = c.message;
   if (c.ruleId === 'units/mismatch' && !(err instanceof UnitMismatchError)) {
     try {

@@ -19,10 +19,12 @@ function sameNumber(a: number, b: number): boolean {
 /**
  * The message with its quantities in the document's units.
  * @param given the quantities of the call, as the document gave them
+ * @param documentUnits the document's system of units, used when the call's quantities are all SI or it has none
  * @example quoteInUserUnits('T must be positive, got -10000 N', [], 4) // 'T must be positive, got −10 kN'
  */
-export function quoteInUserUnits(message: string, given: GivenQuantity[], sigfigs = 4): string {
-  const units = unitSystemOf(given.map((g) => g.value));
+export function quoteInUserUnits(message: string, given: GivenQuantity[], sigfigs = 4, documentUnits: 'si' | 'us' = 'si'): string {
+  // US customary when the call's quantities are written so, or the document is (a call without quantities of its own, dome_limit(d)).
+  const units = unitSystemOf(given.map((g) => g.value)) === 'us' || documentUnits === 'us' ? 'us' : 'si';
   return message.replace(QUANTITY, (whole, digits: string, si: string | undefined) => {
     const x = Number(digits);
     if (!Number.isFinite(x)) return whole;

@@ -60,7 +60,7 @@ const IMPERIAL = new Set(['ft', 'inch', 'in', 'yd', 'mi', 'lbf', 'lb', 'lbm', 'k
 export { formatNumber, NOISE } from '../../cells/format-number.js';
 
 /** Units that mark a quantity as written in US customary units. */
-const US_WRITTEN = /\b(ft|in|inch|yd|kip|kips|ksi|ksf|psf|pcf|plf|klf|kipft|lbf|psi)\b/;
+export const US_WRITTEN = /\b(ft|in|inch|yd|kip|kips|ksi|ksf|psf|pcf|plf|klf|kipft|lbf|psi)\b/;
 
 /**
  * The system of units of a document, from the values of its given inputs: 'us' when any is written

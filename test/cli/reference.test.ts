@@ -93,6 +93,16 @@ describe('vaultbook help', () => {
     expect(r.out).toMatch(/`h_thrust` — length, m\. Depth below the crown/);
   });
 
+  it('help cross_vault_figure and the README say z_x_min is the height of the horizontal thrust, not of the corner\'s resultant (its meaning since cross_vault\'s ΣH·z/ΣH)', async () => {
+    const r = await run('help', 'cross_vault_figure');
+    expect(r.out).toMatch(/least horizontal thrust at its height z_x_min \/ z_y_min/);
+    expect(r.out).not.toMatch(/resultant at z_x_min/);
+    const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
+    const bullet = readme.slice(readme.indexOf('- `cross_vault({'), readme.indexOf('- `flying_buttress({'));
+    expect(bullet).toMatch(/height of the horizontal thrust \(`z_x_min`, …\) and the arm of `V_corner` \(`a_x_min`, …\)/);
+    expect(bullet).not.toMatch(/height of the corner's resultant/);
+  });
+
   it('help on a command prints its usage', async () => {
     const r = await run('help', 'diff');
     expect(r).toMatchObject({ code: 0, out: expect.stringMatching(/^usage: vaultbook diff OLD NEW/) });

@@ -2,6 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { plainWords } from '../../engine/runtime/plain-words.js';
 import { quoteInUserUnits } from '../../engine/runtime/quote.js';
 import { math } from '../../cells/math.js';
+import { evaluateDocument } from '../../engine/index.js';
+import { fence } from '../helpers/settle.js';
 
 describe('plainWords: mathjs messages in the words of a calc', () => {
   it('plainWords(a signature error on a missing value) names neither the internal function nor a JavaScript type', () => {
@@ -29,6 +31,14 @@ describe('quoteInUserUnits: kernel numbers in the document\'s units', () => {
     // 17.8 kN / 4.4482216152605 kN per kip = 4.0016 kip (NIST SP 811, Appendix B: 1 lbf = 4.4482216152605 N).
     const given = [{ si: 'm', number: 6.096, value: math.unit(20, 'ft') }];
     expect(quoteInUserUnits('H = 17800 N is more than the wall takes', given, 4)).toBe('H = 4.002 kip is more than the wall takes');
+  });
+
+  it('a refusal of a call without quantities of its own (dome_limit(d)) in a calc written in ft and psf quotes psf, not kN/m^2', async () => {
+    // dome_limit refuses a weightless dome (g = 0); the call passes only the dome's record, so the document's units decide.
+    const text = fence('given', 'R = 20 ft', 'p_l = 30 psf') + '\n' + fence('calc', 'd = dome({radius: R, half_angle: 90 deg, thickness: 1 ft, g: 0 psf, p: p_l})', 'l = dome_limit(d)');
+    const { summary } = await evaluateDocument(text, { file: 'g0.md' });
+    const d = summary.diagnostics.find((x) => x.cell === 'l')!;
+    expect(d.message).toBe('dome_limit: the dome needs its self-weight (unit_weight, or g above zero), got g = 0 psf');
   });
 
   it('quoteInUserUnits leaves clause numbers and N/mm² alone', () => {

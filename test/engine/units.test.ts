@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { evaluateDocument } from '../../engine/index.js';
 import { fence } from '../helpers/settle.js';
+import { expectClose } from '../helpers/close.js';
 
 async function valueOf(lines: string[], name: string) {
   const { summary } = await evaluateDocument(fence('calc', ...lines));
@@ -28,6 +29,17 @@ describe('units — display and mismatch messages', () => {
     expect((await valueOf(['w = 1000 plf to klf'], 'w')).value).toBeCloseTo(1, 10);
     expect((await valueOf(['f = 1 ksi to MPa'], 'f')).value).toBeCloseTo(6.894757, 6);
     expect((await valueOf(['P = 1 kip to kN'], 'P')).value).toBeCloseTo(4.448222, 6);
+  });
+
+  it('a kip is exactly 1000 lbf and a psi exactly 1 lbf/in² (mathjs\'s own kip was 4448.2216 N, 3.4e-9 short: 1 kip − 1000 lbf gave −3.4e-6 lbf)', async () => {
+    // NIST SP 811 (2008) Appendix B: 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m, 1 kip = 1000 lbf (exact).
+    const lbf = 4.4482216152605;
+    expect((await valueOf(['d = 1 kip - 1000 lbf to lbf'], 'd')).value).toBe(0);
+    // (the JSON value has 12 significant figures: relative 1e-11 tells the old factors from the exact ones)
+    expectClose((await valueOf(['P = 1 kip to N'], 'P')).value as number, 1000 * lbf, 1e-11);
+    expect((await valueOf(['r = 1 ksi / (1000 psi)'], 'r')).value).toBe(1);
+    expectClose((await valueOf(['p = 1 psi to Pa'], 'p')).value as number, lbf / 0.0254 ** 2, 1e-11);
+    expectClose((await valueOf(['q = 1 kip / ft^2 to psf'], 'q')).value as number, 1000, 1e-11);
   });
 
   it('says which dimensions clash instead of "Units do not match"', async () => {

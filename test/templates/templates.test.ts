@@ -8,6 +8,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { readFile, mkdtemp, rm, readdir } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
 import { evaluateDocument, type Summary } from '../../engine/index.js';
 import { checkCommand } from '../../bin/commands/check.js';
 import { renderCommand } from '../../bin/commands/render.js';
@@ -358,8 +359,15 @@ describe('templates/clerestory.md — key numbers (issue 15)', () => {
     expect(num(s(), 'F_lo')).toBeLessThan(num(s(), 'T_lo'));
   });
 
-  it('the least thrust across the nave acts on the groin between the solid pocket and the crown; its resultant with V_c meets the wall plane below the springing', () => {
-    // z_lo was the resultant's crossing of the wall plane (about −0.77 m); since 2026-12-02 it is the height of the
+  it('clerestory.md measures a_lo and z_wall from the corner\'s plane, half the web thickness behind the wall face, as cross_vault does (it said "the wall plane", read as the face: 0.125 m and, at V/H = 3.3, about 0.41 m of height away)', () => {
+    const text = readFileSync(new URL('../../templates/clerestory.md', import.meta.url), 'utf8');
+    expect(text).not.toMatch(/wall plane/);
+    expect(text).toMatch(/^a_lo = bay\.a_y_min to m +# how far inside the corner's plane \(t_web\/2 behind the wall face\)/m);
+    expect(text).toMatch(/^z_wall = .*# where the resultant of H_lo and V_c crosses the corner's plane/m);
+  });
+
+  it('the least thrust across the nave acts on the groin between the solid pocket and the crown; its resultant with V_c crosses the corner\'s plane below the springing', () => {
+    // z_lo was the resultant's crossing of the corner's plane (about −0.77 m); since 2026-12-02 it is the height of the
     // horizontal thrust, ΣH·z/ΣH over the slices (issue 15), and the crossing is z_wall = z_lo − a_lo·V_c/H_lo.
     expect(num(s(), 'z_lo')).toBeGreaterThan(num(s(), 'bay.solid_level'));
     expect(num(s(), 'z_lo')).toBeLessThan(num(s(), 'bay.crown'));

@@ -67,18 +67,20 @@ export function crossWebs(spanX: number, spanY: number, shape: string, t: number
   const semicircle = (A: number, S: number) => arc(S > 0 ? 'stilted' : 'semicircular', 2 * A, A, S, A, 0, S, Math.PI / 2, h);
   let wide: (A: number) => WebArc, Hm: number;
   switch (shape) {
+    // The stilts and rises are written as differences of the given lengths, not recovered from the crown
+    // height Hm: (stilt + Aw + h) − A − h left a residue of ~1e-16 m, so a square semicircular web came out "stilted".
     case 'semicircular':
     case 'stilted': {
       Hm = stilt + Aw + h;
-      wide = (A) => semicircle(A, Hm - A - h);
+      wide = (A) => semicircle(A, stilt + (Aw - A));
       break;
     }
     case 'segmental': {
       const F = rise!;
       Hm = stilt + F + h;
       wide = (A) => {
-        const f = Hm - h - stilt;
-        if (f >= A) return semicircle(A, Hm - A - h);
+        const f = F;
+        if (f >= A) return semicircle(A, stilt + (F - A));
         const rho = (A * A + f * f) / (2 * f);
         return arc('segmental', 2 * A, f, stilt, rho, 0, stilt + f - rho, Math.asin(A / rho), h);
       };

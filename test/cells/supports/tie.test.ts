@@ -111,7 +111,8 @@ describe('tie: bar and threaded ends', () => {
   });
 
   it('tie refuses a thrust no bar of the series can take, and bad input', () => {
-    expect(() => tie({ T: 2e6, f_y: 235e6 })).toThrow(/use several ties/);
+    // It says which thrust is too much, in a sentence (it read 'needs more than one 50 mm bar (…) can take').
+    expect(() => tie({ T: 2e6, f_y: 235e6 })).toThrow('tie: T = 2000000 N is more than one 50 mm bar (1963 mm², thread M48) can take; use several ties');
     expect(isNotAvailable(tie({ T: 2e6, ...S235, diameter: 0.05 }).bar_needed)).toBe(true);
     expect(() => tie({ T: -1, f_y: 235e6 })).toThrow(/T must be positive/);
     expect(() => tie({ T: 1e3, f_y: 0 })).toThrow(/f_y must be positive/);

@@ -172,6 +172,38 @@ describe('a check limited by [in …] on the command line', () => {
   });
 });
 
+describe('check --case --json on a check limited to other cases', () => {
+  it('gives it no governing case (it printed governing {case: null, …}, which README reads as "the document as written governs"), cases [] and its judged_in', async () => {
+    const one = await evaluateDocument(BEAM, { file: 'beam.md', case: 'EQU' });
+    const c = one.summary.checks.find((x) => x.name === 'c_R')!;
+    expect(c).not.toHaveProperty('governing');
+    expect(c).toMatchObject({ pass: null, utilization: null, cases: [], judged_in: ['STR', 'axle'] });
+    // A check judged in EQU keeps its governing case.
+    expect(one.summary.checks.find((x) => x.name === 'c_M')!.governing).toMatchObject({ case: 'EQU', pass: true });
+  });
+});
+
+describe('eval on a check limited to cases', () => {
+  it('eval says a check limited to STR and axle is not judged as written, nor with --case EQU (it printed "holds (utilization 0.56)" and, in EQU, its verdict there)', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'vaultbook-eval-limit-'));
+    const file = join(dir, 'beam.md');
+    writeFileSync(file, BEAM);
+    const row = async (...args: string[]) => {
+      const out: string[] = [];
+      await main(['eval', file, ...args], (s) => out.push(s), () => {});
+      return out.join('\n').split('\n').find((l) => /\bc_R\b/.test(l))!;
+    };
+    expect(await row()).toMatch(/check\s+c_R\s+not judged as written \(judged in STR, axle only\)$/);
+    expect(await row('--case', 'EQU')).toMatch(/check\s+c_R\s+not judged in this case \(judged in STR, axle only\)$/);
+    // In a case it is judged in, its verdict there: R = 1.35 · 10 kN · 3/6 = 6.75 kN ≤ 9 kN, u = 0.75 (statics by hand).
+    expect(await row('--case', 'STR')).toMatch(/check\s+c_R\s+holds \(utilization 0\.75\)$/);
+    // A check without a limit keeps its verdict.
+    const out: string[] = [];
+    await main(['eval', file], (s) => out.push(s), () => {});
+    expect(out.join('\n')).toMatch(/check\s+c_M\s+holds \(utilization 0\.75\)/); // M = 10 kN · 3 · 3 / 6 = 15 kN m of 20
+  });
+});
+
 describe('--set of another dimension (the rule the live page applies to an edit)', () => {
   it('--set refuses a value whose dimension is not the input\'s, naming both, on the input\'s line; check exits 2', async () => {
     const problems = (overrides: Record<string, string>) => compile(BEAM, { file: 'beam.md', overrides }).diagnostics.map((d) => `${d.line}:${d.column} ${d.severity} ${d.ruleId} ${d.message}`);

@@ -99,6 +99,14 @@ describe('render and check on the command line', () => {
     expect(sheet.querySelectorAll('tr.vb-input--set').map((tr) => tr.getAttribute('id'))).toEqual(['cell-x_P']);
   });
 
+  it('render --case STR: a check limited to axle says it has no governing case in the case shown (it said "governing: not judged in any case", though it is judged in axle)', async () => {
+    const { doc, states, warnings, cases } = await evaluateDocument(BEAM.replace('# left reaction [in STR, axle]', '# left reaction [in axle]'), { file: 'beam.md', case: 'STR' });
+    const sheet = parse(renderSheet({ doc, states, warnings, cases, options: { standalone: false } }));
+    const note = sheet.querySelectorAll('.vb-casenote').map((p) => p.text).find((t) => t.startsWith('Judged in axle only'))!;
+    expect(note).toBe('Judged in axle only; governing: none in the case shown (STR).');
+    expect(note).not.toContain('not judged in any case');
+  });
+
   it('check exits 1 when a check fails in any case, 0 when --set makes every case hold', async () => {
     expect(await checkCommand([file], () => {})).toBe(1);
     // P = 5 kN: STR gives 10.1 kN m, axle[1] gives R = 4.5 kN: all hold.

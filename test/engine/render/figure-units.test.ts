@@ -110,6 +110,44 @@ describe('a calc in ft, kip, pcf and psf', () => {
     }
   });
 
+  it('a gatehouse bay in ft, pcf, psf and ksi (cross_vault, dome_limit, buttress, tie) agrees with the same calc in SI to 1e-10, and its figures say no m or kN', async () => {
+    // The SI calc is the US one converted by hand: NIST SP 811, 1 ft = 0.3048 m, 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m.
+    // Before kip was redefined as 1000 lbf, every kip result sat 3.4e-9 off; before the semicircular webs kept stilt 0, the
+    // 16 ft bay's elevations were headed "(stilted)".
+    const calc = (g: Record<string, string>) => [
+      '---', 'title: Gatehouse bay (fictional)', '---', '',
+      '```given', ...Object.entries(g).map(([k, v]) => `${k} = ${v}`), '```', '',
+      '```calc',
+      'cv = cross_vault({span_x: L_x, shape: "semicircular", thickness: t_w, unit_weight: w_m, live: q_l})',
+      'H_c = cv.H_x_min', 'z_c = cv.z_x_min', 'a_c = cv.a_x_min', 'V_c = cv.V_corner',
+      'd = dome({radius: R_d, half_angle: 90 deg, thickness: t_d, unit_weight: w_m})',
+      'H_d = dome_limit(d).H_min',
+      'bt = buttress({height: h_b, width: b_b, depth: d_b, unit_weight: w_m, T: H_c, z_T: h_b, V: V_c})',
+      'p_b = bt.sigma_max',
+      'N_t = tie({T: H_c, f_y: f_y, f_u: f_u, diameter: d_t}).N_thread_Rd',
+      '```', '', '```figure', 'cross_vault_figure(cv)', 'support_figure(bt)', '```', '',
+    ].join('\n');
+    const ft = 0.3048, lbf = 4.4482216152605, inch = 0.0254;
+    const us = calc({ L_x: '16 ft', t_w: '0.75 ft', w_m: '120 pcf', q_l: '40 psf', R_d: '12 ft', t_d: '1.25 ft', h_b: '14 ft', b_b: '6 ft', d_b: '3 ft', f_y: '36 ksi', f_u: '58 ksi', d_t: '1.5 in' });
+    const si = calc({
+      L_x: `${16 * ft} m`, t_w: `${0.75 * ft} m`, w_m: `${120 * lbf / ft ** 3} N/m^3`, q_l: `${40 * lbf / ft ** 2} Pa`, R_d: `${12 * ft} m`, t_d: `${1.25 * ft} m`,
+      h_b: `${14 * ft} m`, b_b: `${6 * ft} m`, d_b: `${3 * ft} m`, f_y: `${36e3 * lbf / inch ** 2} Pa`, f_u: `${58e3 * lbf / inch ** 2} Pa`, d_t: `${1.5 * inch} m`,
+    });
+    const a = await renderText(us, { file: 'us.md' }), b = await renderText(si, { file: 'si.md' });
+    const sa = summarise(a.doc, a.states, a.warnings).values, sb = summarise(b.doc, b.states, b.warnings).values;
+    const toSI: Record<string, number> = { ft, kip: 1000 * lbf, 'kip/ft': 1000 * lbf / ft, psf: lbf / ft ** 2, m: 1, kN: 1e3, 'kN/m': 1e3, 'kN/m^2': 1e3 };
+    for (const name of ['H_c', 'z_c', 'a_c', 'V_c', 'H_d', 'p_b', 'N_t']) {
+      const x = sa[name]!, y = sb[name]!;
+      expect(x.unit, name).toMatch(/^(ft|kip|kip\/ft|psf)$/);
+      const rel = ((x.value as number) * toSI[x.unit!]!) / ((y.value as number) * toSI[y.unit!]!) - 1;
+      expect(Math.abs(rel), `${name}: ${x.text} against ${y.text}`).toBeLessThan(1e-10);
+    }
+    const figures = parse(a.html).querySelectorAll('.vb-svg').map((f) => f.querySelectorAll('text').map((t) => t.text).join(' '));
+    expect(figures.length).toBe(2);
+    for (const f of figures) expect(f).not.toMatch(METRIC);
+    expect(figures[0]).toMatch(/across the x-span \(semicircular\)/);
+  });
+
   it('renderSheet of an SI calc keeps m and kN in its figures, to its own significant figures', async () => {
     const source = [
       '---', 'sigfigs: 3', '---',

@@ -256,6 +256,21 @@ describe('cross_vault by slicing, against closed forms and an independent hand s
     expectClose(crossWebs(6, 4.2, 'semicircular', 0.25).y.stilt, 0.9, 1e-12);
   });
 
+  it('crossWebs keeps a square bay\'s semicircular webs semicircular, stilt exactly 0, whatever the span (before: a rounding residue of 7e-17 m made them "stilted" in cross_vault_figure\'s headings for a 16 ft bay)', () => {
+    // 16 ft = 4.8768 m, 0.75 ft = 0.2286 m (NIST SP 811: 1 ft = 0.3048 m); the other spans and thicknesses are arbitrary.
+    for (const [span, t] of [[4.8768, 0.2286], [3.6, 0.1025], [5.1, 0.33], [7.3, 0.29]] as const) {
+      const w = crossWebs(span, span, 'semicircular', t);
+      for (const web of [w.x, w.y]) {
+        expect(web.shape, `${span} m, t ${t} m`).toBe('semicircular');
+        expect(web.stilt, `${span} m, t ${t} m`).toBe(0);
+      }
+      const seg = crossWebs(span, span * 0.8, 'segmental', t, span / 4);
+      expect(seg.x.shape).toBe('segmental');
+      expect(seg.x.stilt).toBe(0);
+      expect(seg.x.rise).toBe(span / 4); // the rise given, not the rise recovered from the crown height
+    }
+  });
+
   it('cross_vault refuses bad input, naming the option', () => {
     const ok = { span_x: 6, thickness: 0.3, unit_weight: gamma };
     expect(() => crossVault({ ...ok, shape: 'ogee' })).toThrow(/shape must be/);
