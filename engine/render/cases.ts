@@ -15,6 +15,7 @@ import { formatUtilization } from '../values/format.js';
 import type { RenderContext } from './context.js';
 import { typeset } from './katex.js';
 import { symbolTex } from './names.js';
+import { NEAR_LIMIT } from './check.js';
 
 type Verdict = 'pass' | 'near' | 'fail' | 'none';
 const MARK: Record<Verdict, string> = { pass: '✓', near: '◆', fail: '✗', none: '?' };
@@ -22,7 +23,7 @@ const MARK: Record<Verdict, string> = { pass: '✓', near: '◆', fail: '✗', n
 function verdictOfCase(x: { pass: boolean | null; utilization: number | null }): Verdict {
   if (x.pass === null) return 'none';
   if (!x.pass) return 'fail';
-  return x.utilization !== null && x.utilization > 0.95 ? 'near' : 'pass';
+  return x.utilization !== null && x.utilization > NEAR_LIMIT ? 'near' : 'pass';
 }
 
 /** The name a reader sees for a case: the document as written has none of its own. */

@@ -22,7 +22,8 @@ import { caseVerdict, checkCasesNote, notJudgedHere, withoutLimitMarker } from '
 
 /**
  * How a check came out, in the three states used everywhere (holds, fails, not evaluated);
- * 'near' is a check that holds with less than 5 % to spare, marked as such.
+ * 'near' is a check that holds with less than 5 % to spare: its verdict word is HOLDS like any other that
+ * holds (a check is holds, fails or not evaluated, nothing else); the closeness is a note beside it.
  */
 export type Verdict = 'pass' | 'near' | 'fail' | 'none';
 
@@ -31,7 +32,7 @@ export const NEAR_LIMIT = 0.95;
 
 const WORDS: Record<Verdict, { mark: string; word: string }> = {
   pass: { mark: '✓', word: 'HOLDS' },
-  near: { mark: '◆', word: 'HOLDS – NEAR LIMIT' },
+  near: { mark: '◆', word: 'HOLDS' },
   fail: { mark: '✗', word: 'FAILS' },
   none: { mark: '?', word: 'NOT EVALUATED' },
 };
@@ -58,11 +59,14 @@ function utilizationOf(verdict: Verdict, u: number): string {
   return formatUtilization(u, verdict === 'fail' ? false : verdict === 'none' ? null : true);
 }
 
-/** The verdict badge: mark, word and utilization. */
+/** Beside HOLDS when a check holds with less than 5 % to spare: a note, not a verdict of its own. */
+const NEAR_NOTE = `<span class="vb-near-note">within ${Math.round((1 - NEAR_LIMIT) * 100)} % of the limit</span>`;
+
+/** The verdict badge: mark, word, utilization and, close to the limit, a note saying so. */
 export function verdictHtml(verdict: Verdict, utilization: number | null): string {
   const { mark, word } = WORDS[verdict];
   const u = utilization === null ? '' : `<span class="vb-util">u = ${utilizationOf(verdict, utilization)}</span>${utilizationBar(utilization)}`;
-  return `<div class="vb-verdict vb-verdict--${verdict}"><span class="vb-mark" aria-hidden="true">${mark}</span><span class="vb-word">${word}</span>${u}</div>`;
+  return `<div class="vb-verdict vb-verdict--${verdict}"><span class="vb-mark" aria-hidden="true">${mark}</span><span class="vb-word">${word}</span>${u}${verdict === 'near' ? NEAR_NOTE : ''}</div>`;
 }
 
 /** A check limited to other cases than the one shown: not judged here, and not "not evaluated". */
@@ -221,7 +225,7 @@ export function renderCheckSummary(doc: CompiledDocument, states: Map<string, Ce
     const what = (cell.description ? descriptionHtml(withoutLimitMarker(cell.description)) : typeset(exprTex(cell.node, ctx.scope, false))) + governs;
     return `<tr class="vb-sum vb-sum--${verdict}"><td class="vb-ref">${i + 1}</td><td>${what}</td>`
       + `<td class="vb-num">${u === null ? '—' : utilizationOf(verdict, u)}</td><td class="vb-barcell">${utilizationBar(u)}</td>`
-      + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}</td>`
+      + `<td class="vb-sum-verdict"><span class="vb-mark" aria-hidden="true">${WORDS[verdict].mark}</span> ${WORDS[verdict].word}${verdict === 'near' ? ` ${NEAR_NOTE}` : ''}</td>`
       + `<td class="vb-ref"><a href="#${anchorId(cell.id)}">line ${cell.span.start.line}</a></td></tr>`;
   }).join('');
   const bad = tally.fail + tally.none;

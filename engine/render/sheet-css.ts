@@ -63,6 +63,7 @@ body { margin: 0; color: var(--vb-ink); font: 10pt/1.42 var(--vb-sans); -webkit-
 .vb-sum--pass .vb-sum-verdict { color: var(--vb-pass); }
 .vb-sum--near td { background: var(--vb-near-bg); }
 .vb-sum--near .vb-sum-verdict { color: var(--vb-near); font-weight: bold; }
+.vb-near-note { margin-left: 1.5mm; font-size: 7.5pt; font-weight: normal; font-style: italic; }
 .vb-sum--fail td { background: var(--vb-fail-bg); font-weight: bold; border-top: 1pt solid var(--vb-fail); border-bottom: 1pt solid var(--vb-fail); }
 .vb-sum--fail .vb-sum-verdict { color: var(--vb-fail); }
 .vb-sum--none .vb-sum-verdict { color: var(--vb-muted); font-style: italic; }

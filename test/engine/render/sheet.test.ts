@@ -59,9 +59,12 @@ describe('renderSheet({doc, states})', () => {
       return [v.classNames.split(' ').find((k) => k.startsWith('vb-verdict--')), v.querySelector('.vb-word')!.text];
     });
     expect(verdicts).toEqual([
-      ['vb-verdict--pass', 'HOLDS'], ['vb-verdict--fail', 'FAILS'], ['vb-verdict--near', 'HOLDS – NEAR LIMIT'],
+      ['vb-verdict--pass', 'HOLDS'], ['vb-verdict--fail', 'FAILS'], ['vb-verdict--near', 'HOLDS'],
       ['vb-verdict--pass', 'HOLDS'], ['vb-verdict--fail', 'FAILS'], ['vb-verdict--pass', 'HOLDS'],
     ]);
+    // Close to the limit is a note beside HOLDS, never a verdict word of its own (holds, fails, not evaluated).
+    expect(root.querySelector('.vb-verdict--near .vb-near-note')!.text).toBe('within 5 % of the limit');
+    expect(r.html).not.toMatch(/NEAR LIMIT/);
     const summary = byData(root, 'data-part', 'check-summary')[0]!;
     expect(summary.querySelectorAll('tbody tr').length).toBe(6);
     expect(summary.querySelector('.vb-overall')!.text).toContain('2 of 6 checks FAIL');
