@@ -19,7 +19,7 @@ import { summarise, type Summary } from './summary.js';
 import { readCaseBook } from './cases/read.js';
 import { judgeCases, findCase, type CaseRun, type CaseRunner } from './cases/index.js';
 import { summariseCases } from './cases/summary.js';
-import { US_WRITTEN } from './values/format.js';
+import { documentUnitSystem } from './values/format.js';
 
 export interface CompileOptions {
   /** File name used in diagnostics. */
@@ -84,9 +84,8 @@ export function compile(source: string, options: CompileOptions = {}): CompiledD
 /** Starts a live session on a compiled document. */
 export function startSession(doc: CompiledDocument): Session {
   const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : undefined;
-  // As written (the values are not known yet): a given input in ft, kip, psf … makes the document's messages US customary.
-  const units = doc.graph.cells.some((c) => c.kind === 'given' && US_WRITTEN.test(c.source.replace(/"[^"]*"/g, ''))) ? 'us' as const : undefined;
-  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics, ...(sigfigs ? { sigfigs } : {}), ...(units ? { units } : {}) });
+  // A given input written in ft, kip, psf … makes the document's messages US customary.
+  return bindGraph(doc.graph, { file: doc.file, diagnostics: doc.diagnostics, ...(sigfigs ? { sigfigs } : {}), units: documentUnitSystem(doc) });
 }
 
 export interface Evaluation {

@@ -69,7 +69,7 @@ export interface Summary {
 export function summarise(doc: CompiledDocument, states: Map<string, CellState>, warnings: Map<string, Diagnostic>): Summary {
   const sigfigs = typeof doc.meta.sigfigs === 'number' ? doc.meta.sigfigs : 4;
   // Results without units of their own are given in the document's system (kip, psf … for a calc in US units).
-  const units = documentUnitSystem(doc, states);
+  const units = documentUnitSystem(doc);
   const values: Record<string, ValueEntry> = {};
   const checks: CheckEntry[] = [];
   const diagnostics: Diagnostic[] = [...doc.diagnostics];

@@ -49,7 +49,7 @@ function showChange(id: string): void {
   const byCases = sheet.caseChange(id);
   const change = byCases !== undefined ? byCases
     : sheet.worker && sheet.workerChange(id) !== undefined ? sheet.workerChange(id)!
-      : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs(), documentUnitSystem(sheet.doc, sheet.baseline));
+      : compareToDocument(cell, sheet.baseline.get(id), sheet.session.states.get(id), sigfigs(), documentUnitSystem(sheet.doc));
   if (change) changes.set(id, change); else changes.delete(id);
   const html = changeBadge(change);
   let badge = el.querySelector<HTMLElement>(':scope > .lv-badge');

@@ -184,7 +184,7 @@ export async function explainDocument(source: string, options: ExplainOptions = 
   const session = startSession(doc);
   const written = new Map(await session.settle());
   // Values in the document's units (kip, ft … for a calc written in US customary units).
-  const format: FormatOptions = { sigfigs, units: documentUnitSystem(doc, written) };
+  const format: FormatOptions = { sigfigs, units: documentUnitSystem(doc) };
 
   // With cases, each check is explained in its governing case.
   const caseOf = new Map<string, Case | null>();

@@ -96,7 +96,7 @@ export function makeRenderContext(doc: CompiledDocument, states: Map<string, Cel
   }
   const sigfigs = sigfigsOf(doc, options);
   const defined = (name: string) => graph.byId.has(name) || graph.failed.has(name);
-  const units = documentUnitSystem(doc, states);
+  const units = documentUnitSystem(doc);
   const scope: TexScope = {
     sigfigs,
     units,

@@ -72,13 +72,23 @@ export function unitSystemOf(inputs: Iterable<unknown>): UnitSystem {
   return 'si';
 }
 
+/** Each compiled document's system of units, worked out once (every edit's rendering asks for it). */
+const systems = new WeakMap<CompiledDocument, UnitSystem>();
+
 /**
- * The system of units a document is written in, from its given inputs' values.
- * @example documentUnitSystem(doc, states) // "us" for a calc with `L = 24 ft`
+ * The system of units a document is written in: 'us' when any given input is written in US customary
+ * units (`L = 24 ft`, `w = 120 pcf`; quoted text aside), else 'si'. Read from what the document wrote,
+ * so it is known before evaluation (a kernel's messages) and is the same for the sheet, the JSON,
+ * the drivers and the live page; overrides (`--set`, live edits) do not change it.
+ * @example documentUnitSystem(doc) // "us" for a calc with `L = 24 ft`
  */
-export function documentUnitSystem(doc: CompiledDocument, states: ReadonlyMap<string, CellState>): UnitSystem {
-  const inputs = doc.graph.cells.filter((c) => c.kind === 'given').map((c) => states.get(c.id)).flatMap((s) => (s?.status === 'ok' ? [s.value] : []));
-  return unitSystemOf(inputs);
+export function documentUnitSystem(doc: CompiledDocument): UnitSystem {
+  let system = systems.get(doc);
+  if (system === undefined) {
+    system = doc.graph.cells.some((c) => c.kind === 'given' && US_WRITTEN.test(c.source.replace(/"[^"]*"/g, ''))) ? 'us' : 'si';
+    systems.set(doc, system);
+  }
+  return system;
 }
 
 /**

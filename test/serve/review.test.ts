@@ -42,7 +42,7 @@ describe('compareToDocument', () => {
     const baseline = new Map(await session.settle());
     expect(session.setInput('L', '22 ft')).toBeNull();
     const now = await session.settle();
-    const units = documentUnitSystem(doc, baseline);
+    const units = documentUnitSystem(doc);
     const h = compareToDocument(doc.graph.byId.get('H')!, baseline.get('H'), now.get('H'), 3, units);
     session.dispose();
     expect(units).toBe('us');

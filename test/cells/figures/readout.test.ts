@@ -7,7 +7,16 @@
  * Rounding: the sheet's rule (engine/values/format.ts): `sigfigs` significant figures of the decimal
  * value, trailing zeros dropped — so 0.215 m prints "0.215" at 3 and also at 4 (not "0.2150"), and
  * "0.22" at 2 (0.215 rounds half up as written, not as the double 0.21499…).
- * The statics behind the values are those of figures.test.ts (each named there).
+ * The statics behind the values, as in figures.test.ts:
+ * - N_φ = −g·R at the crown of a circular barrel under self-weight: −2.16 kN/m² × 4 m = −8.64 kN/m (membrane
+ *   theory of cylindrical shells, Flügge ch. 3 — from memory).
+ * - H_x = g·R² at a square groin vault's corner, and its resultant √2·H_x (the groin_vault kernel's closed form,
+ *   tested against its source in test/cells/vault/groin/).
+ * - A wall 6 m × 1.5 m × 1 m at 20 kN/m³ weighs N = 180 kN; with T = 10 kN at 6 m the resultant cuts the base at
+ *   x_R = 0.75 − 60/180 = 0.41667 m from the outer toe, and the greatest base pressure is 288 kN/m² (rigid-block
+ *   statics of a rectangular base, common practice).
+ * - Spans, rises, thicknesses and radii are the inputs themselves; ring weights and H_min come from the kernels
+ *   and are only re-rounded here.
  */
 import { describe, expect, it } from 'vitest';
 import { parse } from 'node-html-parser';
